@@ -1,0 +1,36 @@
+import { desc, eq } from 'drizzle-orm';
+import type { Db } from '../connection';
+import { auditLog } from '../schema';
+
+export interface AuditInput {
+  teamId: number | null;
+  userId: number | null;
+  action: string;
+  entityType: string;
+  entityId?: number | null;
+  detail?: Record<string, unknown>;
+}
+
+/** Append one event to the audit log (never updated, never deleted). */
+export function writeAudit(db: Db, e: AuditInput) {
+  db.insert(auditLog)
+    .values({
+      teamId: e.teamId,
+      userId: e.userId,
+      action: e.action,
+      entityType: e.entityType,
+      entityId: e.entityId ?? null,
+      detail: e.detail ?? {},
+    })
+    .run();
+}
+
+export function listAudit(db: Db, teamId: number, limit = 200) {
+  return db
+    .select()
+    .from(auditLog)
+    .where(eq(auditLog.teamId, teamId))
+    .orderBy(desc(auditLog.id))
+    .limit(limit)
+    .all();
+}

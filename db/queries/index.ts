@@ -1,0 +1,4 @@
+export * from './audit';
+export * from './users';
+export * from './designs';
+export * from './revisions';

@@ -1,0 +1,120 @@
+import { and, asc, desc, eq, sql } from 'drizzle-orm';
+import type { Db } from '../connection';
+import { revisions, users } from '../schema';
+import { writeAudit } from './audit';
+import { touchDesign } from './designs';
+
+/** Another revision was saved since the one the edit started from. */
+export class RevisionConflictError extends Error {
+  constructor(
+    readonly baseRevision: number | null,
+    readonly latestRevision: number | null,
+  ) {
+    super(`Revision r${latestRevision} was saved after r${baseRevision ?? '–'}, the one this edit started from`);
+    this.name = 'RevisionConflictError';
+  }
+}
+
+export function latestRevisionNumber(db: Db, designId: number): number | null {
+  const row = db
+    .select({ n: sql<number | null>`max(${revisions.number})` })
+    .from(revisions)
+    .where(eq(revisions.designId, designId))
+    .get();
+  return row?.n ?? null;
+}
+
+/**
+ * Save a new immutable revision. `baseNumber` names the revision the edit
+ * started from; when another was saved meanwhile this throws
+ * RevisionConflictError and nothing is written. The check and the insert run
+ * in one IMMEDIATE transaction, so two saves from one base never both land
+ * on the same number (and the unique index backs that up across processes).
+ */
+export function createRevision(
+  db: Db,
+  r: {
+    teamId: number;
+    designId: number;
+    baseNumber: number | null;
+    input: unknown;
+    summary: unknown;
+    authorId: number;
+    note: string;
+  },
+) {
+  return db.transaction(
+    (tx) => {
+      const txDb = tx as unknown as Db;
+      const latest = latestRevisionNumber(txDb, r.designId);
+      if (latest !== r.baseNumber) throw new RevisionConflictError(r.baseNumber, latest);
+      const row = txDb
+        .insert(revisions)
+        .values({
+          designId: r.designId,
+          number: (latest ?? 0) + 1,
+          baseNumber: r.baseNumber,
+          input: r.input,
+          summary: r.summary,
+          authorId: r.authorId,
+          note: r.note,
+        })
+        .returning()
+        .get();
+      touchDesign(txDb, r.designId);
+      writeAudit(txDb, {
+        teamId: r.teamId,
+        userId: r.authorId,
+        action: 'revision.saved',
+        entityType: 'revision',
+        entityId: row.id,
+        detail: { designId: r.designId, number: row.number, baseNumber: r.baseNumber },
+      });
+      return row;
+    },
+    { behavior: 'immediate' },
+  );
+}
+
+const revisionColumns = {
+  id: revisions.id,
+  designId: revisions.designId,
+  number: revisions.number,
+  baseNumber: revisions.baseNumber,
+  input: revisions.input,
+  summary: revisions.summary,
+  authorId: revisions.authorId,
+  authorName: users.name,
+  note: revisions.note,
+  createdAt: revisions.createdAt,
+};
+
+export function listRevisions(db: Db, designId: number) {
+  return db
+    .select(revisionColumns)
+    .from(revisions)
+    .innerJoin(users, eq(users.id, revisions.authorId))
+    .where(eq(revisions.designId, designId))
+    .orderBy(asc(revisions.number))
+    .all();
+}
+
+export function getRevision(db: Db, designId: number, number: number) {
+  return db
+    .select(revisionColumns)
+    .from(revisions)
+    .innerJoin(users, eq(users.id, revisions.authorId))
+    .where(and(eq(revisions.designId, designId), eq(revisions.number, number)))
+    .get();
+}
+
+export function getLatestRevision(db: Db, designId: number) {
+  return db
+    .select(revisionColumns)
+    .from(revisions)
+    .innerJoin(users, eq(users.id, revisions.authorId))
+    .where(eq(revisions.designId, designId))
+    .orderBy(desc(revisions.number))
+    .limit(1)
+    .get();
+}

@@ -1,0 +1,137 @@
+import bcrypt from 'bcryptjs';
+import { and, asc, eq } from 'drizzle-orm';
+import type { Db } from '../connection';
+import { memberships, teams, users, type Role } from '../schema';
+import { writeAudit } from './audit';
+
+export function normalizeEmail(email: string) {
+  return email.trim().toLowerCase();
+}
+
+export function hashPassword(password: string) {
+  return bcrypt.hashSync(password, 10);
+}
+
+export function getUserByEmail(db: Db, email: string) {
+  return db.select().from(users).where(eq(users.email, normalizeEmail(email))).get();
+}
+
+export function getUserById(db: Db, id: number) {
+  return db.select().from(users).where(eq(users.id, id)).get();
+}
+
+/** The user when email and password match, else null (same answer for either mistake). */
+export function verifyCredentials(db: Db, email: string, password: string) {
+  const user = getUserByEmail(db, email);
+  if (!user || !bcrypt.compareSync(password, user.passwordHash)) return null;
+  return { id: user.id, email: user.email, name: user.name };
+}
+
+export function createUser(db: Db, u: { email: string; name: string; password: string }) {
+  return db
+    .insert(users)
+    .values({ email: normalizeEmail(u.email), name: u.name.trim(), passwordHash: hashPassword(u.password) })
+    .returning()
+    .get();
+}
+
+export function createTeam(db: Db, t: { name: string; slug: string }) {
+  return db.insert(teams).values(t).returning().get();
+}
+
+/** Teams the user belongs to, with the role in each, oldest membership first. */
+export function listTeamsForUser(db: Db, userId: number) {
+  return db
+    .select({ teamId: teams.id, teamName: teams.name, slug: teams.slug, role: memberships.role })
+    .from(memberships)
+    .innerJoin(teams, eq(teams.id, memberships.teamId))
+    .where(eq(memberships.userId, userId))
+    .orderBy(asc(memberships.id))
+    .all();
+}
+
+export function getMembership(db: Db, userId: number, teamId: number) {
+  return db
+    .select()
+    .from(memberships)
+    .where(and(eq(memberships.userId, userId), eq(memberships.teamId, teamId)))
+    .get();
+}
+
+export function listTeamMembers(db: Db, teamId: number) {
+  return db
+    .select({ userId: users.id, email: users.email, name: users.name, role: memberships.role })
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(eq(memberships.teamId, teamId))
+    .orderBy(asc(users.name))
+    .all();
+}
+
+export class MembershipError extends Error {
+  constructor(
+    readonly field: string,
+    message: string,
+  ) {
+    super(message);
+    this.name = 'MembershipError';
+  }
+}
+
+/**
+ * Add a user to a team with a role. An unknown email creates the account
+ * (then a password of at least 8 characters is required).
+ */
+export function addTeamMember(
+  db: Db,
+  actorId: number,
+  teamId: number,
+  m: { email: string; name?: string; role: Role; password?: string },
+) {
+  return db.transaction((tx) => {
+    const txDb = tx as unknown as Db;
+    let user = getUserByEmail(txDb, m.email);
+    let created = false;
+    if (!user) {
+      if (!m.password || m.password.length < 8)
+        throw new MembershipError('password', 'A new account needs a password of at least 8 characters');
+      if (!m.name?.trim()) throw new MembershipError('name', 'A new account needs a name');
+      user = createUser(txDb, { email: m.email, name: m.name, password: m.password });
+      created = true;
+    }
+    if (getMembership(txDb, user.id, teamId))
+      throw new MembershipError('email', `${user.email} is already a member of this team`);
+    txDb.insert(memberships).values({ userId: user.id, teamId, role: m.role }).run();
+    writeAudit(txDb, {
+      teamId,
+      userId: actorId,
+      action: 'member.added',
+      entityType: 'user',
+      entityId: user.id,
+      detail: { email: user.email, role: m.role, accountCreated: created },
+    });
+    return { user: { id: user.id, email: user.email, name: user.name }, created };
+  });
+}
+
+/** Change a member's role; the last admin of a team cannot be demoted. */
+export function setMemberRole(db: Db, actorId: number, teamId: number, userId: number, role: Role) {
+  return db.transaction((tx) => {
+    const txDb = tx as unknown as Db;
+    const current = getMembership(txDb, userId, teamId);
+    if (!current) throw new MembershipError('userId', 'That user is not a member of this team');
+    if (current.role === 'admin' && role !== 'admin') {
+      const admins = listTeamMembers(txDb, teamId).filter((m) => m.role === 'admin');
+      if (admins.length <= 1) throw new MembershipError('role', 'A team needs at least one admin');
+    }
+    txDb.update(memberships).set({ role }).where(eq(memberships.id, current.id)).run();
+    writeAudit(txDb, {
+      teamId,
+      userId: actorId,
+      action: 'member.role-changed',
+      entityType: 'user',
+      entityId: userId,
+      detail: { from: current.role, to: role },
+    });
+  });
+}

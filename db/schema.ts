@@ -1,0 +1,212 @@
+/**
+ * Phasewright's SQLite schema (Drizzle). camelCase keys map to snake_case
+ * columns; ids are integers; timestamps are ms since epoch.
+ * Revisions are immutable: a migration adds a trigger refusing UPDATE/DELETE.
+ */
+import { relations, sql } from 'drizzle-orm';
+import { index, integer, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+
+const createdAt = () =>
+  integer('created_at', { mode: 'timestamp_ms' })
+    .notNull()
+    .default(sql`(unixepoch('subsec') * 1000)`);
+
+export const ROLES = ['admin', 'designer', 'reviewer', 'viewer'] as const;
+export type Role = (typeof ROLES)[number];
+
+export const SIGNOFF_STATES = ['draft', 'in-review', 'approved', 'changes-requested'] as const;
+export type SignoffState = (typeof SIGNOFF_STATES)[number];
+
+export const users = sqliteTable('users', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  email: text('email').notNull().unique(),
+  name: text('name').notNull(),
+  passwordHash: text('password_hash').notNull(),
+  createdAt: createdAt(),
+});
+
+export const teams = sqliteTable('teams', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  name: text('name').notNull(),
+  slug: text('slug').notNull().unique(),
+  createdAt: createdAt(),
+});
+
+export const memberships = sqliteTable(
+  'memberships',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    userId: integer('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    teamId: integer('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    role: text('role', { enum: ROLES }).notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('memberships_user_team').on(t.userId, t.teamId)],
+);
+
+export const designs = sqliteTable(
+  'designs',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    teamId: integer('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    name: text('name').notNull(),
+    description: text('description').notNull().default(''),
+    topology: text('topology', { enum: ['buck', 'boost', 'buck-boost'] }).notNull(),
+    ownerId: integer('owner_id')
+      .notNull()
+      .references(() => users.id),
+    /** Compensator part → schematic reference designator, e.g. { "r2": "R17" }. */
+    designatorMap: text('designator_map', { mode: 'json' }).$type<Record<string, string>>().notNull().default({}),
+    createdAt: createdAt(),
+    updatedAt: integer('updated_at', { mode: 'timestamp_ms' })
+      .notNull()
+      .default(sql`(unixepoch('subsec') * 1000)`),
+  },
+  (t) => [index('designs_team').on(t.teamId)],
+);
+
+export const revisions = sqliteTable(
+  'revisions',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    designId: integer('design_id')
+      .notNull()
+      .references(() => designs.id, { onDelete: 'cascade' }),
+    number: integer('number').notNull(),
+    /** The revision it was edited from (null for the first). */
+    baseNumber: integer('base_number'),
+    /** The full, validated analysis request (AnalyzeRequest). */
+    input: text('input', { mode: 'json' }).notNull(),
+    /** Computed summary: operating point, margins, parts, checks (no Bode arrays). */
+    summary: text('summary', { mode: 'json' }).notNull(),
+    authorId: integer('author_id')
+      .notNull()
+      .references(() => users.id),
+    note: text('note').notNull().default(''),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('revisions_design_number').on(t.designId, t.number)],
+);
+
+/** Sign-off history of a revision; the latest event gives its state. */
+export const signoffEvents = sqliteTable(
+  'signoff_events',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    revisionId: integer('revision_id')
+      .notNull()
+      .references(() => revisions.id, { onDelete: 'cascade' }),
+    state: text('state', { enum: SIGNOFF_STATES }).notNull(),
+    actorId: integer('actor_id')
+      .notNull()
+      .references(() => users.id),
+    /** For 'in-review': the reviewer asked. */
+    reviewerId: integer('reviewer_id').references(() => users.id),
+    message: text('message').notNull().default(''),
+    createdAt: createdAt(),
+  },
+  (t) => [index('signoff_events_revision').on(t.revisionId)],
+);
+
+export const remarks = sqliteTable(
+  'remarks',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    revisionId: integer('revision_id')
+      .notNull()
+      .references(() => revisions.id, { onDelete: 'cascade' }),
+    authorId: integer('author_id')
+      .notNull()
+      .references(() => users.id),
+    body: text('body').notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index('remarks_revision').on(t.revisionId)],
+);
+
+/** Measured loop response uploaded from a network/frequency-response analyzer. */
+export const benchData = sqliteTable(
+  'bench_data',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    designId: integer('design_id')
+      .notNull()
+      .references(() => designs.id, { onDelete: 'cascade' }),
+    name: text('name').notNull(),
+    /** { f: number[], gainDb: number[], phaseDeg: number[] } */
+    points: text('points', { mode: 'json' }).notNull(),
+    phaseShifted: integer('phase_shifted', { mode: 'boolean' }).notNull().default(false),
+    uploadedBy: integer('uploaded_by')
+      .notNull()
+      .references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (t) => [index('bench_data_design').on(t.designId)],
+);
+
+export const auditLog = sqliteTable(
+  'audit_log',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    teamId: integer('team_id').references(() => teams.id, { onDelete: 'cascade' }),
+    userId: integer('user_id').references(() => users.id),
+    action: text('action').notNull(),
+    entityType: text('entity_type').notNull(),
+    entityId: integer('entity_id'),
+    detail: text('detail', { mode: 'json' }).notNull().default({}),
+    createdAt: createdAt(),
+  },
+  (t) => [index('audit_log_team').on(t.teamId)],
+);
+
+/** Messages captured by the local fake SMTP server (demo and tests). */
+export const mailbox = sqliteTable('mailbox', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  fromAddress: text('from_address').notNull(),
+  toAddress: text('to_address').notNull(),
+  subject: text('subject').notNull(),
+  text: text('text').notNull().default(''),
+  html: text('html').notNull().default(''),
+  raw: text('raw').notNull(),
+  createdAt: createdAt(),
+});
+
+export const usersRelations = relations(users, ({ many }) => ({ memberships: many(memberships) }));
+export const teamsRelations = relations(teams, ({ many }) => ({
+  memberships: many(memberships),
+  designs: many(designs),
+}));
+export const membershipsRelations = relations(memberships, ({ one }) => ({
+  user: one(users, { fields: [memberships.userId], references: [users.id] }),
+  team: one(teams, { fields: [memberships.teamId], references: [teams.id] }),
+}));
+export const designsRelations = relations(designs, ({ one, many }) => ({
+  team: one(teams, { fields: [designs.teamId], references: [teams.id] }),
+  owner: one(users, { fields: [designs.ownerId], references: [users.id] }),
+  revisions: many(revisions),
+  benchData: many(benchData),
+}));
+export const revisionsRelations = relations(revisions, ({ one, many }) => ({
+  design: one(designs, { fields: [revisions.designId], references: [designs.id] }),
+  author: one(users, { fields: [revisions.authorId], references: [users.id] }),
+  signoffEvents: many(signoffEvents),
+  remarks: many(remarks),
+}));
+
+export type User = typeof users.$inferSelect;
+export type Team = typeof teams.$inferSelect;
+export type Membership = typeof memberships.$inferSelect;
+export type Design = typeof designs.$inferSelect;
+export type NewDesign = typeof designs.$inferInsert;
+export type Revision = typeof revisions.$inferSelect;
+export type SignoffEvent = typeof signoffEvents.$inferSelect;
+export type Remark = typeof remarks.$inferSelect;
+export type BenchData = typeof benchData.$inferSelect;
+export type AuditEntry = typeof auditLog.$inferSelect;
+export type MailMessage = typeof mailbox.$inferSelect;

@@ -1,0 +1,30 @@
+import { z } from 'zod';
+
+export const topologySchema = z.enum(['buck', 'boost', 'buck-boost'], {
+  error: 'topology must be "buck", "boost" or "buck-boost"',
+});
+
+export const designCreateSchema = z.object({
+  name: z
+    .string({ error: 'name is required' })
+    .trim()
+    .min(1, 'name must not be empty')
+    .max(120, 'name must be at most 120 characters'),
+  description: z.string().trim().max(2000, 'description must be at most 2000 characters').optional(),
+  topology: topologySchema.default('buck'),
+});
+
+export const designUpdateSchema = designCreateSchema
+  .omit({ topology: true })
+  .partial()
+  .extend({
+    designatorMap: z
+      .record(
+        z.enum(['r1', 'r2', 'r3', 'c1', 'c2', 'c3', 'rb']),
+        z.string().trim().regex(/^[A-Za-z]{1,4}\d{1,5}[A-Za-z]?$/, 'use a reference designator such as R17 or C42'),
+      )
+      .optional(),
+  });
+
+export type DesignCreate = z.infer<typeof designCreateSchema>;
+export type DesignUpdate = z.infer<typeof designUpdateSchema>;

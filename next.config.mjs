@@ -1,0 +1,10 @@
+/** @type {import('next').NextConfig} */
+const nextConfig = {
+  // Lets several builds of one checkout coexist (tests, a second dev server).
+  distDir: process.env.NEXT_DIST_DIR || '.next',
+  serverExternalPackages: ['better-sqlite3'],
+  allowedDevOrigins: ['127.0.0.1'],
+  poweredByHeader: false,
+};
+
+export default nextConfig;

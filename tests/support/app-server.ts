@@ -1,0 +1,108 @@
+/**
+ * Builds (when stale) and serves the real app for API and browser tests:
+ * `next start` on a free port with a throw-away database seeded with the
+ * demo data. Build output goes to .next-test so a developer's .next is untouched.
+ */
+import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import fs from 'node:fs';
+import net from 'node:net';
+import os from 'node:os';
+import path from 'node:path';
+
+const ROOT = path.resolve(__dirname, '../..');
+const DIST = '.next-test';
+const SOURCES = ['app', 'components', 'lib', 'db', 'instrumentation.ts', 'next.config.mjs', 'tailwind.config.ts', 'package.json'];
+
+function newestMtime(p: string): number {
+  const full = path.join(ROOT, p);
+  if (!fs.existsSync(full)) return 0;
+  const st = fs.statSync(full);
+  if (!st.isDirectory()) return st.mtimeMs;
+  let max = st.mtimeMs;
+  for (const e of fs.readdirSync(full)) max = Math.max(max, newestMtime(path.join(p, e)));
+  return max;
+}
+
+/** Build unless .next-test holds a build newer than every source file. */
+export function buildIfStale() {
+  const buildId = path.join(ROOT, DIST, 'BUILD_ID');
+  const built = fs.existsSync(buildId) ? fs.statSync(buildId).mtimeMs : 0;
+  const newest = Math.max(...SOURCES.map(newestMtime));
+  if (built > newest && process.env.CI !== 'true') return;
+  console.log('[app-server] building the app for tests (next build)…');
+  const r = spawnSync('npx', ['next', 'build'], {
+    cwd: ROOT,
+    env: { ...process.env, NEXT_DIST_DIR: DIST, NEXT_TELEMETRY_DISABLED: '1' },
+    stdio: ['ignore', 'pipe', 'pipe'],
+    encoding: 'utf8',
+  });
+  if (r.status !== 0) throw new Error(`next build failed:\n${r.stdout}\n${r.stderr}`);
+}
+
+export function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const srv = net.createServer();
+    srv.listen(0, '127.0.0.1', () => {
+      const { port } = srv.address() as net.AddressInfo;
+      srv.close(() => resolve(port));
+    });
+    srv.on('error', reject);
+  });
+}
+
+export interface RunningApp {
+  baseUrl: string;
+  dbPath: string;
+  smtpPort: number;
+  stop: () => Promise<void>;
+}
+
+/** Start `next start` on a fresh seeded database; resolves when it answers. */
+export async function startApp(extraEnv: Record<string, string> = {}): Promise<RunningApp> {
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'phasewright-test-'));
+  const dbPath = path.join(dir, 'test.db');
+  const port = await freePort();
+  const smtpPort = Number(extraEnv.SMTP_PORT ?? (await freePort()));
+  const env = {
+    ...process.env,
+    NEXT_DIST_DIR: DIST,
+    NEXT_TELEMETRY_DISABLED: '1',
+    DATABASE_URL: `file:${dbPath}`,
+    PHASEWRIGHT_DEMO: '1',
+    NEXTAUTH_SECRET: 'test-secret-not-for-production',
+    SMTP_PORT: String(smtpPort),
+    PORT: String(port),
+    ...extraEnv,
+  };
+  const child: ChildProcess = spawn(path.join(ROOT, 'node_modules/.bin/next'), ['start', '-p', String(port), '-H', '127.0.0.1'], {
+    cwd: ROOT,
+    env,
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  let log = '';
+  child.stdout?.on('data', (d) => (log += d));
+  child.stderr?.on('data', (d) => (log += d));
+  const baseUrl = `http://127.0.0.1:${port}`;
+  const deadline = Date.now() + 60_000;
+  for (;;) {
+    if (child.exitCode !== null) throw new Error(`next start exited early:\n${log}`);
+    try {
+      const res = await fetch(`${baseUrl}/api/auth/csrf`);
+      if (res.ok) break;
+    } catch {
+      /* not up yet */
+    }
+    if (Date.now() > deadline) throw new Error(`next start did not answer within 60 s:\n${log}`);
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  return {
+    baseUrl,
+    dbPath,
+    smtpPort,
+    stop: async () => {
+      child.kill('SIGTERM');
+      await new Promise((r) => setTimeout(r, 200));
+      fs.rmSync(dir, { recursive: true, force: true });
+    },
+  };
+}

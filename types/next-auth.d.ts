@@ -1,0 +1,14 @@
+import type { DefaultSession } from 'next-auth';
+import type { Role } from '@/db/schema';
+
+declare module 'next-auth' {
+  interface Session {
+    user: DefaultSession['user'] & { id: number; teamId?: number; role?: Role };
+  }
+}
+
+declare module 'next-auth/jwt' {
+  interface JWT {
+    userId?: number;
+  }
+}
