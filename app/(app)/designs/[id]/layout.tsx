@@ -1,0 +1,35 @@
+import Link from 'next/link';
+import { notFound } from 'next/navigation';
+import { getDb } from '@/db/client';
+import { getDesign, getLatestRevision } from '@/db/queries';
+import { getCurrentUser } from '@/lib/auth';
+import { DesignTabs } from '@/components/designs/design-tabs';
+
+export default async function DesignLayout({ children, params }: { children: React.ReactNode; params: Promise<{ id: string }> }) {
+  const { id } = await params;
+  const user = (await getCurrentUser())!;
+  const db = getDb();
+  const design = /^\d+$/.test(id) ? getDesign(db, user.teamId, Number(id)) : undefined;
+  if (!design) notFound();
+  const latest = getLatestRevision(db, design.id);
+  return (
+    <div className="space-y-4">
+      <div className="flex flex-wrap items-end gap-x-6 gap-y-2">
+        <div>
+          <Link href="/designs" className="text-xs text-slate-500 hover:underline">
+            ← Designs
+          </Link>
+          <h1 className="text-2xl font-semibold" data-testid="design-name">
+            {design.name}
+          </h1>
+          <p className="text-sm text-slate-500">
+            <span className="capitalize">{design.topology}</span> · {latest ? `latest r${latest.number}` : 'not saved yet'}
+            {design.description ? ` · ${design.description}` : ''}
+          </p>
+        </div>
+        <DesignTabs designId={design.id} />
+      </div>
+      {children}
+    </div>
+  );
+}

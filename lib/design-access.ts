@@ -1,0 +1,13 @@
+import 'server-only';
+import { getDb } from '@/db/client';
+import { getDesign } from '@/db/queries';
+import { HttpError, parseId } from './api';
+import type { CurrentUser } from './auth';
+
+/** The design named by a route param, only within the user's current team (else 404). */
+export function requireDesign(user: CurrentUser, idParam: string | undefined) {
+  const id = parseId(idParam, 'design');
+  const design = getDesign(getDb(), user.teamId, id);
+  if (!design) throw new HttpError(404, `No design ${id} in team ${user.teamName}`);
+  return design;
+}

@@ -1,0 +1,10 @@
+import { z } from 'zod';
+import { analyzeRequestSchema } from './analyze';
+
+export const revisionCreateSchema = z.object({
+  baseRevision: z.number({ error: 'baseRevision must be a revision number or null' }).int().positive().nullable(),
+  note: z.string({ error: 'note must be text' }).trim().max(2000, 'note must be at most 2000 characters').default(''),
+  input: analyzeRequestSchema,
+});
+
+export type RevisionCreate = z.infer<typeof revisionCreateSchema>;
