@@ -1,0 +1,98 @@
+/**
+ * Issue 2: sign-in through the real next-auth endpoints as each demo role,
+ * and the role rules of GET/POST /api/designs (401 / 403 / 2xx / 400).
+ */
+import { beforeAll, describe, expect, inject, it } from 'vitest';
+import { Client, DEMO_PASSWORD, signedInAs } from '../support/http';
+
+const baseUrl = inject('baseUrl');
+const ROLES = ['admin', 'designer', 'reviewer', 'viewer'] as const;
+const clients = {} as Record<(typeof ROLES)[number], Client>;
+
+beforeAll(async () => {
+  for (const role of ROLES) clients[role] = await signedInAs(baseUrl, role);
+});
+
+describe('sign-in', () => {
+  it.each(ROLES)('%s signs in and the session carries id and role', async (role) => {
+    const res = await clients[role].fetch('/api/auth/session');
+    const session = await res.json();
+    expect(session.user.email).toBe(`${role}@demo.test`);
+    expect(typeof session.user.id).toBe('number');
+    expect(session.user.role).toBe(role);
+  });
+
+  it('refuses a wrong password', async () => {
+    const c = new Client(baseUrl);
+    const { signedIn } = await c.signIn('designer@demo.test', 'not-the-password');
+    expect(signedIn).toBe(false);
+    expect((await c.fetch('/api/designs')).status).toBe(401);
+  });
+
+  it('redirects pages to sign-in without a session', async () => {
+    const res = await new Client(baseUrl).fetch('/designs');
+    expect([302, 303, 307, 308]).toContain(res.status);
+    expect(res.headers.get('location')).toMatch(/\/signin/);
+  });
+
+  it('serves the sign-in page', async () => {
+    const res = await new Client(baseUrl).fetch('/signin');
+    expect(res.status).toBe(200);
+    expect(DEMO_PASSWORD).toBe('phasewright-demo');
+  });
+});
+
+describe('GET /api/designs', () => {
+  it('401 without a session', async () => {
+    const res = await new Client(baseUrl).fetch('/api/designs');
+    expect(res.status).toBe(401);
+    expect(await res.json()).toMatchObject({ error: expect.any(String) });
+  });
+
+  it.each(ROLES)('%s sees the three demo designs of the team', async (role) => {
+    const res = await clients[role].fetch('/api/designs');
+    expect(res.status).toBe(200);
+    const { designs } = await res.json();
+    expect(designs.length).toBeGreaterThanOrEqual(3);
+    for (const d of designs) expect(d).toMatchObject({ id: expect.any(Number), name: expect.any(String), topology: expect.any(String) });
+    expect(new Set(designs.map((d: { topology: string }) => d.topology))).toEqual(new Set(['buck', 'boost', 'buck-boost']));
+  });
+});
+
+describe('POST /api/designs', () => {
+  const body = { name: 'Sensor rail', description: 'made by a test', topology: 'buck' };
+
+  it('401 without a session', async () => {
+    expect((await new Client(baseUrl).json('/api/designs', 'POST', body)).status).toBe(401);
+  });
+
+  it.each(['reviewer', 'viewer'] as const)('403 for %s', async (role) => {
+    const res = await clients[role].json('/api/designs', 'POST', body);
+    expect(res.status).toBe(403);
+  });
+
+  it.each(['designer', 'admin'] as const)('201 for %s', async (role) => {
+    const res = await clients[role].json('/api/designs', 'POST', { ...body, name: `${body.name} by ${role}` });
+    expect(res.status).toBe(201);
+    const created = await res.json();
+    expect(created).toMatchObject({ id: expect.any(Number), name: `Sensor rail by ${role}`, topology: 'buck' });
+    const list = await (await clients.viewer.fetch('/api/designs')).json();
+    expect(list.designs.map((d: { id: number }) => d.id)).toContain(created.id);
+  });
+
+  it('400 naming the field for a malformed body', async () => {
+    const res = await clients.designer.json('/api/designs', 'POST', { name: '', topology: 'flyback' });
+    expect(res.status).toBe(400);
+    const err = await res.json();
+    expect(err.error).toEqual(expect.any(String));
+    const paths = err.issues.map((i: { path: string }) => i.path);
+    expect(paths).toContain('name');
+    expect(paths).toContain('topology');
+  });
+
+  it('400 for a body that is not JSON', async () => {
+    const res = await clients.designer.json('/api/designs', 'POST', '{not json');
+    expect(res.status).toBe(400);
+    expect((await res.json()).issues[0].path).toBe('(body)');
+  });
+});
