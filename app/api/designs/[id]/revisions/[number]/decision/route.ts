@@ -1,0 +1,36 @@
+import { NextResponse } from 'next/server';
+import { getDb } from '@/db/client';
+import { decideSignoff, getUserById } from '@/db/queries';
+import { can } from '@/lib/auth';
+import { parseJson, withUser } from '@/lib/api';
+import { notifyDecision } from '@/lib/notify';
+import { requireRevision, runSignoff } from '@/lib/revision-access';
+import { decisionSchema } from '@/lib/validation/signoff';
+
+type P = { id: string; number: string };
+
+/** Approve or request changes on a revision in review; its author (and submitter) get a mail. */
+export const POST = withUser<P>(
+  async (req, { user, params }) => {
+    const { design, ref } = requireRevision(user, params);
+    const body = await parseJson(req, decisionSchema);
+    const db = getDb();
+    const { event, notifyUserIds } = runSignoff(() => decideSignoff(db, ref, { actorId: user.id, decision: body.decision, message: body.message }));
+    const results = await Promise.all(
+      notifyUserIds
+        .map((id) => getUserById(db, id))
+        .filter((u) => u !== undefined)
+        .map((u) =>
+          notifyDecision({
+            to: { email: u.email, name: u.name },
+            by: user.name,
+            revision: { designId: design.id, designName: design.name, number: ref.number },
+            decision: body.decision,
+            message: body.message,
+          }),
+        ),
+    );
+    return NextResponse.json({ state: event.state, event, mailed: results.filter((r) => r.sent).length }, { status: 201 });
+  },
+  { allow: can.review, action: 'approve or request changes' },
+);

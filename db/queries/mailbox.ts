@@ -1,0 +1,32 @@
+import { desc, eq } from 'drizzle-orm';
+import type { Db } from '../connection';
+import { mailbox } from '../schema';
+
+/** Messages the local fake SMTP server caught (demo and tests only). */
+
+export interface CaughtMail {
+  fromAddress: string;
+  toAddress: string;
+  subject: string;
+  text: string;
+  html: string;
+  raw: string;
+}
+
+export function storeMail(db: Db, m: CaughtMail) {
+  return db.insert(mailbox).values(m).returning().get();
+}
+
+/** Newest first. */
+export function listMail(db: Db, limit = 100) {
+  return db.select().from(mailbox).orderBy(desc(mailbox.id)).limit(limit).all();
+}
+
+export function getMail(db: Db, id: number) {
+  return db.select().from(mailbox).where(eq(mailbox.id, id)).get();
+}
+
+/** Messages to one address, newest first (addresses compared lower-case). */
+export function listMailTo(db: Db, address: string, limit = 50) {
+  return db.select().from(mailbox).where(eq(mailbox.toAddress, address.trim().toLowerCase())).orderBy(desc(mailbox.id)).limit(limit).all();
+}

@@ -1,0 +1,100 @@
+import 'server-only';
+import nodemailer, { type Transporter } from 'nodemailer';
+
+/**
+ * Outgoing mail over SMTP with nodemailer. The server is SMTP_HOST
+ * (default 127.0.0.1) on SMTP_PORT; in the demo and the tests that is the
+ * local fake mail server. Without SMTP_PORT, mail is skipped with a log line.
+ * Sending never throws: a failed notification must not undo a sign-off.
+ */
+
+export interface OutgoingMail {
+  to: string;
+  subject: string;
+  /** Paragraphs of the message, plain text. */
+  paragraphs: string[];
+  /** A quoted message from a person (shown set apart). */
+  quote?: string;
+  link?: { label: string; url: string };
+}
+
+export const MAIL_FROM = process.env.MAIL_FROM ?? 'Phasewright <no-reply@phasewright.local>';
+
+let cached: { key: string; transport: Transporter } | undefined;
+
+function transport(): Transporter | null {
+  const port = Number(process.env.SMTP_PORT);
+  if (!port) return null;
+  const host = process.env.SMTP_HOST ?? '127.0.0.1';
+  const key = `${host}:${port}`;
+  if (cached?.key !== key) {
+    cached = {
+      key,
+      transport: nodemailer.createTransport({
+        host,
+        port,
+        secure: false,
+        ignoreTLS: host === '127.0.0.1' || host === 'localhost',
+        connectionTimeout: 5_000,
+        greetingTimeout: 5_000,
+        socketTimeout: 10_000,
+      }),
+    };
+  }
+  return cached.transport;
+}
+
+function escapeHtml(s: string) {
+  return s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+}
+
+/** The plain-text and HTML bodies of a message. */
+export function renderMail(m: OutgoingMail): { text: string; html: string } {
+  const text = [
+    ...m.paragraphs,
+    ...(m.quote ? [m.quote.split('\n').map((l) => `> ${l}`).join('\n')] : []),
+    ...(m.link ? [`${m.link.label}: ${m.link.url}`] : []),
+    '— Phasewright',
+  ].join('\n\n');
+  const p = (s: string) => `<p style="margin:0 0 12px">${escapeHtml(s)}</p>`;
+  const html = `<!doctype html><html><body style="font-family:system-ui,sans-serif;color:#0f172a;max-width:560px">
+${m.paragraphs.map(p).join('\n')}
+${m.quote ? `<blockquote style="margin:0 0 12px;padding:8px 12px;border-left:3px solid #6366f1;background:#f1f5f9;white-space:pre-wrap">${escapeHtml(m.quote)}</blockquote>` : ''}
+${m.link ? `<p style="margin:16px 0"><a href="${escapeHtml(m.link.url)}" style="background:#4f46e5;color:#fff;padding:8px 14px;border-radius:6px;text-decoration:none">${escapeHtml(m.link.label)}</a></p><p style="font-size:12px;color:#64748b">${escapeHtml(m.link.url)}</p>` : ''}
+<p style="font-size:12px;color:#64748b">— Phasewright</p>
+</body></html>`;
+  return { text, html };
+}
+
+export async function sendMail(m: OutgoingMail): Promise<{ sent: boolean; error?: string }> {
+  const t = transport();
+  if (!t) {
+    console.warn(`[mail] SMTP_PORT is not set; not sending "${m.subject}" to ${m.to}`);
+    return { sent: false, error: 'SMTP_PORT is not set' };
+  }
+  try {
+    await t.sendMail({ from: MAIL_FROM, to: m.to, subject: m.subject, ...renderMail(m) });
+    return { sent: true };
+  } catch (err) {
+    const error = err instanceof Error ? err.message : String(err);
+    console.error(`[mail] could not send "${m.subject}" to ${m.to}: ${error}`);
+    return { sent: false, error };
+  }
+}
+
+/**
+ * The app's public origin for links in mail: NEXTAUTH_URL when set, else the
+ * origin of the request being served (forwarded headers first), else localhost.
+ */
+export async function appBaseUrl(): Promise<string> {
+  if (process.env.NEXTAUTH_URL) return process.env.NEXTAUTH_URL.replace(/\/+$/, '');
+  try {
+    const { headers } = await import('next/headers');
+    const h = await headers();
+    const host = h.get('x-forwarded-host') ?? h.get('host');
+    if (host) return `${h.get('x-forwarded-proto') ?? 'http'}://${host}`;
+  } catch {
+    /* outside a request */
+  }
+  return `http://localhost:${process.env.PORT ?? 3000}`;
+}

@@ -1,0 +1,27 @@
+import { z } from 'zod';
+
+const message = z.string({ error: 'message must be text' }).trim().max(4000, 'message must be at most 4000 characters');
+
+export const submitForReviewSchema = z.object({
+  reviewerId: z.number({ error: 'reviewerId must be the id of a reviewer' }).int().positive('reviewerId must be the id of a reviewer'),
+  message: message.default(''),
+});
+
+export const DECISIONS = ['approve', 'request-changes'] as const;
+
+export const decisionSchema = z.object({
+  decision: z.enum(DECISIONS, { error: 'decision must be "approve" or "request-changes"' }),
+  message: message.default(''),
+});
+
+export const remarkSchema = z.object({
+  body: z
+    .string({ error: 'body must be text' })
+    .trim()
+    .min(1, 'body must not be empty')
+    .max(4000, 'body must be at most 4000 characters'),
+});
+
+export type SubmitForReview = z.infer<typeof submitForReviewSchema>;
+export type DecisionInput = z.infer<typeof decisionSchema>;
+export type RemarkInput = z.infer<typeof remarkSchema>;
