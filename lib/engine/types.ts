@@ -102,7 +102,8 @@ export interface OperatingPoint {
 
 /** Landmarks of a rational transfer function, frequencies in Hz. */
 export interface TransferSummary {
-  dcGainDb: number;
+  /** 20·log10|H(0)|; null when H has a zero or pole at the origin (e.g. Zout with rl = 0). */
+  dcGainDb: number | null;
   resonanceHz: number | null;
   q: number | null;
   esrZeroHz: number | null;

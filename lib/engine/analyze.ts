@@ -1,0 +1,232 @@
+/**
+ * The analysis: power stage → plant Gvd/Vramp → compensator Gc → loop T = Gc·Gvd/Vramp →
+ * margins, standard parts (ideal and snapped) and checks.
+ *
+ * Two entry points share one code path:
+ * - analyze(request): the full result of POST /api/analyze;
+ * - preparePlant(request) once, then analyzeLoop(prepared, compensator) per change: the Tune
+ *   screen's drag loop. The plant's sweep is reused, only the compensator is swept again.
+ */
+import { compensatorTransfer, dividerRb, summarizeCompensator } from './compensator';
+import { loopChecks, partChecks, stageChecks } from './checks';
+import { snapToSeries } from './eseries';
+import { computeMargins, type LoopPointEvaluator, type SampledResponse } from './margins';
+import { buildPlantModel, modulatedPlant, summarizePlant, type PlantModel } from './plant';
+import { defaultSweep, logSweep, makeGrid, sweepTransfer, toTrace, type Grid, type RawResponse } from './sweep';
+import { dbFromMagSq, phaseOffsetDeg, transferPointRaw, type SectionedTransfer } from './transfer';
+import { compensatorIssues, stageIssues } from './validate';
+import {
+  EngineInputError,
+  type AnalyzeRequest,
+  type AnalyzeResult,
+  type BodeData,
+  type BodeTrace,
+  type Check,
+  type CompensatorInput,
+  type CompensatorSummary,
+  type ConverterInput,
+  type Margins,
+  type OperatingPoint,
+  type PartsOptions,
+  type PartValues,
+  type SweepOptions,
+  type TransferSummary,
+} from './types';
+
+/** Everything of a request except the compensator. */
+export type StageRequest = Pick<AnalyzeRequest, 'converter' | 'modulator' | 'feedback' | 'sweep'>;
+
+/** The power stage analysed once, reused for every compensator change. */
+export interface PreparedPlant {
+  converter: ConverterInput;
+  vramp: number;
+  vref: number;
+  sweep: SweepOptions;
+  model: PlantModel;
+  operatingPoint: OperatingPoint;
+  /** Gvd/Vramp, sign-corrected. */
+  plantTransfer: SectionedTransfer;
+  plant: TransferSummary;
+  lineToOutput: TransferSummary;
+  outputImpedance: TransferSummary;
+  grid: Grid;
+  plantRaw: RawResponse;
+  plantTrace: BodeTrace;
+  stageChecks: Check[];
+}
+
+/** What the drag loop needs back after each compensator change. */
+export interface LoopResult {
+  compensator: CompensatorSummary;
+  margins: Margins;
+  phaseAtHalfFswDeg: number | null;
+  bode: BodeData;
+  /** Loop, stage and part-range checks (the full set analyze() reports). */
+  checks: Check[];
+}
+
+const DEFAULT_PARTS: PartsOptions = { resistorSeries: 'E96', capacitorSeries: 'E12' };
+
+/** Defaults rl, rc, vd = 0 (the schema applies them too; the engine may be called directly). */
+const withDefaults = (c: ConverterInput): ConverterInput => ({ ...c, rl: c.rl ?? 0, rc: c.rc ?? 0, vd: c.vd ?? 0 });
+
+/**
+ * Validate and analyse the power stage: operating point, averaged model, Gvd/Vramp on the
+ * sweep grid. @throws EngineInputError for physically impossible input.
+ */
+export const preparePlant = (req: StageRequest): PreparedPlant => {
+  const issues = stageIssues(req);
+  if (issues.length > 0) throw new EngineInputError(issues);
+  const converter = withDefaults(req.converter);
+  const model = buildPlantModel(converter);
+  const vramp = req.modulator.vramp;
+  const plantTransfer = modulatedPlant(model, vramp);
+  const sweep = req.sweep ?? defaultSweep(converter.fsw);
+  const grid = makeGrid(logSweep(sweep.fStart, sweep.fStop, sweep.points));
+  const plantRaw = sweepTransfer(plantTransfer, grid);
+  const summaries = summarizePlant(model, converter, vramp);
+  return {
+    converter,
+    vramp,
+    vref: req.feedback.vref,
+    sweep,
+    model,
+    operatingPoint: model.operatingPoint,
+    plantTransfer,
+    ...summaries,
+    grid,
+    plantRaw,
+    plantTrace: toTrace(plantRaw.magDb, plantRaw.phaseRawDeg, phaseOffsetDeg(plantRaw.phaseRawDeg[0])),
+    stageChecks: stageChecks(model.operatingPoint),
+  };
+};
+
+/**
+ * The loop T(j2πf) = Gc·Gvd/Vramp as an analytic function, magnitude in dB and phase in
+ * degrees on the branch of the Bode plot (offset = the multiple of 360° that puts the phase
+ * at its principal value at the sweep start). For hover read-outs and crossing refinement.
+ */
+export const evaluateLoopGain = (
+  prepared: PreparedPlant,
+  comp: SectionedTransfer | CompensatorInput,
+  offsetDeg?: number,
+): LoopPointEvaluator => {
+  const gc = 'type' in comp ? compensatorTransfer(comp) : comp;
+  const plantTf = prepared.plantTransfer;
+  const raw = (hz: number) => {
+    const p = transferPointRaw(plantTf, hz);
+    const c = transferPointRaw(gc, hz);
+    return { magDb: dbFromMagSq(p.magSq * c.magSq), phaseDeg: p.phaseRawDeg + c.phaseRawDeg };
+  };
+  const offset = offsetDeg ?? phaseOffsetDeg(raw(prepared.grid.f[0]).phaseDeg);
+  return (hz) => {
+    const r = raw(hz);
+    r.phaseDeg += offset;
+    return r;
+  };
+};
+
+/** Loop gain on the grid (plant sweep reused) and its analytic evaluator on the same branch. */
+const sweepLoop = (prepared: PreparedPlant, comp: SectionedTransfer) => {
+  const compRaw = sweepTransfer(comp, prepared.grid);
+  const n = prepared.grid.f.length;
+  const magDb = new Float64Array(n);
+  const phaseDeg = new Float64Array(n);
+  const pm = prepared.plantRaw.magDb;
+  const pp = prepared.plantRaw.phaseRawDeg;
+  for (let i = 0; i < n; i++) {
+    magDb[i] = pm[i] + compRaw.magDb[i];
+    phaseDeg[i] = pp[i] + compRaw.phaseRawDeg[i];
+  }
+  const offset = phaseOffsetDeg(phaseDeg[0]);
+  if (offset !== 0) for (let i = 0; i < n; i++) phaseDeg[i] += offset;
+  const loop: SampledResponse = { f: prepared.grid.f, magDb, phaseDeg };
+  return { compRaw, loop, evaluate: evaluateLoopGain(prepared, comp, offset) };
+};
+
+const loopMargins = (prepared: PreparedPlant, comp: CompensatorInput) => {
+  const issues = compensatorIssues(comp);
+  if (issues.length > 0) throw new EngineInputError(issues);
+  const swept = sweepLoop(prepared, compensatorTransfer(comp));
+  return { ...swept, margins: computeMargins(swept.loop, swept.evaluate) };
+};
+
+/** Loop margins only (no traces): used for the snapped parts and corner sweeps. */
+export const marginsForCompensator = (prepared: PreparedPlant, comp: CompensatorInput): Margins =>
+  loopMargins(prepared, comp).margins;
+
+/**
+ * Fast path for the Tune screen: loop, margins, Bode traces and checks for a compensator on
+ * an already prepared plant. @throws EngineInputError for impossible compensator parts.
+ */
+export const analyzeLoop = (prepared: PreparedPlant, comp: CompensatorInput): LoopResult => {
+  const { compRaw, loop, evaluate, margins } = loopMargins(prepared, comp);
+  const rb = dividerRb(comp.r1, prepared.vref, prepared.converter.vout);
+  return {
+    compensator: summarizeCompensator(comp),
+    margins,
+    phaseAtHalfFswDeg: evaluate(prepared.converter.fsw / 2).phaseDeg,
+    bode: {
+      f: prepared.grid.f as number[],
+      loop: toTrace(loop.magDb, loop.phaseDeg, 0),
+      plant: prepared.plantTrace,
+      compensator: toTrace(compRaw.magDb, compRaw.phaseRawDeg, phaseOffsetDeg(compRaw.phaseRawDeg[0])),
+    },
+    checks: [
+      ...prepared.stageChecks,
+      ...loopChecks({ margins, loop, fsw: prepared.converter.fsw, rhpZeroHz: prepared.plant.rhpZeroHz }),
+      ...partChecks(comp, rb),
+    ],
+  };
+};
+
+/** Parts as the contract lists them: unused parts null, C2 0 when absent. */
+export const partValues = (comp: CompensatorInput, rb: number | null): PartValues => ({
+  r1: comp.r1,
+  r2: comp.type === 'type1' ? null : (comp.r2 ?? null),
+  r3: comp.type === 'type3' ? (comp.r3 ?? null) : null,
+  c1: comp.c1,
+  c2: comp.type === 'type1' ? null : (comp.c2 ?? 0),
+  c3: comp.type === 'type3' ? (comp.c3 ?? null) : null,
+  rb,
+});
+
+/** Compensator with every part snapped to its series (C2 = 0 stays absent). */
+export const snapCompensator = (comp: CompensatorInput, parts: PartsOptions): CompensatorInput => {
+  const r = (v: number | undefined) => (v === undefined ? undefined : snapToSeries(v, parts.resistorSeries));
+  const c = (v: number | undefined) => (v === undefined || v === 0 ? v : snapToSeries(v, parts.capacitorSeries));
+  return { type: comp.type, r1: r(comp.r1)!, r2: r(comp.r2), r3: r(comp.r3), c1: c(comp.c1)!, c2: c(comp.c2), c3: c(comp.c3) };
+};
+
+/**
+ * Full analysis of a design (POST /api/analyze).
+ * @throws EngineInputError (→ 422) for physically impossible input, naming each field.
+ */
+export const analyze = (request: AnalyzeRequest): AnalyzeResult => {
+  const stage = stageIssues(request);
+  const comp = compensatorIssues(request.compensator);
+  if (stage.length + comp.length > 0) throw new EngineInputError([...stage, ...comp]);
+  const prepared = preparePlant(request);
+  const loop = analyzeLoop(prepared, request.compensator);
+  const partsOptions = { ...DEFAULT_PARTS, ...request.parts };
+  const snappedComp = snapCompensator(request.compensator, partsOptions);
+  const rb = dividerRb(request.compensator.r1, prepared.vref, prepared.converter.vout);
+  return {
+    operatingPoint: prepared.operatingPoint,
+    plant: prepared.plant,
+    lineToOutput: prepared.lineToOutput,
+    outputImpedance: prepared.outputImpedance,
+    compensator: loop.compensator,
+    margins: loop.margins,
+    phaseAtHalfFswDeg: loop.phaseAtHalfFswDeg,
+    parts: {
+      resistorSeries: partsOptions.resistorSeries,
+      capacitorSeries: partsOptions.capacitorSeries,
+      ideal: partValues(request.compensator, rb),
+      snapped: partValues(snappedComp, snapToSeries(rb, partsOptions.resistorSeries)),
+      snappedMargins: marginsForCompensator(prepared, snappedComp),
+    },
+    bode: loop.bode,
+    checks: loop.checks,
+  };
+};

@@ -1,0 +1,182 @@
+/**
+ * Checks: warnings on a design, each { id, level, message } with a stable kebab-case id
+ * (one id per concern; the level says how bad) and a message that says what is wrong and
+ * what to do. Thresholds are common practice (see CHECK-VALUES §4) unless stated.
+ *
+ *   id                     level            when
+ *   crossover-vs-switching caution / risk   fc > fsw/5 / fc > fsw/2
+ *   crossover-vs-rhp-zero  caution / risk   fc > fRHP/3 / fc > fRHP
+ *   phase-margin-low       caution / risk   PM < 45° / PM < 30°
+ *   gain-margin-low        caution / risk   GM < 10 dB / GM < 6 dB
+ *   multiple-crossovers    caution          more than one 0 dB crossing
+ *   conditional-stability  risk             phase below −180° below fc while |T| > 0 dB
+ *   no-crossover           risk             |T| never falls through 0 dB in the sweep
+ *   duty-extreme           caution          D outside 5–95 %
+ *   dcm-at-load            risk             the load is below the CCM/DCM boundary
+ *   part-range             note             R below 1 kΩ or above 1 MΩ, C below 10 pF
+ */
+import { formatSi } from '@/lib/units/si';
+import type { Check, CompensatorInput, Margins, OperatingPoint } from './types';
+import type { SampledResponse } from './margins';
+
+const hz = (v: number) => formatSi(v, 'Hz');
+const deg = (v: number) => `${v.toFixed(1)}°`;
+const db = (v: number) => `${v.toFixed(1)} dB`;
+
+/** Checks that depend on the loop only (run on every drag). */
+export const loopChecks = (args: {
+  margins: Margins;
+  loop: SampledResponse;
+  fsw: number;
+  rhpZeroHz: number | null;
+}): Check[] => {
+  const { margins, loop, fsw, rhpZeroHz } = args;
+  const out: Check[] = [];
+  const fc = margins.crossoverHz;
+  const gainCrossings = margins.crossings.filter((c) => c.kind === 'gain');
+
+  if (fc === null) {
+    const above = loop.magDb.length > 0 && loop.magDb[loop.magDb.length - 1] > 0;
+    out.push({
+      id: 'no-crossover',
+      level: 'risk',
+      message: above
+        ? `The loop gain stays above 0 dB up to the end of the sweep (${hz(loop.f[loop.f.length - 1])}): there is no crossover to judge. Lower the compensator gain (raise R1 relative to R2, or lower the integrator frequency).`
+        : `The loop gain never reaches 0 dB in the sweep: there is no crossover, so the loop corrects slowly and margins cannot be read. Raise the compensator gain or extend the sweep.`,
+    });
+  } else {
+    if (fc > fsw / 2) {
+      out.push({
+        id: 'crossover-vs-switching',
+        level: 'risk',
+        message: `Crossover ${hz(fc)} is above half the switching frequency (${hz(fsw / 2)}); the averaged model no longer holds and the loop will react to switching ripple. Bring fc down to about fsw/10 (${hz(fsw / 10)}).`,
+      });
+    } else if (fc > fsw / 5) {
+      out.push({
+        id: 'crossover-vs-switching',
+        level: 'caution',
+        message: `Crossover ${hz(fc)} is above fsw/5 (${hz(fsw / 5)}); switching ripple and sampling delay erode the phase the averaged model shows. Aim for about fsw/10 (${hz(fsw / 10)}).`,
+      });
+    }
+    if (rhpZeroHz !== null && fc > rhpZeroHz) {
+      out.push({
+        id: 'crossover-vs-rhp-zero',
+        level: 'risk',
+        message: `Crossover ${hz(fc)} is above the RHP zero (${hz(rhpZeroHz)}), which adds gain while taking phase away; the loop cannot be made robust there. Cross over at 1/5 to 1/3 of the RHP zero, or raise the RHP zero with a smaller inductor.`,
+      });
+    } else if (rhpZeroHz !== null && fc > rhpZeroHz / 3) {
+      out.push({
+        id: 'crossover-vs-rhp-zero',
+        level: 'caution',
+        message: `Crossover ${hz(fc)} is above a third of the RHP zero (${hz(rhpZeroHz)}); its phase lag grows quickly with load. Keep fc below ${hz(rhpZeroHz / 3)}, and check at maximum load and minimum input.`,
+      });
+    }
+    const pm = margins.phaseMarginDeg;
+    if (pm !== null && pm < 30) {
+      out.push({
+        id: 'phase-margin-low',
+        level: 'risk',
+        message: `Phase margin is ${deg(pm)} (under 30°): expect heavy ringing on load steps${pm <= 0 ? ', and the loop is unstable' : ''}. Move the compensator zeros closer to fc or lower fc; aim for 45–60°.`,
+      });
+    } else if (pm !== null && pm < 45) {
+      out.push({
+        id: 'phase-margin-low',
+        level: 'caution',
+        message: `Phase margin is ${deg(pm)} (under 45°): load steps will overshoot and ring. Add phase boost at fc or lower fc; aim for 45–60°.`,
+      });
+    }
+    if (gainCrossings.length > 1) {
+      out.push({
+        id: 'multiple-crossovers',
+        level: 'caution',
+        message: `The loop gain crosses 0 dB ${gainCrossings.length} times (at ${gainCrossings.map((c) => hz(c.hz)).join(', ')}); a peak near the LC resonance or a pole-zero pair is lifting the gain back up. Damp the resonance or lower the gain so there is one clean crossover.`,
+      });
+    }
+    if (isConditionallyStable(loop, fc)) {
+      out.push({
+        id: 'conditional-stability',
+        level: 'risk',
+        message: `The phase drops below −180° below the crossover while the loop gain is still above 0 dB: the loop is only conditionally stable and can oscillate when the gain falls (soft start, low input, overload). Add phase boost near the LC resonance (zeros closer to it) so the phase stays above −180°.`,
+      });
+    }
+  }
+  const gm = margins.gainMarginDb;
+  if (gm !== null && gm < 6) {
+    out.push({
+      id: 'gain-margin-low',
+      level: 'risk',
+      message: `Gain margin is ${db(gm)} (under 6 dB)${gm <= 0 ? ': the loop is unstable' : ''}; part tolerances or a change of input voltage can make it oscillate. Lower the high-frequency gain (the compensator's mid-band gain) or move its poles down.`,
+    });
+  } else if (gm !== null && gm < 10) {
+    out.push({
+      id: 'gain-margin-low',
+      level: 'caution',
+      message: `Gain margin is ${db(gm)} (under 10 dB). Lower the gain above fc (compensator poles closer to fc) to gain headroom.`,
+    });
+  }
+  return out;
+};
+
+/**
+ * Conditional stability: the unwrapped phase below −180° at some frequency under fc where
+ * |T| > 0 dB, judged on the sweep samples.
+ */
+const isConditionallyStable = (loop: SampledResponse, fc: number): boolean => {
+  for (let i = 0; i < loop.f.length && loop.f[i] < fc; i++) {
+    if (loop.phaseDeg[i] < -180 && loop.magDb[i] > 0) return true;
+  }
+  return false;
+};
+
+/** Checks on the power stage at its operating point. */
+export const stageChecks = (op: OperatingPoint): Check[] => {
+  const out: Check[] = [];
+  if (op.duty < 0.05 || op.duty > 0.95) {
+    out.push({
+      id: 'duty-extreme',
+      level: 'caution',
+      message: `Duty cycle is ${(op.duty * 100).toFixed(1)} %, outside 5–95 %: minimum on- or off-times of real controllers may not allow it, and small-signal gain changes fast with D. Choose another topology, input range or switching frequency.`,
+    });
+  }
+  if (op.conduction === 'DCM') {
+    out.push({
+      id: 'dcm-at-load',
+      level: 'risk',
+      message: `At this load the inductor current falls to zero each cycle (DCM: ripple ${formatSi(op.inductorRipplePp, 'A')} p-p against ${formatSi(op.inductorCurrent, 'A')} average); the CCM model shown here does not apply. Use L above ${formatSi(op.criticalInductance, 'H')} or a load above ${formatSi(op.criticalLoadCurrent, 'A')}.`,
+    });
+  }
+  return out;
+};
+
+/** Practical part ranges: R 1 kΩ…1 MΩ, C ≥ 10 pF (op-amp input currents, parasitics). */
+export const partChecks = (comp: CompensatorInput, rb: number | null): Check[] => {
+  const resistors: [string, number | undefined][] = [
+    ['R1', comp.r1],
+    ['R2', comp.type === 'type1' ? undefined : comp.r2],
+    ['R3', comp.type === 'type3' ? comp.r3 : undefined],
+    ['Rb', rb ?? undefined],
+  ];
+  const capacitors: [string, number | undefined][] = [
+    ['C1', comp.c1],
+    ['C2', comp.type === 'type1' ? undefined : comp.c2],
+    ['C3', comp.type === 'type3' ? comp.c3 : undefined],
+  ];
+  const problems: string[] = [];
+  for (const [name, v] of resistors) {
+    if (v === undefined || !(v > 0)) continue;
+    if (v < 1e3) problems.push(`${name} = ${formatSi(v, 'Ω')} is below 1 kΩ (loads the op-amp output and the rail)`);
+    if (v > 1e6) problems.push(`${name} = ${formatSi(v, 'Ω')} is above 1 MΩ (noise and op-amp bias current)`);
+  }
+  for (const [name, v] of capacitors) {
+    if (v === undefined || !(v > 0)) continue;
+    if (v < 10e-12) problems.push(`${name} = ${formatSi(v, 'F')} is below 10 pF (board parasitics of that size shift it)`);
+  }
+  if (problems.length === 0) return [];
+  return [
+    {
+      id: 'part-range',
+      level: 'note',
+      message: `${problems.join('; ')}. Change R1 and let the other parts scale with it, keeping the same poles and zeros.`,
+    },
+  ];
+};

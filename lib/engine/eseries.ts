@@ -1,0 +1,57 @@
+/**
+ * Preferred values per IEC 60063:2015.
+ * E6–E24 are the standard's two-digit tables, hard-coded (they differ from the rounded
+ * geometric series at eight E24 entries). E48–E192 are round(10^(k/N), 2 decimals), with
+ * the one published exception E192 k = 185: 9.20 instead of the formula's 9.19.
+ */
+import type { ESeriesName } from './types';
+
+const E6 = [1.0, 1.5, 2.2, 3.3, 4.7, 6.8];
+const E12 = [1.0, 1.2, 1.5, 1.8, 2.2, 2.7, 3.3, 3.9, 4.7, 5.6, 6.8, 8.2];
+const E24 = [
+  1.0, 1.1, 1.2, 1.3, 1.5, 1.6, 1.8, 2.0, 2.2, 2.4, 2.7, 3.0, 3.3, 3.6, 3.9, 4.3, 4.7, 5.1, 5.6, 6.2, 6.8, 7.5, 8.2,
+  9.1,
+];
+
+const geometric = (n: number): number[] =>
+  Array.from({ length: n }, (_, k) => {
+    if (n === 192 && k === 185) return 9.2;
+    return Math.round(Math.pow(10, k / n) * 100) / 100;
+  });
+
+const TABLES: Record<ESeriesName, readonly number[]> = {
+  E6,
+  E12,
+  E24,
+  E48: geometric(48),
+  E96: geometric(96),
+  E192: geometric(192),
+};
+
+/** Mantissas of a series in [1, 10), ascending. */
+export const seriesValues = (series: ESeriesName): readonly number[] => TABLES[series];
+
+/**
+ * Nearest preferred value to `value` in log distance |ln(value/candidate)|, across decade
+ * boundaries (e.g. 9.7 snaps to 10 in E12). Non-positive or non-finite input is returned as is.
+ */
+export const snapToSeries = (value: number, series: ESeriesName): number => {
+  if (!(value > 0) || !Number.isFinite(value)) return value;
+  const table = TABLES[series];
+  const decade = Math.floor(Math.log10(value));
+  let best = value;
+  let bestDist = Infinity;
+  for (let e = decade - 1; e <= decade + 1; e++) {
+    const scale = Math.pow(10, e);
+    for (const m of table) {
+      // Round away binary noise such as 4.7·10^-6 = 4.699999…e-6.
+      const cand = Number((m * scale).toPrecision(12));
+      const dist = Math.abs(Math.log(value / cand));
+      if (dist < bestDist) {
+        bestDist = dist;
+        best = cand;
+      }
+    }
+  }
+  return best;
+};

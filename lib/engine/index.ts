@@ -1,0 +1,49 @@
+/**
+ * Public API of the analysis engine (pure TypeScript: no framework, no database).
+ *
+ * Full analysis:  analyze(request) → AnalyzeResult (POST /api/analyze).
+ * Tune drag loop: preparePlant(request) once, then for each handle move
+ *                 analyzeLoop(prepared, partsFromShape(shape)).
+ */
+export * from './types';
+export { analyze, analyzeLoop, evaluateLoopGain, preparePlant, marginsForCompensator, snapCompensator, partValues } from './analyze';
+export type { PreparedPlant, LoopResult, StageRequest } from './analyze';
+export {
+  compensatorImpedances,
+  compensatorTransfer,
+  dividerRb,
+  integratorHz,
+  partsFromShape,
+  shapeFromParts,
+  summarizeCompensator,
+} from './compensator';
+export { evalPoly, evalPolyJw, polyMul, polyRoots, polyTrim } from './complex-poly';
+export type { Poly } from './complex-poly';
+export { seriesValues, snapToSeries } from './eseries';
+export { computeMargins, findCrossings, interpolateLogF, unwrapPhase } from './margins';
+export type { LoopPointEvaluator, SampledResponse } from './margins';
+export { buildPlantModel, modulatedPlant, summarizePlant } from './plant';
+export type { PlantModel } from './plant';
+export { SAMPLE_DESIGNS } from './samples';
+export type { SampleDesign } from './samples';
+export { buildSpiceNetlist } from './spice-netlist';
+export type { SpiceNetlistOptions } from './spice-netlist';
+export { kFactorParts, proposeCompensator, proposeForPlant } from './starting-point';
+export type { KFactorInput, StartingPointMethod, StartingPointTarget } from './starting-point';
+export { computeDuty, computeOperatingPoint } from './steady-state';
+export { bodeTrace, defaultSweep, logSweep, transferResponse } from './sweep';
+export {
+  dbFromMag,
+  dbFromMagSq,
+  evaluateTransfer,
+  multiplyTransfers,
+  scaleTransfer,
+  transferFromPolys,
+  summarizeTransfer,
+  transferPointRaw,
+  transferPolys,
+  wrapDeg,
+} from './transfer';
+export type { SectionedTransfer } from './transfer';
+export { loopChecks, partChecks, stageChecks } from './checks';
+export { compensatorIssues, stageIssues, validateRequest } from './validate';

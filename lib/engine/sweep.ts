@@ -1,0 +1,130 @@
+/**
+ * Logarithmic frequency sweeps and Bode traces of sectioned transfers.
+ *
+ * The hot loop works on plain numbers (no complex objects): for each section [1, a1, a2]
+ * at ω it forms re = 1 − a2·ω², im = a1·ω, multiplies |·|² and adds atan2(im, re).
+ * Phase is the continuous raw phase of transfer.ts shifted by one multiple of 360° so the
+ * trace starts at its principal value (see phaseOffsetDeg).
+ */
+import { dbFromMagSq, phaseOffsetDeg, transferPointRaw, type SectionedTransfer } from './transfer';
+import type { LoopPointEvaluator, SampledResponse } from './margins';
+import type { BodeTrace, SweepOptions } from './types';
+
+const TWO_PI = 2 * Math.PI;
+const RAD2DEG = 180 / Math.PI;
+const DB_PER_LOG10_MAGSQ = 10;
+
+/** Default sweep: 10 Hz to fsw/2, 400 points, logarithmic. */
+export const defaultSweep = (fsw: number): SweepOptions => ({ fStart: 10, fStop: fsw / 2, points: 400 });
+
+/** `points` frequencies from fStart to fStop inclusive, equally spaced in log f, Hz. */
+export const logSweep = (fStart: number, fStop: number, points: number): number[] => {
+  const n = Math.max(2, Math.round(points));
+  const a = Math.log(fStart);
+  const step = (Math.log(fStop) - a) / (n - 1);
+  const f = new Array<number>(n);
+  for (let i = 0; i < n; i++) f[i] = Math.exp(a + step * i);
+  f[0] = fStart;
+  f[n - 1] = fStop;
+  return f;
+};
+
+/** A transfer's raw response on a grid: magnitude in dB and continuous raw phase in degrees. */
+export interface RawResponse {
+  magDb: Float64Array;
+  phaseRawDeg: Float64Array;
+}
+
+/** Angular frequencies 2πf and their squares, computed once per grid. */
+export interface Grid {
+  f: readonly number[];
+  w: Float64Array;
+  w2: Float64Array;
+}
+
+export const makeGrid = (f: readonly number[]): Grid => {
+  const w = new Float64Array(f.length);
+  const w2 = new Float64Array(f.length);
+  for (let i = 0; i < f.length; i++) {
+    w[i] = TWO_PI * f[i];
+    w2[i] = w[i] * w[i];
+  }
+  return { f, w, w2 };
+};
+
+/**
+ * Evaluate a sectioned transfer on a grid (hot path).
+ * magDb = 10·log10(gain²·ω^(2n)·Π|num|²/Π|den|²); phaseRaw = Σ section angles + 90°·n (+180° for a negative gain).
+ */
+export const sweepTransfer = (h: SectionedTransfer, grid: Grid, out?: RawResponse): RawResponse => {
+  const n = grid.f.length;
+  const magDb = out?.magDb ?? new Float64Array(n);
+  const phaseRawDeg = out?.phaseRawDeg ?? new Float64Array(n);
+  const g2 = h.gain * h.gain;
+  const ph0 = (h.gain < 0 ? Math.PI : 0) + (h.originOrder * Math.PI) / 2;
+  const order = h.originOrder;
+  const num = h.num;
+  const den = h.den;
+  const { w, w2 } = grid;
+  for (let i = 0; i < n; i++) {
+    const wi = w[i];
+    const wi2 = w2[i];
+    let m = g2;
+    if (order === -1) m /= wi2;
+    else if (order !== 0) m *= Math.pow(wi2, order);
+    let ph = ph0;
+    for (let k = 0; k < num.length; k++) {
+      const p = num[k];
+      const re = p.length > 2 ? 1 - p[2] * wi2 : 1;
+      const im = p[1] * wi;
+      m *= re * re + im * im;
+      ph += Math.atan2(im, re);
+    }
+    for (let k = 0; k < den.length; k++) {
+      const p = den[k];
+      const re = p.length > 2 ? 1 - p[2] * wi2 : 1;
+      const im = p[1] * wi;
+      m /= re * re + im * im;
+      ph -= Math.atan2(im, re);
+    }
+    magDb[i] = DB_PER_LOG10_MAGSQ * Math.log10(m);
+    phaseRawDeg[i] = ph * RAD2DEG;
+  }
+  return { magDb, phaseRawDeg };
+};
+
+/** Bode trace (plain arrays, as the API returns them) with the phase shifted by `offsetDeg`. */
+export const toTrace = (magDb: ArrayLike<number>, phaseRawDeg: ArrayLike<number>, offsetDeg: number): BodeTrace => {
+  const n = magDb.length;
+  const m = new Array<number>(n);
+  const p = new Array<number>(n);
+  for (let i = 0; i < n; i++) {
+    m[i] = magDb[i];
+    p[i] = phaseRawDeg[i] + offsetDeg;
+  }
+  return { magDb: m, phaseDeg: p };
+};
+
+/** Trace of one transfer on a grid, phase starting at its principal value. */
+export const bodeTrace = (h: SectionedTransfer, grid: Grid): BodeTrace => {
+  const r = sweepTransfer(h, grid);
+  return toTrace(r.magDb, r.phaseRawDeg, phaseOffsetDeg(r.phaseRawDeg[0]));
+};
+
+/**
+ * Any transfer (e.g. a loop built by hand) as a sampled response on `f` plus its analytic
+ * evaluator on the same phase branch, ready for computeMargins.
+ */
+export const transferResponse = (
+  h: SectionedTransfer,
+  f: readonly number[],
+): { sampled: SampledResponse; evaluate: LoopPointEvaluator } => {
+  const r = sweepTransfer(h, makeGrid(f));
+  const offset = phaseOffsetDeg(r.phaseRawDeg[0]);
+  for (let i = 0; i < f.length; i++) r.phaseRawDeg[i] += offset;
+  const evaluate: LoopPointEvaluator = (hz) => {
+    const p = transferPointRaw(h, hz);
+    return { magDb: dbFromMagSq(p.magSq), phaseDeg: p.phaseRawDeg + offset };
+  };
+  return { sampled: { f, magDb: r.magDb, phaseDeg: r.phaseRawDeg }, evaluate };
+};

@@ -1,0 +1,164 @@
+/**
+ * Rational transfer functions kept in sections, so that the phase is continuous by construction.
+ *
+ *   H(s) = gain · s^originOrder · Π num[i](s) / Π den[k](s)
+ *
+ * Every section is a real polynomial of degree ≤ 2 with constant term 1 (ascending
+ * coefficients [1, a1, a2]). At s = jω its imaginary part a1·ω never changes sign for ω > 0,
+ * so atan2 of one section never jumps: summing section angles gives a continuous phase
+ * without sample-to-sample unwrapping, at any frequency, and the same function serves the
+ * sweep and the numerical refinement of crossings.
+ */
+import Complex from 'complex.js';
+import { evalPoly, polyMul, polyRoots, polyTrim, type Poly } from './complex-poly';
+import type { TransferSummary } from './types';
+
+const TWO_PI = 2 * Math.PI;
+const RAD2DEG = 180 / Math.PI;
+
+export interface SectionedTransfer {
+  /** Real gain, sign included (the sign contributes 180° of phase). */
+  readonly gain: number;
+  /** Power of s: −1 for an integrator (pole at the origin), +1 for a zero at the origin. */
+  readonly originOrder: number;
+  /** Numerator sections, each [1, a1] or [1, a1, a2]. */
+  readonly num: readonly Poly[];
+  /** Denominator sections, each [1, a1] or [1, a1, a2]. */
+  readonly den: readonly Poly[];
+}
+
+/**
+ * Split an ascending polynomial into origin order, gain (lowest non-zero coefficient) and
+ * one normalised section (degree ≤ 2 expected).
+ */
+const normalisePoly = (p: Poly): { order: number; gain: number; section: number[] | null } => {
+  const t = polyTrim(p);
+  let lo = 0;
+  while (lo < t.length - 1 && t[lo] === 0) lo++;
+  const g = t[lo];
+  const rest = t.slice(lo).map((c) => c / g + 0); // "+ 0" turns −0 into +0 (keeps atan2 on one branch)
+  if (rest.length > 3) throw new Error('normalisePoly: degree above 2 must be split into sections first');
+  return { order: lo, gain: g, section: rest.length > 1 ? rest : null };
+};
+
+/** Build a sectioned transfer from numerator and denominator polynomials of degree ≤ 2. */
+export const transferFromPolys = (num: Poly, den: Poly): SectionedTransfer => {
+  const n = normalisePoly(num);
+  const d = normalisePoly(den);
+  return {
+    gain: n.gain / d.gain,
+    originOrder: n.order - d.order,
+    num: n.section ? [n.section] : [],
+    den: d.section ? [d.section] : [],
+  };
+};
+
+/** Product of transfers: gains multiply, origin orders add, sections concatenate. */
+export const multiplyTransfers = (...parts: SectionedTransfer[]): SectionedTransfer => ({
+  gain: parts.reduce((g, p) => g * p.gain, 1),
+  originOrder: parts.reduce((o, p) => o + p.originOrder, 0),
+  num: parts.flatMap((p) => p.num),
+  den: parts.flatMap((p) => p.den),
+});
+
+/** Multiply a transfer by a real constant. */
+export const scaleTransfer = (h: SectionedTransfer, k: number): SectionedTransfer => ({ ...h, gain: h.gain * k });
+
+/** Full numerator and denominator polynomials (ascending), for reading roots and for tests. */
+export const transferPolys = (h: SectionedTransfer): { num: number[]; den: number[] } => {
+  let num: number[] = [h.gain];
+  let den: number[] = [1];
+  for (const p of h.num) num = polyMul(num, p);
+  for (const p of h.den) den = polyMul(den, p);
+  const shift = (p: number[], k: number) => [...new Array<number>(k).fill(0), ...p];
+  if (h.originOrder > 0) num = shift(num, h.originOrder);
+  if (h.originOrder < 0) den = shift(den, -h.originOrder);
+  return { num, den };
+};
+
+/** H(s) at any complex s (complex.js), for single-point use and tests. */
+export const evaluateTransfer = (h: SectionedTransfer, s: Complex): Complex => {
+  const { num, den } = transferPolys(h);
+  return evalPoly(num, s).div(evalPoly(den, s));
+};
+
+/**
+ * Raw continuous phase (degrees) and squared magnitude of H(j2πf). The raw phase is the
+ * sum of section angles; it differs from the displayed phase only by a multiple of 360°
+ * (see {@link phaseOffsetDeg}).
+ */
+export const transferPointRaw = (h: SectionedTransfer, hz: number): { magSq: number; phaseRawDeg: number } => {
+  const w = TWO_PI * hz;
+  let magSq = h.gain * h.gain;
+  let ph = (h.gain < 0 ? Math.PI : 0) + (h.originOrder * Math.PI) / 2;
+  if (h.originOrder !== 0) magSq *= Math.pow(w * w, h.originOrder);
+  for (const p of h.num) {
+    const re = 1 - (p.length > 2 ? p[2] : 0) * w * w;
+    const im = p[1] * w;
+    magSq *= re * re + im * im;
+    ph += Math.atan2(im, re);
+  }
+  for (const p of h.den) {
+    const re = 1 - (p.length > 2 ? p[2] : 0) * w * w;
+    const im = p[1] * w;
+    magSq /= re * re + im * im;
+    ph -= Math.atan2(im, re);
+  }
+  return { magSq, phaseRawDeg: ph * RAD2DEG };
+};
+
+/** Principal value of an angle in degrees, in (−180°, 180°]. */
+export const wrapDeg = (deg: number): number => {
+  const w = deg - 360 * Math.floor((deg + 180) / 360);
+  return w === -180 ? 180 : w;
+};
+
+/**
+ * Multiple of 360° that makes a continuous raw phase start at its principal value at the
+ * first sweep frequency: offset = 360·round((wrap(raw₀) − raw₀)/360).
+ */
+export const phaseOffsetDeg = (rawAtStartDeg: number): number =>
+  360 * Math.round((wrapDeg(rawAtStartDeg) - rawAtStartDeg) / 360);
+
+/** 20·log10|H| from |H|². */
+export const dbFromMagSq = (magSq: number): number => 10 * Math.log10(magSq);
+
+/** 20·log10(x) for a magnitude x. */
+export const dbFromMag = (mag: number): number => 20 * Math.log10(mag);
+
+const rootHz = (r: Complex) => r.abs() / TWO_PI;
+
+/**
+ * Landmarks of a transfer, frequencies in Hz.
+ * - dcGainDb: 20·log10|H(0)|; null when H has a zero or pole at the origin.
+ * - resonanceHz, q: of the first complex-capable (degree-2) denominator section
+ *   1 + s/(Qω0) + s²/ω0²: ω0 = 1/√a2, Q = √a2/a1.
+ * - esrZeroHz: the left-half-plane real zero nearest (in log) to 1/(2π·rc·C), when given.
+ * - rhpZeroHz: the lowest right-half-plane real zero, else null.
+ */
+export const summarizeTransfer = (h: SectionedTransfer, esrHint: number | null = null): TransferSummary => {
+  const { num, den } = transferPolys(h);
+  const zeros = polyRoots(num);
+  const poles = polyRoots(den);
+  const quad = h.den.find((p) => p.length === 3 && p[2] > 0);
+  const resonanceHz = quad ? 1 / (TWO_PI * Math.sqrt(quad[2])) : null;
+  const q = quad && quad[1] > 0 ? Math.sqrt(quad[2]) / quad[1] : null;
+  const realZeros = zeros.filter((z) => z.im === 0 && z.re !== 0);
+  const lhp = realZeros.filter((z) => z.re < 0).map((z) => -z.re / TWO_PI);
+  const rhp = realZeros.filter((z) => z.re > 0).map((z) => z.re / TWO_PI);
+  let esrZeroHz: number | null = null;
+  if (esrHint !== null && lhp.length > 0) {
+    esrZeroHz = lhp.reduce((best, f) =>
+      Math.abs(Math.log(f / esrHint)) < Math.abs(Math.log(best / esrHint)) ? f : best,
+    );
+  }
+  return {
+    dcGainDb: h.originOrder === 0 ? dbFromMag(Math.abs(h.gain)) : null,
+    resonanceHz,
+    q,
+    esrZeroHz,
+    rhpZeroHz: rhp.length > 0 ? Math.min(...rhp) : null,
+    polesHz: poles.map(rootHz).sort((a, b) => a - b),
+    zerosHz: zeros.map(rootHz).sort((a, b) => a - b),
+  };
+};
