@@ -5,3 +5,5 @@ export * from './revisions';
 export * from './signoff';
 export * from './remarks';
 export * from './mailbox';
+export * from './bench';
+export * from './design-import';

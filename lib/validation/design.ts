@@ -18,8 +18,9 @@ export const designUpdateSchema = designCreateSchema
   .omit({ topology: true })
   .partial()
   .extend({
+    // partialRecord: a mapping may name only some parts (z.record with enum keys wants all).
     designatorMap: z
-      .record(
+      .partialRecord(
         z.enum(['r1', 'r2', 'r3', 'c1', 'c2', 'c3', 'rb']),
         z.string().trim().regex(/^[A-Za-z]{1,4}\d{1,5}[A-Za-z]?$/, 'use a reference designator such as R17 or C42'),
       )

@@ -1,0 +1,92 @@
+import { and, desc, eq } from 'drizzle-orm';
+import type { Db } from '../connection';
+import { benchData, designs, users } from '../schema';
+import { writeAudit } from './audit';
+import { touchDesign } from './designs';
+
+/**
+ * Bench data of a design: measured loop responses, stored as uploaded (points rising in
+ * frequency, Hz / dB / degrees). `phaseShifted` marks data measured as −T that is shown
+ * with 180° taken off; the stored points are never rewritten. Every function is scoped by
+ * team through the design.
+ */
+
+export interface BenchPointsJson {
+  f: number[];
+  gainDb: number[];
+  phaseDeg: number[];
+}
+
+const summaryColumns = {
+  id: benchData.id,
+  designId: benchData.designId,
+  name: benchData.name,
+  phaseShifted: benchData.phaseShifted,
+  uploadedBy: benchData.uploadedBy,
+  uploaderName: users.name,
+  createdAt: benchData.createdAt,
+};
+
+/** Bench data of a design, newest first, without the points. */
+export function listBenchData(db: Db, teamId: number, designId: number) {
+  return db
+    .select(summaryColumns)
+    .from(benchData)
+    .innerJoin(designs, eq(designs.id, benchData.designId))
+    .innerJoin(users, eq(users.id, benchData.uploadedBy))
+    .where(and(eq(benchData.designId, designId), eq(designs.teamId, teamId)))
+    .orderBy(desc(benchData.id))
+    .all();
+}
+
+/** One bench data set with its points, or undefined outside the team or design. */
+export function getBenchData(db: Db, teamId: number, designId: number, benchId: number) {
+  const row = db
+    .select({ ...summaryColumns, points: benchData.points })
+    .from(benchData)
+    .innerJoin(designs, eq(designs.id, benchData.designId))
+    .innerJoin(users, eq(users.id, benchData.uploadedBy))
+    .where(and(eq(benchData.id, benchId), eq(benchData.designId, designId), eq(designs.teamId, teamId)))
+    .get();
+  return row ? { ...row, points: row.points as BenchPointsJson } : undefined;
+}
+
+export function createBenchData(
+  db: Db,
+  b: { teamId: number; designId: number; name: string; points: BenchPointsJson; phaseShifted: boolean; uploadedBy: number },
+) {
+  return db.transaction((tx) => {
+    const txDb = tx as unknown as Db;
+    const row = txDb
+      .insert(benchData)
+      .values({ designId: b.designId, name: b.name, points: b.points, phaseShifted: b.phaseShifted, uploadedBy: b.uploadedBy })
+      .returning({ id: benchData.id })
+      .get();
+    touchDesign(txDb, b.designId);
+    writeAudit(txDb, {
+      teamId: b.teamId,
+      userId: b.uploadedBy,
+      action: 'bench.uploaded',
+      entityType: 'bench_data',
+      entityId: row.id,
+      detail: { designId: b.designId, name: b.name, points: b.points.f.length },
+    });
+    return row.id;
+  });
+}
+
+/** Set or clear the 180° shift; false when there is no such bench data in the team. */
+export function setBenchPhaseShift(db: Db, actorId: number, teamId: number, designId: number, benchId: number, shifted: boolean) {
+  if (!getBenchData(db, teamId, designId, benchId)) return false;
+  db.update(benchData).set({ phaseShifted: shifted }).where(eq(benchData.id, benchId)).run();
+  writeAudit(db, { teamId, userId: actorId, action: 'bench.phase-shift', entityType: 'bench_data', entityId: benchId, detail: { shifted } });
+  return true;
+}
+
+/** Delete one bench data set; false when there is no such bench data in the team. */
+export function deleteBenchData(db: Db, actorId: number, teamId: number, designId: number, benchId: number) {
+  if (!getBenchData(db, teamId, designId, benchId)) return false;
+  db.delete(benchData).where(eq(benchData.id, benchId)).run();
+  writeAudit(db, { teamId, userId: actorId, action: 'bench.deleted', entityType: 'bench_data', entityId: benchId, detail: { designId } });
+  return true;
+}

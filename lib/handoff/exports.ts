@@ -1,0 +1,56 @@
+/**
+ * One entry for every Handoff export of a revision: body, content type and file name.
+ * Pure: the route handler loads the design, revision and sign-off, runs the analysis and
+ * passes them in.
+ */
+import type { AnalyzeRequest, AnalyzeResult, Topology } from '@/lib/engine/types';
+import { buildDesignFile, designFileJson } from './design-file';
+import { EXPORT_CONTENT_TYPE, exportFileName, type ExportFormat } from './files';
+import { buildPartsList, partsListCsv } from './parts-list';
+import { buildReportHtml } from './report';
+import { spiceNetlistFile } from './spice';
+
+export interface ExportContext {
+  design: { name: string; description: string; topology: Topology; designatorMap: Record<string, string> };
+  revision: { number: number; note: string; createdAt: Date; authorName: string; input: AnalyzeRequest };
+  signoff: { state: string; at: Date | null; by: string | null };
+  result: AnalyzeResult;
+  teamName: string;
+  now?: Date;
+}
+
+export interface ExportFile {
+  body: string;
+  contentType: string;
+  fileName: string;
+}
+
+export function buildExport(format: ExportFormat, ctx: ExportContext): ExportFile {
+  const { design, revision, result } = ctx;
+  const parts = () => buildPartsList(result.parts, revision.input.compensator.type, design.designatorMap);
+  let body: string;
+  switch (format) {
+    case 'csv':
+      body = partsListCsv(parts());
+      break;
+    case 'json':
+      body = designFileJson(buildDesignFile({ design, revision, result, now: ctx.now }));
+      break;
+    case 'spice':
+      body = spiceNetlistFile({ designName: design.name, revision: revision.number, input: revision.input });
+      break;
+    case 'report':
+      body = buildReportHtml({
+        design,
+        revision,
+        signoff: ctx.signoff,
+        input: revision.input,
+        result,
+        parts: parts(),
+        teamName: ctx.teamName,
+        generatedAt: ctx.now,
+      });
+      break;
+  }
+  return { body, contentType: EXPORT_CONTENT_TYPE[format], fileName: exportFileName(design.name, revision.number, format) };
+}

@@ -1,0 +1,187 @@
+/**
+ * The printable report of a revision: one self-contained HTML page (inline CSS and SVG, no
+ * script, no external fetch) that the browser prints to PDF. It shows the inputs, the
+ * operating point, the Bode plots, the margins, the parts, the Checks, the cautions, the
+ * revision number, its sign-off state and the dates.
+ */
+import { CAUTIONS } from '@/lib/cautions';
+import type { AnalyzeRequest, AnalyzeResult, Margins } from '@/lib/engine/types';
+import { formatSi } from '@/lib/units/si';
+import { formatTolerance, PART_NAME, TOLERANCE_CONVENTION, schematicValue, type PartRow } from './parts-list';
+import { bodeSvg } from './svg-plot';
+
+export interface ReportInput {
+  design: { name: string; description: string; topology: string };
+  revision: { number: number; note: string; createdAt: Date; authorName: string };
+  signoff: { state: string; at: Date | null; by: string | null };
+  input: AnalyzeRequest;
+  result: AnalyzeResult;
+  parts: PartRow[];
+  teamName: string;
+  generatedAt?: Date;
+}
+
+const esc = (s: string) =>
+  s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
+
+const SIGNOFF_LABEL: Record<string, string> = {
+  draft: 'Draft',
+  'in-review': 'In review',
+  approved: 'Approved',
+  'changes-requested': 'Changes requested',
+};
+
+const COMPENSATOR_LABEL = { type1: 'Type I (integrator)', type2: 'Type II', type3: 'Type III' } as const;
+
+const date = (d: Date) => d.toISOString().slice(0, 10);
+const dateTime = (d: Date) => `${d.toISOString().slice(0, 16).replace('T', ' ')} UTC`;
+const si = (v: number | null | undefined, unit: string, digits = 3) => (v === null || v === undefined ? '—' : formatSi(v, unit, digits));
+const num = (v: number | null | undefined, unit: string, dp = 1) => (v === null || v === undefined ? '—' : `${v.toFixed(dp)} ${unit}`);
+const pct = (v: number) => `${(v * 100).toFixed(1)} %`;
+
+function table(rows: [string, string][], cls = 'kv'): string {
+  return `<table class="${cls}"><tbody>${rows.map(([k, v]) => `<tr><th>${esc(k)}</th><td>${esc(v)}</td></tr>`).join('')}</tbody></table>`;
+}
+
+function marginRows(m: Margins): [string, string][] {
+  return [
+    ['Crossover fc', si(m.crossoverHz, 'Hz')],
+    ['Phase margin', num(m.phaseMarginDeg, '°')],
+    ['Gain margin', num(m.gainMarginDb, 'dB')],
+    ['Phase crossover (−180°)', si(m.phaseCrossoverHz, 'Hz')],
+  ];
+}
+
+/** The report as a complete HTML document. */
+export function buildReportHtml(r: ReportInput): string {
+  const { input, result } = r;
+  const cv = input.converter;
+  const comp = input.compensator;
+  const op = result.operatingPoint;
+  const generatedAt = r.generatedAt ?? new Date();
+  const title = `${r.design.name} — r${r.revision.number}`;
+  const state = SIGNOFF_LABEL[r.signoff.state] ?? r.signoff.state;
+
+  const inputs = table([
+    ['Topology', cv.topology],
+    ['Input voltage Vin', si(cv.vin, 'V')],
+    ['Output voltage Vout', si(cv.vout, 'V')],
+    ['Load current Iout', si(cv.iout, 'A')],
+    ['Switching frequency fsw', si(cv.fsw, 'Hz')],
+    ['Inductor L', si(cv.l, 'H')],
+    ['Inductor DCR', si(cv.rl, 'Ω')],
+    ['Output capacitor C', si(cv.c, 'F')],
+    ['Capacitor ESR', si(cv.rc, 'Ω')],
+    ['Diode drop', cv.vd ? si(cv.vd, 'V') : '0 (synchronous)'],
+    ['PWM ramp Vramp', si(input.modulator.vramp, 'V')],
+    ['Reference Vref', si(input.feedback.vref, 'V')],
+    ['Compensator', COMPENSATOR_LABEL[comp.type]],
+    ['Resistor / capacitor series', `${result.parts.resistorSeries} / ${result.parts.capacitorSeries}`],
+  ]);
+
+  const operating = table([
+    ['Duty cycle D', pct(op.duty)],
+    ['Conduction', op.conduction],
+    ['Load resistance', si(op.loadResistance, 'Ω')],
+    ['Inductor current (average)', si(op.inductorCurrent, 'A')],
+    ['Inductor ripple (p-p)', si(op.inductorRipplePp, 'A')],
+    ['Inductor peak', si(op.inductorPeak, 'A')],
+    ['Output ripple (p-p)', si(op.outputRipplePp, 'V')],
+    ['LC resonance', si(result.plant.resonanceHz, 'Hz')],
+    ['Q', result.plant.q === null ? '—' : result.plant.q.toFixed(2)],
+    ['ESR zero', si(result.plant.esrZeroHz, 'Hz')],
+    ['RHP zero', si(result.plant.rhpZeroHz, 'Hz')],
+  ]);
+
+  const snapped = marginRows(result.parts.snappedMargins);
+  const margins = `<table class="grid"><thead><tr><th></th><th>Ideal values</th><th>Standard values</th></tr></thead><tbody>${marginRows(result.margins)
+    .map(([k, v], i) => `<tr><th>${esc(k)}</th><td>${esc(v)}</td><td>${esc(snapped[i][1])}</td></tr>`)
+    .join('')}</tbody></table>`;
+
+  const parts = `<table class="grid parts"><thead><tr><th>Designator</th><th>Part</th><th>Role</th><th>Ideal</th><th>Standard</th><th>Series</th><th>Tolerance</th></tr></thead><tbody>${r.parts
+    .map(
+      (p) =>
+        `<tr><td><b>${esc(p.designator)}</b></td><td>${esc(PART_NAME[p.part])}</td><td>${esc(p.role.replace(/^\S+ — /, ''))}</td><td>${esc(
+          si(p.ideal, p.kind === 'resistor' ? 'Ω' : 'F', 4),
+        )}</td><td><b>${esc(si(p.standard, p.kind === 'resistor' ? 'Ω' : 'F'))}</b> <span class="muted">(${esc(schematicValue(p.standard))})</span></td><td>${p.series}</td><td>${esc(
+          formatTolerance(p.tolerancePct),
+        )}</td></tr>`,
+    )
+    .join('')}</tbody></table><p class="muted small">${esc(TOLERANCE_CONVENTION)}</p>`;
+
+  const checks = result.checks.length
+    ? `<ul class="checks">${result.checks
+        .map((c) => `<li class="check ${c.level}"><span class="level">${esc(c.level)}</span> ${esc(c.message)}</li>`)
+        .join('')}</ul>`
+    : '<p>No Checks raised.</p>';
+
+  const cautions = `<ul class="cautions">${CAUTIONS.map((c) => `<li><b>${esc(c.title)}.</b> ${esc(c.text)}</li>`).join('')}</ul>`;
+
+  const plot = bodeSvg(result.bode, { id: 'report-bode', title: `Bode plot of ${title}`, parts: true, width: 700, panelHeight: 220 });
+
+  const signoffLine =
+    r.signoff.at && r.signoff.state !== 'draft'
+      ? `${state} — ${date(r.signoff.at)}${r.signoff.by ? ` by ${r.signoff.by}` : ''}`
+      : state;
+
+  return `<!doctype html>
+<html lang="en"><head><meta charset="utf-8">
+<meta name="viewport" content="width=device-width, initial-scale=1">
+<title>${esc(title)} — Phasewright report</title>
+<style>
+@page { size: A4; margin: 14mm 12mm 16mm; }
+* { box-sizing: border-box; }
+body { font-family: Inter, system-ui, -apple-system, "Segoe UI", sans-serif; color: #0f172a; margin: 0 auto; max-width: 760px; padding: 24px; font-size: 12px; line-height: 1.45; -webkit-print-color-adjust: exact; print-color-adjust: exact; }
+header.top { display: flex; justify-content: space-between; align-items: flex-start; border-bottom: 3px solid #312e81; padding-bottom: 10px; margin-bottom: 14px; }
+header.top .brand { font-weight: 700; color: #312e81; letter-spacing: .02em; }
+h1 { font-size: 20px; margin: 2px 0 4px; }
+h2 { font-size: 14px; margin: 18px 0 6px; color: #312e81; border-bottom: 1px solid #e2e8f0; padding-bottom: 3px; }
+.meta { text-align: right; font-size: 11px; color: #475569; }
+.state { display: inline-block; padding: 2px 8px; border-radius: 999px; font-weight: 600; font-size: 11px; border: 1px solid currentColor; }
+.state.approved { color: #047857; } .state.in-review { color: #4338ca; } .state.changes-requested { color: #b45309; } .state.draft { color: #475569; }
+.cols { display: grid; grid-template-columns: 1fr 1fr; gap: 18px; }
+table { border-collapse: collapse; width: 100%; }
+table.kv th { text-align: left; font-weight: 500; color: #475569; padding: 2px 8px 2px 0; width: 55%; }
+table.kv td { padding: 2px 0; font-variant-numeric: tabular-nums; }
+table.grid th, table.grid td { border-bottom: 1px solid #e2e8f0; padding: 4px 6px; text-align: left; vertical-align: top; }
+table.grid thead th { background: #eef2ff; color: #312e81; font-weight: 600; }
+table.parts td:nth-child(3) { color: #334155; }
+.muted { color: #64748b; } .small { font-size: 10.5px; }
+.plot svg { width: 100%; height: auto; }
+ul.checks, ul.cautions { padding-left: 0; list-style: none; margin: 0; }
+li.check { padding: 4px 8px; margin: 3px 0; border-left: 4px solid; background: #f8fafc; }
+li.check.note { border-color: #64748b; } li.check.caution { border-color: #d97706; background: #fffbeb; } li.check.risk { border-color: #dc2626; background: #fef2f2; }
+li.check .level { font-weight: 700; text-transform: uppercase; font-size: 10px; margin-right: 6px; }
+ul.cautions li { margin: 4px 0; padding: 6px 8px; background: #fff7ed; border: 1px solid #fed7aa; border-radius: 4px; }
+section { break-inside: avoid; page-break-inside: avoid; }
+footer { margin-top: 18px; border-top: 1px solid #e2e8f0; padding-top: 6px; font-size: 10.5px; color: #64748b; }
+@media print { body { padding: 0; max-width: none; } a { color: inherit; text-decoration: none; } }
+</style></head>
+<body>
+<header class="top">
+  <div>
+    <div class="brand">Phasewright · loop report</div>
+    <h1>${esc(r.design.name)}</h1>
+    <div class="muted">${esc(r.teamName)}${r.design.description ? ` · ${esc(r.design.description)}` : ''}</div>
+  </div>
+  <div class="meta">
+    <div style="font-size:16px;font-weight:700;color:#0f172a">Revision r${r.revision.number}</div>
+    <div>Saved ${esc(dateTime(r.revision.createdAt))} by ${esc(r.revision.authorName)}</div>
+    <div>Sign-off: <span class="state ${esc(r.signoff.state)}" data-testid="report-signoff">${esc(signoffLine)}</span></div>
+    <div>Printed ${esc(dateTime(generatedAt))}</div>
+  </div>
+</header>
+${r.revision.note ? `<p><b>Revision note:</b> ${esc(r.revision.note)}</p>` : ''}
+<section class="cols">
+  <div><h2>Inputs</h2>${inputs}</div>
+  <div><h2>Operating point</h2>${operating}</div>
+</section>
+<section><h2>Margins</h2>${margins}</section>
+<section class="plot"><h2>Bode plot</h2>${plot}</section>
+<section><h2>Parts</h2>${parts}</section>
+<section><h2>Checks</h2>${checks}</section>
+<section><h2>Cautions</h2>${cautions}</section>
+<footer>Small-signal averaged model at one operating point; the values above are estimates to be verified on the bench. Generated by Phasewright on ${esc(dateTime(generatedAt))}.</footer>
+</body></html>
+`;
+}
