@@ -1,0 +1,111 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { listRevisions, listSignoffStates } from '@/db/queries';
+import { loadDesignPage } from '@/lib/design-page';
+import { analyze } from '@/lib/engine/analyze';
+import type { AnalyzeRequest } from '@/lib/engine/types';
+import { diffRevisions, marginDeltas, type RevisionSide } from '@/lib/revision-diff';
+import type { RevisionSummary } from '@/lib/revision-summary';
+import { SignoffBadge } from '@/components/designs/signoff-badge';
+import { ComparePicker } from '@/components/review/compare-picker';
+import { ComparePlot, type CompareLoop } from '@/components/review/compare-plot';
+import { DiffTable } from '@/components/review/diff-table';
+import { formatDate } from '@/components/review/format';
+import { MarginDeltas } from '@/components/review/margin-deltas';
+
+export const metadata: Metadata = { title: 'Compare' };
+
+type Props = { params: Promise<{ id: string }>; searchParams: Promise<{ a?: string; b?: string }> };
+
+/** The loop of a stored revision, recomputed from its saved input (the stored summary keeps no Bode arrays). */
+function loopOf(label: string, input: AnalyzeRequest, summary: RevisionSummary): CompareLoop | null {
+  try {
+    return { label, bode: analyze(input).bode, margins: summary.margins };
+  } catch {
+    return null;
+  }
+}
+
+export default async function ComparePage({ params, searchParams }: Props) {
+  const [{ id }, q] = await Promise.all([params, searchParams]);
+  const { db, design } = await loadDesignPage(id);
+
+  const revisions = listRevisions(db, design.id);
+  if (revisions.length < 2)
+    return (
+      <div className="card p-8 text-center text-slate-600">
+        Compare needs two revisions; this design has {revisions.length === 0 ? 'none' : 'one'} so far. Each save on{' '}
+        <Link href={`/designs/${design.id}`} className="text-indigo-700 underline">
+          Tune
+        </Link>{' '}
+        adds one.
+      </div>
+    );
+
+  const byNumber = new Map(revisions.map((r) => [r.number, r]));
+  const latest = revisions[revisions.length - 1];
+  const b = byNumber.get(Number(q.b)) ?? latest;
+  const fallbackA = b.baseNumber ?? (b.number > 1 ? b.number - 1 : revisions[revisions.length - 1].number);
+  const a = byNumber.get(Number(q.a)) ?? byNumber.get(fallbackA) ?? revisions[0];
+  const missing = [q.a && !byNumber.has(Number(q.a)) ? `r${q.a}` : null, q.b && !byNumber.has(Number(q.b)) ? `r${q.b}` : null].filter(Boolean);
+
+  const side = (r: typeof a): RevisionSide => ({ input: r.input as AnalyzeRequest, summary: r.summary as RevisionSummary });
+  const labelA = `r${a.number}`;
+  const labelB = `r${b.number}`;
+  const rows = diffRevisions(side(a), side(b));
+  const deltas = marginDeltas(side(a), side(b));
+  const loopA = loopOf(labelA, side(a).input, side(a).summary);
+  const loopB = loopOf(labelB, side(b).input, side(b).summary);
+  const states = listSignoffStates(db, design.id);
+
+  return (
+    <div className="space-y-4" data-testid="compare">
+      <div className="flex flex-wrap items-center gap-4">
+        <ComparePicker designId={design.id} numbers={revisions.map((r) => r.number).reverse()} a={a.number} b={b.number} />
+        <Link href={`/designs/${design.id}/history?r=${b.number}`} className="ml-auto text-sm text-indigo-700 hover:underline">
+          Sign-off of {labelB} →
+        </Link>
+      </div>
+      {missing.length > 0 && (
+        <p role="status" className="rounded-md bg-amber-50 px-3 py-2 text-sm text-amber-900">
+          {missing.join(' and ')} does not exist in this design; showing {labelA} and {labelB} instead.
+        </p>
+      )}
+      {a.number === b.number && (
+        <p role="status" className="rounded-md bg-slate-50 px-3 py-2 text-sm text-slate-600">
+          A and B are the same revision; pick another one to see changes.
+        </p>
+      )}
+
+      <div className="grid gap-3 md:grid-cols-2">
+        {[
+          { tag: 'A', r: a },
+          { tag: 'B', r: b },
+        ].map(({ tag, r }) => (
+          <div key={tag} className="card px-4 py-3 text-sm" data-testid={`side-${tag.toLowerCase()}`}>
+            <div className="flex items-center gap-2">
+              <span className="font-semibold">
+                {tag} · r{r.number}
+              </span>
+              <SignoffBadge state={states.get(r.number) ?? 'draft'} />
+              <span className="ml-auto text-xs text-slate-500">
+                {r.authorName} · {formatDate(r.createdAt)}
+              </span>
+            </div>
+            <p className="mt-1 text-slate-700">{r.note || <span className="text-slate-400">No note</span>}</p>
+          </div>
+        ))}
+      </div>
+
+      <MarginDeltas deltas={deltas} labelA={labelA} labelB={labelB} />
+
+      {loopA && loopB ? (
+        <ComparePlot a={loopA} b={loopB} />
+      ) : (
+        <p className="card p-4 text-sm text-rose-700">The loop of {loopA ? labelB : labelA} could not be computed from its saved input.</p>
+      )}
+
+      <DiffTable rows={rows} labelA={labelA} labelB={labelB} />
+    </div>
+  );
+}

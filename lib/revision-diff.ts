@@ -1,0 +1,127 @@
+/**
+ * What changed between two revisions: every input, part, margin and a few
+ * operating-point figures, side by side, each row marked when it differs.
+ * Pure data; Compare formats it.
+ */
+import type { AnalyzeRequest } from '@/lib/engine/types';
+import type { RevisionSummary } from './revision-summary';
+
+/** How a value is shown: SI-prefixed with a unit, degrees, decibels, a ratio as %, or plain text. */
+export type DiffKind = 'si' | 'deg' | 'db' | 'percent' | 'text';
+
+export interface DiffRow {
+  group: string;
+  key: string;
+  label: string;
+  kind: DiffKind;
+  unit?: string;
+  a: number | string | null;
+  b: number | string | null;
+  changed: boolean;
+  /** Whether a higher number is better (margins): colours the change. */
+  higherIsBetter?: boolean;
+}
+
+export interface RevisionSide {
+  input: AnalyzeRequest;
+  summary: RevisionSummary;
+}
+
+type Spec = Omit<DiffRow, 'a' | 'b' | 'changed'> & { get: (s: RevisionSide) => number | string | null | undefined };
+
+const PARTS = ['r1', 'r2', 'r3', 'c1', 'c2', 'c3'] as const;
+const partUnit = (p: string) => (p.startsWith('r') ? 'Ω' : 'F');
+const partLabel = (p: string) => p.toUpperCase();
+
+const SPECS: Spec[] = [
+  { group: 'Power stage', key: 'topology', label: 'Topology', kind: 'text', get: (s) => s.input.converter.topology },
+  { group: 'Power stage', key: 'vin', label: 'Input voltage Vin', kind: 'si', unit: 'V', get: (s) => s.input.converter.vin },
+  { group: 'Power stage', key: 'vout', label: 'Output voltage Vout', kind: 'si', unit: 'V', get: (s) => s.input.converter.vout },
+  { group: 'Power stage', key: 'iout', label: 'Load current Iout', kind: 'si', unit: 'A', get: (s) => s.input.converter.iout },
+  { group: 'Power stage', key: 'fsw', label: 'Switching frequency fsw', kind: 'si', unit: 'Hz', get: (s) => s.input.converter.fsw },
+  { group: 'Power stage', key: 'l', label: 'Inductor L', kind: 'si', unit: 'H', get: (s) => s.input.converter.l },
+  { group: 'Power stage', key: 'rl', label: 'Inductor DCR', kind: 'si', unit: 'Ω', get: (s) => s.input.converter.rl },
+  { group: 'Power stage', key: 'c', label: 'Output capacitor C', kind: 'si', unit: 'F', get: (s) => s.input.converter.c },
+  { group: 'Power stage', key: 'rc', label: 'Capacitor ESR', kind: 'si', unit: 'Ω', get: (s) => s.input.converter.rc },
+  { group: 'Power stage', key: 'vd', label: 'Diode drop Vd', kind: 'si', unit: 'V', get: (s) => s.input.converter.vd },
+  { group: 'Modulator and feedback', key: 'vramp', label: 'PWM ramp Vramp', kind: 'si', unit: 'V', get: (s) => s.input.modulator.vramp },
+  { group: 'Modulator and feedback', key: 'vref', label: 'Reference Vref', kind: 'si', unit: 'V', get: (s) => s.input.feedback.vref },
+  { group: 'Compensator', key: 'type', label: 'Type', kind: 'text', get: (s) => typeLabel(s.input.compensator.type) },
+  ...PARTS.map<Spec>((p) => ({
+    group: 'Compensator',
+    key: `comp.${p}`,
+    label: `${partLabel(p)} as entered`,
+    kind: 'si',
+    unit: partUnit(p),
+    get: (s) => s.input.compensator[p],
+  })),
+  { group: 'Parts', key: 'resistorSeries', label: 'Resistor series', kind: 'text', get: (s) => s.summary.parts?.resistorSeries },
+  { group: 'Parts', key: 'capacitorSeries', label: 'Capacitor series', kind: 'text', get: (s) => s.summary.parts?.capacitorSeries },
+  ...[...PARTS, 'rb' as const].map<Spec>((p) => ({
+    group: 'Parts',
+    key: `part.${p}`,
+    label: p === 'rb' ? 'Rb (divider, to ground)' : `${partLabel(p)} standard value`,
+    kind: 'si',
+    unit: partUnit(p),
+    get: (s) => s.summary.parts?.snapped?.[p],
+  })),
+  { group: 'Margins', key: 'fc', label: 'Crossover fc', kind: 'si', unit: 'Hz', get: (s) => s.summary.margins?.crossoverHz },
+  { group: 'Margins', key: 'pm', label: 'Phase margin PM', kind: 'deg', higherIsBetter: true, get: (s) => s.summary.margins?.phaseMarginDeg },
+  { group: 'Margins', key: 'gm', label: 'Gain margin GM', kind: 'db', higherIsBetter: true, get: (s) => s.summary.margins?.gainMarginDb },
+  { group: 'Margins', key: 'f180', label: 'Phase crossover (−180°)', kind: 'si', unit: 'Hz', get: (s) => s.summary.margins?.phaseCrossoverHz },
+  { group: 'Margins', key: 'phaseHalfFsw', label: 'Loop phase at fsw/2', kind: 'deg', get: (s) => s.summary.phaseAtHalfFswDeg },
+  { group: 'Margins', key: 'snapped.pm', label: 'PM with standard values', kind: 'deg', higherIsBetter: true, get: (s) => s.summary.parts?.snappedMargins?.phaseMarginDeg },
+  { group: 'Margins', key: 'snapped.fc', label: 'fc with standard values', kind: 'si', unit: 'Hz', get: (s) => s.summary.parts?.snappedMargins?.crossoverHz },
+  { group: 'Operating point', key: 'duty', label: 'Duty cycle D', kind: 'percent', get: (s) => s.summary.operatingPoint?.duty },
+  { group: 'Operating point', key: 'conduction', label: 'Conduction mode', kind: 'text', get: (s) => s.summary.operatingPoint?.conduction },
+  { group: 'Operating point', key: 'ripple', label: 'Inductor ripple (p-p)', kind: 'si', unit: 'A', get: (s) => s.summary.operatingPoint?.inductorRipplePp },
+  { group: 'Operating point', key: 'vripple', label: 'Output ripple (p-p)', kind: 'si', unit: 'V', get: (s) => s.summary.operatingPoint?.outputRipplePp },
+  { group: 'Checks', key: 'checks', label: 'Checks (risk / caution / note)', kind: 'text', get: (s) => checkCounts(s.summary) },
+];
+
+const TYPE_LABELS: Record<string, string> = { type1: 'Type I', type2: 'Type II', type3: 'Type III' };
+const typeLabel = (t: string) => TYPE_LABELS[t] ?? t;
+
+function checkCounts(s: RevisionSummary) {
+  const list = s.checks ?? [];
+  const n = (level: string) => list.filter((c) => c.level === level).length;
+  return `${n('risk')} / ${n('caution')} / ${n('note')}`;
+}
+
+/** Equal within a relative 1e-9 (stored numbers round-trip through JSON; margins are computed). */
+export function sameValue(a: number | string | null, b: number | string | null): boolean {
+  if (a === b) return true;
+  if (typeof a === 'number' && typeof b === 'number') return Math.abs(a - b) <= 1e-9 * Math.max(Math.abs(a), Math.abs(b));
+  return false;
+}
+
+/** Every row of the difference table, in display order. */
+export function diffRevisions(a: RevisionSide, b: RevisionSide): DiffRow[] {
+  return SPECS.map(({ get, ...spec }) => {
+    const va = get(a) ?? null;
+    const vb = get(b) ?? null;
+    return { ...spec, a: va, b: vb, changed: !sameValue(va, vb) };
+  }).filter((r) => !(r.a === null && r.b === null)); // parts neither revision uses
+}
+
+export interface MarginDelta {
+  key: 'fc' | 'pm' | 'gm';
+  label: string;
+  a: number | null;
+  b: number | null;
+  /** b − a, or null when either is missing. */
+  delta: number | null;
+}
+
+/** The three margin figures with their change from a to b. */
+export function marginDeltas(a: RevisionSide, b: RevisionSide): MarginDelta[] {
+  const pick = (s: RevisionSide) => s.summary.margins ?? { crossoverHz: null, phaseMarginDeg: null, gainMarginDb: null };
+  const ma = pick(a);
+  const mb = pick(b);
+  const d = (x: number | null, y: number | null) => (x === null || y === null ? null : y - x);
+  return [
+    { key: 'fc', label: 'Crossover fc', a: ma.crossoverHz, b: mb.crossoverHz, delta: d(ma.crossoverHz, mb.crossoverHz) },
+    { key: 'pm', label: 'Phase margin', a: ma.phaseMarginDeg, b: mb.phaseMarginDeg, delta: d(ma.phaseMarginDeg, mb.phaseMarginDeg) },
+    { key: 'gm', label: 'Gain margin', a: ma.gainMarginDb, b: mb.gainMarginDb, delta: d(ma.gainMarginDb, mb.gainMarginDb) },
+  ];
+}
