@@ -20,6 +20,13 @@ export const DEMO_USERS: { email: string; name: string; role: Role }[] = [
   { email: 'viewer@demo.test', name: 'Vic Viewer', role: 'viewer' },
 ];
 
+/** The invented company's three converters, each built on one engine sample. */
+const DEMO_DESIGNS: { sample: string; name: string; description: string }[] = [
+  { sample: 'buck-24v-5v', name: '5 V logic rail — arm controller', description: '24 V bus to 5 V / 3 A, ceramic output' },
+  { sample: 'boost-3v7-12v', name: '12 V sensor supply — handheld probe', description: 'One Li-ion cell to 12 V / 0.5 A' },
+  { sample: 'buck-boost-12v-n12v', name: '−12 V bias — motor current amplifier', description: '12 V to −12 V / 1 A, inverting' },
+];
+
 export function seedDemo(db: Db) {
   db.transaction((tx) => {
     const t = tx as unknown as Db;
@@ -31,19 +38,21 @@ export function seedDemo(db: Db) {
       t.insert(memberships).values({ userId: user.id, teamId: team.id, role: u.role }).onConflictDoNothing().run();
     }
     const existing = new Set(listDesigns(t, team.id).map((d) => d.name));
-    for (const sample of SAMPLE_DESIGNS) {
-      if (existing.has(sample.name)) continue;
+    for (const demo of DEMO_DESIGNS) {
+      if (existing.has(demo.name)) continue;
+      const sample = SAMPLE_DESIGNS.find((s) => s.key === demo.sample);
+      if (!sample) throw new Error(`engine sample ${demo.sample} is missing`);
       const design = createDesign(t, ids.designer, team.id, {
-        name: sample.name,
-        description: sample.description,
-        topology: sample.input.converter.topology,
+        name: demo.name,
+        description: demo.description,
+        topology: sample.request.converter.topology,
       });
       createRevision(t, {
         teamId: team.id,
         designId: design.id,
         baseNumber: null,
-        input: sample.input,
-        summary: summarizeAnalysis(analyze(sample.input)),
+        input: sample.request,
+        summary: summarizeAnalysis(analyze(sample.request)),
         authorId: ids.designer,
         note: 'First pass from the power-stage datasheet values',
       });

@@ -20,9 +20,10 @@ export interface DesignListItem {
 
 /** Designs of one team with their latest revision number and its sign-off state. */
 export function listDesigns(db: Db, teamId: number): DesignListItem[] {
-  const rows = db.$client
-    .prepare(
-      `SELECT d.id, d.name, d.description, d.topology, d.owner_id AS ownerId, u.name AS ownerName,
+  // Written as SQL: two correlated sub-queries read clearer than the builder here.
+  const rows = db.all<
+    Omit<DesignListItem, 'createdAt' | 'updatedAt'> & { createdAt: number; updatedAt: number }
+  >(sql`SELECT d.id, d.name, d.description, d.topology, d.owner_id AS ownerId, u.name AS ownerName,
               d.created_at AS createdAt, d.updated_at AS updatedAt,
               (SELECT MAX(r.number) FROM revisions r WHERE r.design_id = d.id) AS latestRevision,
               (SELECT e.state FROM signoff_events e JOIN revisions r2 ON r2.id = e.revision_id
@@ -30,14 +31,8 @@ export function listDesigns(db: Db, teamId: number): DesignListItem[] {
                    AND r2.number = (SELECT MAX(r3.number) FROM revisions r3 WHERE r3.design_id = d.id)
                  ORDER BY e.id DESC LIMIT 1) AS signoffState
          FROM designs d JOIN users u ON u.id = d.owner_id
-        WHERE d.team_id = ?
-        ORDER BY d.updated_at DESC, d.id DESC`,
-    )
-    .all(teamId) as Array<Omit<DesignListItem, 'createdAt' | 'updatedAt' | 'signoffState'> & {
-    createdAt: number;
-    updatedAt: number;
-    signoffState: SignoffState | null;
-  }>;
+        WHERE d.team_id = ${teamId}
+        ORDER BY d.updated_at DESC, d.id DESC`);
   return rows.map((r) => ({
     ...r,
     // A saved revision with no sign-off event yet is a draft.
