@@ -33,7 +33,7 @@ const v = (x: number): string => String(Number(x.toPrecision(12)));
 /**
  * Build the netlist (a string that `ngspice -b` runs as it is). It prints the DC duty
  * (V(duty)) found by the simulator, then a table of frequency, loop gain in dB (loopdb) and
- * continuous phase in degrees (loopdeg).
+ * continuous phase in degrees (loopdeg), and quits (exit status 0).
  */
 export const buildSpiceNetlist = (req: AnalyzeRequest, options: SpiceNetlistOptions = {}): string => {
   const cv = { ...req.converter, rl: req.converter.rl ?? 0, rc: req.converter.rc ?? 0, vd: req.converter.vd ?? 0 };
@@ -118,6 +118,7 @@ export const buildSpiceNetlist = (req: AnalyzeRequest, options: SpiceNetlistOpti
     'let loopdb = db(loopgain)',
     'let loopdeg = cph(loopgain)*180/pi',
     'print loopdb loopdeg',
+    'quit',
     '.endc',
     '.end',
     '',
