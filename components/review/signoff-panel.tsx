@@ -1,5 +1,6 @@
 'use client';
 
+import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { useState, useTransition } from 'react';
 import { SignoffBadge } from '@/components/designs/signoff-badge';
@@ -27,6 +28,8 @@ export interface SignoffPanelProps {
   may: { submit: boolean; decide: boolean; remark: boolean };
   /** Why deciding is not offered to a reviewer (e.g. they wrote the revision). */
   decideBlockedReason?: string | null;
+  /** Compare with the revision this one was based on, when there is one. */
+  compareWith?: number | null;
 }
 
 const EVENT_WORDS: Record<string, string> = {
@@ -68,6 +71,11 @@ export function SignoffPanel(p: SignoffPanelProps) {
         </h2>
         <SignoffBadge state={p.state} />
         <span className="text-xs text-slate-500">written by {p.authorName}</span>
+        {p.compareWith && (
+          <Link href={`/designs/${p.designId}/compare?a=${p.compareWith}&b=${p.number}`} className="ml-auto text-sm text-indigo-700 hover:underline">
+            What changed since r{p.compareWith} →
+          </Link>
+        )}
       </header>
 
       <div className="grid gap-6 p-4 lg:grid-cols-[1fr_1fr]">
@@ -199,7 +207,7 @@ export function SignoffPanel(p: SignoffPanelProps) {
               }}
             >
               <label className="label" htmlFor="remark">
-                Add a remark on r{p.number}
+                Add a remark
               </label>
               <textarea
                 id="remark"

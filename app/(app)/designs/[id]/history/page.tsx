@@ -79,6 +79,7 @@ export default async function HistoryPage({ params, searchParams }: Props) {
         timeline={timeline}
         reviewers={reviewers}
         may={{ submit: can.editDesigns(user.role), decide: can.review(user.role), remark: can.remark(user.role) }}
+        compareWith={selected.baseNumber ?? (selected.number > 1 ? selected.number - 1 : null)}
         decideBlockedReason={isAuthor ? `You wrote r${selected.number}, so someone else must approve it or request changes.` : null}
       />
     </div>
