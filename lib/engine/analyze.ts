@@ -10,10 +10,10 @@
 import { compensatorTransfer, dividerRb, summarizeCompensator } from './compensator';
 import { loopChecks, partChecks, stageChecks } from './checks';
 import { snapToSeries } from './eseries';
-import { computeMargins, type LoopPointEvaluator, type SampledResponse } from './margins';
+import { computeMargins, computeMarginsFromComplex, type LoopPointEvaluator } from './margins';
 import { buildPlantModel, modulatedPlant, summarizePlant, type PlantModel } from './plant';
-import { defaultSweep, logSweep, makeGrid, sweepTransfer, toTrace, type Grid, type RawResponse } from './sweep';
-import { dbFromMagSq, phaseOffsetDeg, transferPointRaw, type SectionedTransfer } from './transfer';
+import { defaultSweep, logSweep, makeGrid, sweepComplex, sweepTransfer, toTrace, type Grid, type RawResponse } from './sweep';
+import { dbFromMagSq, phaseOffsetDeg, transferPointRaw, transferPolys, type SectionedTransfer } from './transfer';
 import { compensatorIssues, stageIssues } from './validate';
 import {
   EngineInputError,
@@ -51,6 +51,9 @@ export interface PreparedPlant {
   outputImpedance: TransferSummary;
   grid: Grid;
   plantRaw: RawResponse;
+  /** Gvd/Vramp as complex samples on the grid (for margins without per-sample atan2/log). */
+  plantRe: Float64Array;
+  plantIm: Float64Array;
   plantTrace: BodeTrace;
   stageChecks: Check[];
 }
@@ -84,6 +87,8 @@ export const preparePlant = (req: StageRequest): PreparedPlant => {
   const sweep = req.sweep ?? defaultSweep(converter.fsw);
   const grid = makeGrid(logSweep(sweep.fStart, sweep.fStop, sweep.points));
   const plantRaw = sweepTransfer(plantTransfer, grid);
+  const plantPolys = transferPolys(plantTransfer);
+  const plantComplex = sweepComplex(plantPolys.num, plantPolys.den, grid);
   const summaries = summarizePlant(model, converter, vramp);
   return {
     converter,
@@ -96,6 +101,8 @@ export const preparePlant = (req: StageRequest): PreparedPlant => {
     ...summaries,
     grid,
     plantRaw,
+    plantRe: plantComplex.re,
+    plantIm: plantComplex.im,
     plantTrace: toTrace(plantRaw.magDb, plantRaw.phaseRawDeg, phaseOffsetDeg(plantRaw.phaseRawDeg[0])),
     stageChecks: stageChecks(model.operatingPoint),
   };
@@ -130,37 +137,52 @@ export const evaluateLoopGain = (
 const sweepLoop = (prepared: PreparedPlant, comp: SectionedTransfer) => {
   const compRaw = sweepTransfer(comp, prepared.grid);
   const n = prepared.grid.f.length;
-  const magDb = new Float64Array(n);
-  const phaseDeg = new Float64Array(n);
   const pm = prepared.plantRaw.magDb;
   const pp = prepared.plantRaw.phaseRawDeg;
+  const offset = phaseOffsetDeg(pp[0] + compRaw.phaseRawDeg[0]);
+  const magDb: number[] = [];
+  const phaseDeg: number[] = [];
   for (let i = 0; i < n; i++) {
-    magDb[i] = pm[i] + compRaw.magDb[i];
-    phaseDeg[i] = pp[i] + compRaw.phaseRawDeg[i];
+    magDb.push(pm[i] + compRaw.magDb[i]);
+    phaseDeg.push(pp[i] + compRaw.phaseRawDeg[i] + offset);
   }
-  const offset = phaseOffsetDeg(phaseDeg[0]);
-  if (offset !== 0) for (let i = 0; i < n; i++) phaseDeg[i] += offset;
-  const loop: SampledResponse = { f: prepared.grid.f, magDb, phaseDeg };
+  const loop = { f: prepared.grid.f, magDb, phaseDeg };
   return { compRaw, loop, evaluate: evaluateLoopGain(prepared, comp, offset) };
 };
 
-const loopMargins = (prepared: PreparedPlant, comp: CompensatorInput) => {
+const checkCompensator = (comp: CompensatorInput) => {
   const issues = compensatorIssues(comp);
   if (issues.length > 0) throw new EngineInputError(issues);
-  const swept = sweepLoop(prepared, compensatorTransfer(comp));
-  return { ...swept, margins: computeMargins(swept.loop, swept.evaluate) };
 };
 
-/** Loop margins only (no traces): used for the snapped parts and corner sweeps. */
-export const marginsForCompensator = (prepared: PreparedPlant, comp: CompensatorInput): Margins =>
-  loopMargins(prepared, comp).margins;
+/**
+ * Loop margins only, no traces (snapped parts, corner sweeps): the loop is formed from
+ * complex samples, so the grid needs no arctangent or logarithm; crossings are refined on the
+ * analytic loop exactly as in analyzeLoop.
+ */
+export const marginsForCompensator = (prepared: PreparedPlant, comp: CompensatorInput): Margins => {
+  checkCompensator(comp);
+  const gc = compensatorTransfer(comp);
+  const polys = transferPolys(gc);
+  const c = sweepComplex(polys.num, polys.den, prepared.grid);
+  const { plantRe, plantIm } = prepared;
+  const n = plantRe.length;
+  for (let i = 0; i < n; i++) {
+    const re = plantRe[i] * c.re[i] - plantIm[i] * c.im[i];
+    c.im[i] = plantRe[i] * c.im[i] + plantIm[i] * c.re[i];
+    c.re[i] = re;
+  }
+  return computeMarginsFromComplex(prepared.grid.f, c.re, c.im, evaluateLoopGain(prepared, gc));
+};
 
 /**
  * Fast path for the Tune screen: loop, margins, Bode traces and checks for a compensator on
  * an already prepared plant. @throws EngineInputError for impossible compensator parts.
  */
 export const analyzeLoop = (prepared: PreparedPlant, comp: CompensatorInput): LoopResult => {
-  const { compRaw, loop, evaluate, margins } = loopMargins(prepared, comp);
+  checkCompensator(comp);
+  const { compRaw, loop, evaluate } = sweepLoop(prepared, compensatorTransfer(comp));
+  const margins = computeMargins(loop, evaluate);
   const rb = dividerRb(comp.r1, prepared.vref, prepared.converter.vout);
   return {
     compensator: summarizeCompensator(comp),
@@ -168,7 +190,7 @@ export const analyzeLoop = (prepared: PreparedPlant, comp: CompensatorInput): Lo
     phaseAtHalfFswDeg: evaluate(prepared.converter.fsw / 2).phaseDeg,
     bode: {
       f: prepared.grid.f as number[],
-      loop: toTrace(loop.magDb, loop.phaseDeg, 0),
+      loop: { magDb: loop.magDb, phaseDeg: loop.phaseDeg },
       plant: prepared.plantTrace,
       compensator: toTrace(compRaw.magDb, compRaw.phaseRawDeg, phaseOffsetDeg(compRaw.phaseRawDeg[0])),
     },

@@ -31,27 +31,33 @@ const TABLES: Record<ESeriesName, readonly number[]> = {
 /** Mantissas of a series in [1, 10), ascending. */
 export const seriesValues = (series: ESeriesName): readonly number[] => TABLES[series];
 
+/** log10 of each mantissa, with the next decade's 1.0 appended (log 1) for the wrap-around. */
+const LOG_TABLES: Record<ESeriesName, Float64Array> = Object.fromEntries(
+  (Object.keys(TABLES) as ESeriesName[]).map((k) => [k, Float64Array.from([...TABLES[k], 10], Math.log10)]),
+) as Record<ESeriesName, Float64Array>;
+
 /**
- * Nearest preferred value to `value` in log distance |ln(value/candidate)|, across decade
+ * Nearest preferred value to `value` in log distance |log(value/candidate)|, across decade
  * boundaries (e.g. 9.7 snaps to 10 in E12). Non-positive or non-finite input is returned as is.
  */
 export const snapToSeries = (value: number, series: ESeriesName): number => {
   if (!(value > 0) || !Number.isFinite(value)) return value;
   const table = TABLES[series];
-  const decade = Math.floor(Math.log10(value));
-  let best = value;
-  let bestDist = Infinity;
-  for (let e = decade - 1; e <= decade + 1; e++) {
-    const scale = Math.pow(10, e);
-    for (const m of table) {
-      // Round away binary noise such as 4.7·10^-6 = 4.699999…e-6.
-      const cand = Number((m * scale).toPrecision(12));
-      const dist = Math.abs(Math.log(value / cand));
-      if (dist < bestDist) {
-        bestDist = dist;
-        best = cand;
-      }
-    }
+  const logs = LOG_TABLES[series];
+  const x = Math.log10(value);
+  let decade = Math.floor(x);
+  const frac = x - decade; // in [0, 1)
+  // logs is ascending from 0 to 1 (the appended 10): the nearest is one of the two around frac.
+  let hi = 1;
+  while (hi < logs.length - 1 && logs[hi] <= frac) hi++;
+  let idx = frac - logs[hi - 1] <= logs[hi] - frac ? hi - 1 : hi;
+  if (idx === table.length) {
+    idx = 0;
+    decade += 1;
   }
-  return best;
+  // Mantissas have two decimals: scale an exact integer by an exact power of ten, so the
+  // result is the double nearest the decimal value (4.7e-6, not 4.699999…e-6).
+  const hundredths = Math.round(table[idx] * 100);
+  const p = decade - 2;
+  return p >= 0 ? hundredths * Math.pow(10, p) : hundredths / Math.pow(10, -p);
 };

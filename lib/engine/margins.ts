@@ -43,14 +43,15 @@ export const unwrapPhase = (phaseDeg: ArrayLike<number>): number[] => {
 
 /**
  * Root of g on [xa, xb] (g(xa) ≥ 0 > g(xb) or the reverse) by the Illinois variant of
- * regula falsi; x is ln f. Converges superlinearly; stops at |Δx| < 1e-15·|x| or g = 0.
+ * regula falsi; x is ln f. Converges superlinearly; stops at |g| ≤ 1e-12 (dB or degrees)
+ * or when the bracket is down to rounding.
  */
 const refineRoot = (g: (x: number) => number, xa: number, xb: number, ga: number, gb: number): number => {
   let side = 0;
   for (let iter = 0; iter < 100; iter++) {
     const x = (xa * gb - xb * ga) / (gb - ga);
     const gx = g(x);
-    if (gx === 0 || Math.abs(xb - xa) < 1e-15 * Math.max(1, Math.abs(x))) return x;
+    if (Math.abs(gx) <= 1e-12 || Math.abs(xb - xa) < 1e-15 * Math.max(1, Math.abs(x))) return x;
     if (gx >= 0 === ga >= 0) {
       xa = x;
       ga = gx;
@@ -66,6 +67,26 @@ const refineRoot = (g: (x: number) => number, xa: number, xb: number, ga: number
   return (xa * gb - xb * ga) / (gb - ga);
 };
 
+type FoundCrossing = { hz: number; direction: 'down' | 'up' };
+
+/** One crossing of `level` between fa and fb, where y − level is ga at fa and gb at fb. */
+const crossingBetween = (
+  fa: number,
+  fb: number,
+  ga: number,
+  gb: number,
+  level: number,
+  exact?: (hz: number) => number,
+): FoundCrossing => {
+  const xa = Math.log(fa);
+  const xb = Math.log(fb);
+  let x: number;
+  if (ga === 0) x = xa;
+  else if (exact) x = refineRoot((xx) => exact(Math.exp(xx)) - level, xa, xb, ga, gb);
+  else x = xa + ((xb - xa) * ga) / (ga - gb);
+  return { hz: Math.exp(x), direction: ga >= 0 ? 'down' : 'up' };
+};
+
 /**
  * Crossings of a sampled curve y(f) through `level`. A crossing lies between samples i and
  * i+1 when (y_i ≥ level) ≠ (y_{i+1} ≥ level); direction "down" when y falls through it.
@@ -77,19 +98,12 @@ export const findCrossings = (
   y: ArrayLike<number>,
   level: number,
   exact?: (hz: number) => number,
-): { hz: number; direction: 'down' | 'up' }[] => {
-  const out: { hz: number; direction: 'down' | 'up' }[] = [];
+): FoundCrossing[] => {
+  const out: FoundCrossing[] = [];
   for (let i = 0; i + 1 < f.length; i++) {
     const ga = y[i] - level;
     const gb = y[i + 1] - level;
-    if (ga >= 0 === gb >= 0) continue;
-    const xa = Math.log(f[i]);
-    const xb = Math.log(f[i + 1]);
-    let x: number;
-    if (ga === 0) x = xa;
-    else if (exact) x = refineRoot((xx) => exact(Math.exp(xx)) - level, xa, xb, ga, gb);
-    else x = xa + ((xb - xa) * ga) / (ga - gb);
-    out.push({ hz: Math.exp(x), direction: ga >= 0 ? 'down' : 'up' });
+    if (ga >= 0 !== gb >= 0) out.push(crossingBetween(f[i], f[i + 1], ga, gb, level, exact));
   }
   return out;
 };
@@ -110,6 +124,25 @@ export const interpolateLogF = (f: ArrayLike<number>, y: ArrayLike<number>, hz: 
   return y[lo] + t * (y[hi] - y[lo]);
 };
 
+/** Margins from the listed crossings (definitions in the module header). */
+const assembleMargins = (
+  gain: FoundCrossing[],
+  phase: FoundCrossing[],
+  at: (hz: number) => { magDb: number; phaseDeg: number },
+): Margins => {
+  const crossings: Crossing[] = [
+    ...gain.map((c) => ({ kind: 'gain' as const, ...c })),
+    ...phase.map((c) => ({ kind: 'phase' as const, ...c })),
+  ].sort((a, b) => a.hz - b.hz);
+  let crossoverHz: number | null = null;
+  for (const c of gain) if (c.direction === 'down' && (crossoverHz === null || c.hz > crossoverHz)) crossoverHz = c.hz;
+  const phaseMarginDeg = crossoverHz === null ? null : 180 + at(crossoverHz).phaseDeg;
+  const gmCrossing = phase.find((c) => c.direction === 'down' && (crossoverHz === null || c.hz > crossoverHz));
+  const phaseCrossoverHz = gmCrossing ? gmCrossing.hz : null;
+  const gainMarginDb = phaseCrossoverHz === null ? null : -at(phaseCrossoverHz).magDb;
+  return { crossoverHz, phaseMarginDeg, gainMarginDb, phaseCrossoverHz, crossings };
+};
+
 /**
  * Margins of a loop from its sampled response (see the module header for the definitions).
  * @param sampled the sweep (phase already continuous, starting at its principal value)
@@ -120,19 +153,38 @@ export const computeMargins = (sampled: SampledResponse, evaluate?: LoopPointEva
   const { f, magDb, phaseDeg } = sampled;
   const gain = findCrossings(f, magDb, 0, evaluate && ((hz) => evaluate(hz).magDb));
   const phase = findCrossings(f, phaseDeg, -180, evaluate && ((hz) => evaluate(hz).phaseDeg));
-  const crossings: Crossing[] = [
-    ...gain.map((c) => ({ kind: 'gain' as const, ...c })),
-    ...phase.map((c) => ({ kind: 'phase' as const, ...c })),
-  ].sort((a, b) => a.hz - b.hz);
-
-  const downs = gain.filter((c) => c.direction === 'down');
-  const crossoverHz = downs.length > 0 ? downs[downs.length - 1].hz : null;
   const at = (hz: number) =>
     evaluate ? evaluate(hz) : { magDb: interpolateLogF(f, magDb, hz), phaseDeg: interpolateLogF(f, phaseDeg, hz) };
+  return assembleMargins(gain, phase, at);
+};
 
-  const phaseMarginDeg = crossoverHz === null ? null : 180 + at(crossoverHz).phaseDeg;
-  const gmCrossing = phase.find((c) => c.direction === 'down' && (crossoverHz === null || c.hz > crossoverHz));
-  const phaseCrossoverHz = gmCrossing ? gmCrossing.hz : null;
-  const gainMarginDb = phaseCrossoverHz === null ? null : -at(phaseCrossoverHz).magDb;
-  return { crossoverHz, phaseMarginDeg, gainMarginDb, phaseCrossoverHz, crossings };
+/**
+ * The same margins from complex samples T(j2πf) = re + j·im, without a logarithm or an
+ * arctangent per sample: gain crossings where |T|² passes 1, candidate phase crossings where
+ * Im T changes sign (T passes the real axis); each candidate is kept when the continuous
+ * phase of `evaluate` passes −180° between its two samples. Crossings are then refined on
+ * `evaluate` as in {@link computeMargins}, so both give the same result on the same grid.
+ */
+export const computeMarginsFromComplex = (
+  f: ArrayLike<number>,
+  re: ArrayLike<number>,
+  im: ArrayLike<number>,
+  evaluate: LoopPointEvaluator,
+): Margins => {
+  const gain: FoundCrossing[] = [];
+  const phase: FoundCrossing[] = [];
+  const magOf = (hz: number) => evaluate(hz).magDb;
+  const phaseOf = (hz: number) => evaluate(hz).phaseDeg;
+  let m0 = re[0] * re[0] + im[0] * im[0];
+  for (let i = 0; i + 1 < f.length; i++) {
+    const m1 = re[i + 1] * re[i + 1] + im[i + 1] * im[i + 1];
+    if (m0 >= 1 !== m1 >= 1) gain.push(crossingBetween(f[i], f[i + 1], 10 * Math.log10(m0), 10 * Math.log10(m1), 0, magOf));
+    if (im[i] >= 0 !== im[i + 1] >= 0) {
+      const pa = phaseOf(f[i]) + 180;
+      const pb = phaseOf(f[i + 1]) + 180;
+      if (pa >= 0 !== pb >= 0) phase.push(crossingBetween(f[i], f[i + 1], pa, pb, -180, phaseOf));
+    }
+    m0 = m1;
+  }
+  return assembleMargins(gain, phase, evaluate);
 };

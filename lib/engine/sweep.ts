@@ -17,13 +17,18 @@ const DB_PER_LOG10_MAGSQ = 10;
 /** Default sweep: 10 Hz to fsw/2, 400 points, logarithmic. */
 export const defaultSweep = (fsw: number): SweepOptions => ({ fStart: 10, fStop: fsw / 2, points: 400 });
 
-/** `points` frequencies from fStart to fStop inclusive, equally spaced in log f, Hz. */
+/**
+ * `points` frequencies from fStart to fStop inclusive, equally spaced in log f, Hz:
+ * f_i = fStart·r^i with r = (fStop/fStart)^(1/(n−1)); the end points are exact.
+ */
 export const logSweep = (fStart: number, fStop: number, points: number): number[] => {
   const n = Math.max(2, Math.round(points));
   const a = Math.log(fStart);
   const step = (Math.log(fStop) - a) / (n - 1);
-  const f = new Array<number>(n);
-  for (let i = 0; i < n; i++) f[i] = Math.exp(a + step * i);
+  const r = Math.exp(step);
+  const f: number[] = [];
+  // Re-anchor with exp every 64 points so rounding of the running product cannot drift.
+  for (let i = 0; i < n; i++) f.push(i % 64 === 0 ? Math.exp(a + step * i) : f[i - 1] * r);
   f[0] = fStart;
   f[n - 1] = fStop;
   return f;
@@ -53,8 +58,29 @@ export const makeGrid = (f: readonly number[]): Grid => {
 };
 
 /**
- * Evaluate a sectioned transfer on a grid (hot path).
- * magDb = 10·log10(gain²·ω^(2n)·Π|num|²/Π|den|²); phaseRaw = Σ section angles + 90°·n (+180° for a negative gain).
+ * Phase plan of a transfer: terms N_k/D_k, each a numerator and a denominator section
+ * (either may be the constant 1), stored flat as [n1, n2, d1, d2] per term. One atan2 of
+ * N·conj(D) per term gives ∠N − ∠D exactly when both angles lie on the same side: a numerator
+ * with a1 > 0 (angle in (0°, 180°)) pairs with a denominator with a1 ≥ 0 ([0°, 180°]), and
+ * a1 < 0 with a1 < 0; the difference then stays inside (−180°, 180°), so the principal value
+ * is the continuous one. Unpaired sections form terms of their own.
+ */
+const phasePlan = (h: SectionedTransfer): Float64Array => {
+  const coef = (p: readonly number[] | undefined): [number, number] => (p ? [p[1] ?? 0, p[2] ?? 0] : [0, 0]);
+  const dens = [...h.den];
+  const terms: number[] = [];
+  for (const n of h.num) {
+    const k = dens.findIndex((d) => (n[1] > 0 && d[1] >= 0) || (n[1] < 0 && d[1] < 0));
+    const d = k >= 0 ? dens.splice(k, 1)[0] : undefined;
+    terms.push(...coef(n), ...coef(d));
+  }
+  for (const d of dens) terms.push(0, 0, ...coef(d));
+  return Float64Array.from(terms);
+};
+
+/**
+ * Evaluate a sectioned transfer on a grid (hot path, plain numbers, one atan2 per term).
+ * magDb = 10·log10(gain²·ω^(2n)·Π|num|²/Π|den|²); phaseRaw = Σ term angles + 90°·n (+180° for a negative gain).
  */
 export const sweepTransfer = (h: SectionedTransfer, grid: Grid, out?: RawResponse): RawResponse => {
   const n = grid.f.length;
@@ -63,8 +89,8 @@ export const sweepTransfer = (h: SectionedTransfer, grid: Grid, out?: RawRespons
   const g2 = h.gain * h.gain;
   const ph0 = (h.gain < 0 ? Math.PI : 0) + (h.originOrder * Math.PI) / 2;
   const order = h.originOrder;
-  const num = h.num;
-  const den = h.den;
+  const plan = phasePlan(h);
+  const nt = plan.length;
   const { w, w2 } = grid;
   for (let i = 0; i < n; i++) {
     const wi = w[i];
@@ -73,24 +99,48 @@ export const sweepTransfer = (h: SectionedTransfer, grid: Grid, out?: RawRespons
     if (order === -1) m /= wi2;
     else if (order !== 0) m *= Math.pow(wi2, order);
     let ph = ph0;
-    for (let k = 0; k < num.length; k++) {
-      const p = num[k];
-      const re = p.length > 2 ? 1 - p[2] * wi2 : 1;
-      const im = p[1] * wi;
-      m *= re * re + im * im;
-      ph += Math.atan2(im, re);
-    }
-    for (let k = 0; k < den.length; k++) {
-      const p = den[k];
-      const re = p.length > 2 ? 1 - p[2] * wi2 : 1;
-      const im = p[1] * wi;
-      m /= re * re + im * im;
-      ph -= Math.atan2(im, re);
+    for (let k = 0; k < nt; k += 4) {
+      const nre = 1 - plan[k + 1] * wi2;
+      const nim = plan[k] * wi;
+      const dre = 1 - plan[k + 3] * wi2;
+      const dim = plan[k + 2] * wi;
+      m *= (nre * nre + nim * nim) / (dre * dre + dim * dim);
+      // ∠(N·conj(D)) = ∠N − ∠D
+      ph += Math.atan2(nim * dre - nre * dim, nre * dre + nim * dim);
     }
     magDb[i] = DB_PER_LOG10_MAGSQ * Math.log10(m);
     phaseRawDeg[i] = ph * RAD2DEG;
   }
   return { magDb, phaseRawDeg };
+};
+
+/** Complex response on a grid: re and im of N(jω)/D(jω) for ascending polynomials (Horner). */
+export const sweepComplex = (num: readonly number[], den: readonly number[], grid: Grid): { re: Float64Array; im: Float64Array } => {
+  const n = grid.f.length;
+  const re = new Float64Array(n);
+  const im = new Float64Array(n);
+  const { w } = grid;
+  for (let i = 0; i < n; i++) {
+    const wi = w[i];
+    let nr = 0;
+    let ni = 0;
+    for (let k = num.length - 1; k >= 0; k--) {
+      const t = -ni * wi + num[k];
+      ni = nr * wi;
+      nr = t;
+    }
+    let dr = 0;
+    let di = 0;
+    for (let k = den.length - 1; k >= 0; k--) {
+      const t = -di * wi + den[k];
+      di = dr * wi;
+      dr = t;
+    }
+    const d2 = dr * dr + di * di;
+    re[i] = (nr * dr + ni * di) / d2;
+    im[i] = (ni * dr - nr * di) / d2;
+  }
+  return { re, im };
 };
 
 /** Bode trace (plain arrays, as the API returns them) with the phase shifted by `offsetDeg`. */

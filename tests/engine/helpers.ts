@@ -28,7 +28,9 @@ export const expectPrinted = (actual: number, printed: string, unit = 1, what = 
 };
 
 /** A plain request for tests; override any part. */
-export const makeRequest = (over: Partial<AnalyzeRequest> & { converter?: Partial<AnalyzeRequest['converter']> } = {}): AnalyzeRequest => ({
+export type RequestOverrides = Partial<Omit<AnalyzeRequest, 'converter'>> & { converter?: Partial<AnalyzeRequest['converter']> };
+
+export const makeRequest = (over: RequestOverrides = {}): AnalyzeRequest => ({
   modulator: { vramp: 1 },
   feedback: { vref: 0.8 },
   compensator: { type: 'type2', r1: 10e3, r2: 20e3, c1: 10e-9, c2: 100e-12 },

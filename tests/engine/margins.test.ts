@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { computeMargins, findCrossings, unwrapPhase } from '@/lib/engine/margins';
+import { computeMargins, computeMarginsFromComplex, findCrossings, unwrapPhase } from '@/lib/engine/margins';
 import { loopChecks } from '@/lib/engine/checks';
-import { logSweep, transferResponse } from '@/lib/engine/sweep';
-import { multiplyTransfers, transferFromPolys, type SectionedTransfer } from '@/lib/engine/transfer';
+import { logSweep, makeGrid, sweepComplex, transferResponse } from '@/lib/engine/sweep';
+import { multiplyTransfers, transferFromPolys, transferPolys, type SectionedTransfer } from '@/lib/engine/transfer';
 import { expectAbs, expectRel } from './helpers';
 
 const TWO_PI = 2 * Math.PI;
@@ -76,6 +76,24 @@ describe('invariants', () => {
     expectAbs(sampled.phaseMarginDeg, refined.phaseMarginDeg!, 0.01);
     if (refined.gainMarginDb !== null) expectAbs(sampled.gainMarginDb, refined.gainMarginDb, 0.01);
     expect(sampled.crossings.map((c) => c.kind + c.direction)).toEqual(refined.crossings.map((c) => c.kind + c.direction));
+  });
+
+  it.each([
+    ...loops,
+    ['conditionally stable', multiplyTransfers(integrator(800e3), resonance(100, 5), zero(1e3), zero(1e3), pole(50e3), pole(50e3))],
+    ['resonant re-crossing', multiplyTransfers(integrator(1e3), zero(2e3), resonance(5e3, 20))],
+  ] as [string, SectionedTransfer][])('%s: margins from complex samples equal margins from dB/phase samples', (_, h) => {
+    const f = logSweep(1, 1e6, 400);
+    const { margins, evaluate } = marginsOf(h);
+    const { num, den } = transferPolys(h);
+    const c = sweepComplex(num, den, makeGrid(f));
+    const fast = computeMarginsFromComplex(f, c.re, c.im, evaluate);
+    expect(fast.crossings.map((x) => x.kind + x.direction)).toEqual(margins.crossings.map((x) => x.kind + x.direction));
+    fast.crossings.forEach((x, i) => expectRel(x.hz, margins.crossings[i].hz, 1e-12));
+    expectRel(fast.crossoverHz, margins.crossoverHz!, 1e-12);
+    expectAbs(fast.phaseMarginDeg, margins.phaseMarginDeg!, 1e-9);
+    if (margins.gainMarginDb === null) expect(fast.gainMarginDb).toBeNull();
+    else expectAbs(fast.gainMarginDb, margins.gainMarginDb, 1e-9);
   });
 
   it('the phase of the sweep starts at its principal value (integrator: −90°)', () => {
