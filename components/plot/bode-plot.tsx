@@ -1,0 +1,97 @@
+'use client';
+
+/**
+ * Bode plot: magnitude (top) and phase (bottom) stacked on one logarithmic
+ * frequency axis, drawn by Plotly. Reusable by Tune, Compare and Handoff.
+ *
+ * Props
+ * - `f`: the frequencies (Hz) the series are sampled at.
+ * - `series`: curves { id, name, color, f?, magDb, phaseDeg, dash?, width?, visible? };
+ *   `f` defaults to the plot's `f`. Compare passes two loops (the second e.g.
+ *   with dash: 'dash'); Tune passes loop, plant and compensator.
+ * - `bench`: measured response(s) { f, gainDb, phaseDeg, name? } drawn as grey
+ *   dots on both panels (Bench data).
+ * - `markers`: poles/zeros marked on the magnitude panel, not draggable:
+ *   { id, hz, magDb, kind: 'pole' | 'zero', label, color } (pole ✕, zero ○).
+ * - `margins`: one or several loops' margins { crossoverHz, phaseMarginDeg,
+ *   phaseCrossoverHz, gainMarginDb, color?, label? }: fc on both panels, the
+ *   phase margin as a bar from −180° up to the phase at fc, the gain margin
+ *   as a bar at the −180° crossing.
+ * - `extraTraces`: raw Plotly traces appended as given (xaxis 'x' / yaxis 'y'
+ *   for magnitude, 'x2' / 'y2' for phase).
+ * - `freezeRanges`: keep the current axis ranges (Tune sets it while a handle
+ *   is dragged so the plot does not jump under the pointer).
+ * - `overlay(geometry)`: rendered above the plot with a PlotGeometry mapping
+ *   Hz/dB/degrees ↔ pixels (the Tune handles use it).
+ * - `showLegend` (default true), `height` (px, default 460).
+ *
+ * 0 dB and −180° guides are always drawn. Phase has its own panel, so curves
+ * are solid unless a series asks for a dash.
+ */
+import { useMemo, useRef, useState } from 'react';
+import { PlotlyChart } from './plotly-chart';
+import { computeGeometry, type PlotGeometry, type Ranges } from './geometry';
+import {
+  buildBodeLayout,
+  buildBodeTraces,
+  computeRanges,
+  type BenchOverlay,
+  type BodeSeries,
+  type MarginMarks,
+  type PlotMarker,
+} from './bode-traces';
+import type { Data } from 'plotly.js-dist-min';
+
+export type { PlotGeometry } from './geometry';
+export type { BenchOverlay, BodeSeries, MarginMarks, PlotMarker } from './bode-traces';
+export { BENCH_GREY } from './bode-traces';
+
+export interface BodePlotProps {
+  f: number[];
+  series: BodeSeries[];
+  bench?: BenchOverlay | BenchOverlay[];
+  markers?: PlotMarker[];
+  margins?: MarginMarks | MarginMarks[];
+  extraTraces?: Data[];
+  freezeRanges?: boolean;
+  overlay?: (geometry: PlotGeometry) => React.ReactNode;
+  showLegend?: boolean;
+  height?: number;
+  className?: string;
+  'aria-label'?: string;
+}
+
+const asList = <T,>(v: T | T[] | undefined): T[] | undefined => (v === undefined ? undefined : Array.isArray(v) ? v : [v]);
+
+export function BodePlot(props: BodePlotProps) {
+  const { f, series, markers, extraTraces, freezeRanges = false, overlay, showLegend = true, height = 460, className } = props;
+  const bench = useMemo(() => asList(props.bench), [props.bench]);
+  const margins = useMemo(() => asList(props.margins), [props.margins]);
+  const [width, setWidth] = useState(0);
+  const frozen = useRef<Ranges | null>(null);
+
+  const fresh = useMemo(() => computeRanges({ f, series, bench }), [f, series, bench]);
+  if (!freezeRanges || !frozen.current) frozen.current = fresh;
+  const ranges = frozen.current;
+
+  const data = useMemo(
+    () => buildBodeTraces({ f, series, bench, markers, margins, extraTraces }, ranges),
+    [f, series, bench, markers, margins, extraTraces, ranges],
+  );
+  const layout = useMemo(() => buildBodeLayout(ranges, height, showLegend), [ranges, height, showLegend]);
+  const geometry = useMemo(() => computeGeometry(width, height, ranges), [width, height, ranges]);
+
+  return (
+    <PlotlyChart
+      data={data}
+      layout={layout}
+      className={className}
+      onSize={(s) => setWidth(s.width)}
+      data-testid="bode-plot"
+      aria-label={props['aria-label'] ?? 'Bode plot'}
+    >
+      <div style={{ height }} />
+      {overlay && width > 0 && overlay(geometry)}
+    </PlotlyChart>
+  );
+}

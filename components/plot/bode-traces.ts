@@ -1,0 +1,255 @@
+/**
+ * Plotly traces and layout of the Bode plot, as pure functions of the data
+ * (no React, no Plotly import), so the drag benchmark can time them too.
+ * See bode-plot.tsx for what each prop means.
+ */
+import type { Data, Layout } from 'plotly.js-dist-min';
+import { MAG_DOMAIN, PHASE_DOMAIN, PLOT_MARGIN, type Ranges } from './geometry';
+
+export interface BodeSeries {
+  id: string;
+  name: string;
+  color: string;
+  f?: number[];
+  magDb: number[];
+  phaseDeg: number[];
+  dash?: 'solid' | 'dash' | 'dot' | 'dashdot';
+  width?: number;
+  visible?: boolean;
+}
+
+export interface BenchOverlay {
+  f: number[];
+  gainDb: number[];
+  phaseDeg: number[];
+  name?: string;
+}
+
+export interface PlotMarker {
+  id: string;
+  hz: number;
+  magDb: number;
+  kind: 'pole' | 'zero';
+  label: string;
+  color: string;
+}
+
+export interface MarginMarks {
+  crossoverHz: number | null;
+  phaseMarginDeg: number | null;
+  phaseCrossoverHz: number | null;
+  gainMarginDb: number | null;
+  color?: string;
+  /** Prefix for the labels when several loops are shown ("r3 "). */
+  label?: string;
+}
+
+export interface BodeContent {
+  f: number[];
+  series: BodeSeries[];
+  bench?: BenchOverlay[];
+  markers?: PlotMarker[];
+  margins?: MarginMarks[];
+  extraTraces?: Data[];
+}
+
+export const BENCH_GREY = '#6b7280';
+const GUIDE = '#94a3b8';
+const GRID = '#e2e8f0';
+
+function niceRange(values: Iterable<number>, step: number, pad: number, fallback: [number, number], must: number): [number, number] {
+  let lo = must;
+  let hi = must;
+  let any = false;
+  for (const v of values) {
+    if (!Number.isFinite(v)) continue;
+    any = true;
+    if (v < lo) lo = v;
+    if (v > hi) hi = v;
+  }
+  if (!any) return fallback;
+  return [Math.floor((lo - pad) / step) * step, Math.ceil((hi + pad) / step) * step];
+}
+
+function* each(arrays: number[][], clampLo = -Infinity, clampHi = Infinity) {
+  for (const a of arrays) for (const v of a) yield Math.max(clampLo, Math.min(clampHi, v));
+}
+
+/** Axis ranges that hold every visible curve: x in log10(Hz), magnitude in 20 dB steps, phase in 45° steps. */
+export function computeRanges({ f, series, bench = [] }: BodeContent): Ranges {
+  const shown = series.filter((s) => s.visible !== false);
+  const fs = [...(shown.length ? [f] : []), ...shown.filter((s) => s.f).map((s) => s.f!), ...bench.map((b) => b.f)];
+  let fMin = Infinity;
+  let fMax = -Infinity;
+  for (const v of each(fs)) {
+    if (v > 0 && v < fMin) fMin = v;
+    if (v > fMax) fMax = v;
+  }
+  if (!Number.isFinite(fMin) || !(fMax > fMin)) [fMin, fMax] = [10, 1e6];
+  return {
+    x: [Math.log10(fMin), Math.log10(fMax)],
+    mag: niceRange(each([...shown.map((s) => s.magDb), ...bench.map((b) => b.gainDb)], -120, 160), 20, 4, [-60, 60], 0),
+    phase: niceRange(each([...shown.map((s) => s.phaseDeg), ...bench.map((b) => b.phaseDeg)]), 45, 4, [-270, 90], -180),
+  };
+}
+
+const fmtHz = (hz: number) => {
+  const units: [number, string][] = [
+    [1e6, 'MHz'],
+    [1e3, 'kHz'],
+    [1, 'Hz'],
+  ];
+  const [k, u] = units.find(([k]) => hz >= k) ?? [1, 'Hz'];
+  return `${Number((hz / k).toPrecision(3))} ${u}`;
+};
+
+function line(x: number[], y: number[], xaxis: string, yaxis: string, color: string, width: number, dash: 'dash' | 'dot'): Data {
+  return { type: 'scatter', mode: 'lines', x, y, xaxis, yaxis, showlegend: false, hoverinfo: 'skip', line: { color, width, dash } };
+}
+
+function marginTraces(m: MarginMarks, r: Ranges): Data[] {
+  const color = m.color ?? '#4f46e5';
+  const pre = m.label ? `${m.label} ` : '';
+  const out: Data[] = [];
+  if (m.crossoverHz !== null) {
+    const fc = m.crossoverHz;
+    out.push(line([fc, fc], r.mag, 'x', 'y', color, 1, 'dot'), line([fc, fc], r.phase, 'x2', 'y2', color, 1, 'dot'), {
+      type: 'scatter',
+      mode: 'text+markers',
+      x: [fc],
+      y: [0],
+      xaxis: 'x',
+      yaxis: 'y',
+      showlegend: false,
+      marker: { size: 7, color },
+      text: [`${pre}fc ${fmtHz(fc)}`],
+      textposition: 'bottom right',
+      textfont: { size: 11, color },
+      hovertemplate: `${pre}crossover fc %{x:.3s}Hz<extra></extra>`,
+    });
+    if (m.phaseMarginDeg !== null) {
+      out.push({
+        type: 'scatter',
+        mode: 'text+lines',
+        x: [fc, fc],
+        y: [-180, m.phaseMarginDeg - 180],
+        xaxis: 'x2',
+        yaxis: 'y2',
+        showlegend: false,
+        line: { color, width: 3 },
+        text: ['', `${pre}PM ${m.phaseMarginDeg.toFixed(1)}°`],
+        textposition: 'top right',
+        textfont: { size: 11, color },
+        hovertemplate: `${pre}phase margin ${m.phaseMarginDeg.toFixed(1)}°<extra></extra>`,
+      });
+    }
+  }
+  if (m.phaseCrossoverHz !== null && m.gainMarginDb !== null) {
+    const f180 = m.phaseCrossoverHz;
+    out.push({
+      type: 'scatter',
+      mode: 'text+lines',
+      x: [f180, f180],
+      y: [0, -m.gainMarginDb],
+      xaxis: 'x',
+      yaxis: 'y',
+      showlegend: false,
+      line: { color, width: 3 },
+      text: ['', `${pre}GM ${m.gainMarginDb.toFixed(1)} dB`],
+      textposition: 'bottom right',
+      textfont: { size: 11, color },
+      hovertemplate: `${pre}gain margin ${m.gainMarginDb.toFixed(1)} dB<extra></extra>`,
+    });
+  }
+  return out;
+}
+
+/** Every Plotly trace of the plot: guides, curves (magnitude on x/y, phase on x2/y2), bench dots, margins, markers. */
+export function buildBodeTraces(c: BodeContent, r: Ranges): Data[] {
+  const fLo = 10 ** r.x[0];
+  const fHi = 10 ** r.x[1];
+  // Guides first, so the curves draw over them.
+  const out: Data[] = [line([fLo, fHi], [0, 0], 'x', 'y', GUIDE, 1, 'dash'), line([fLo, fHi], [-180, -180], 'x2', 'y2', GUIDE, 1, 'dash')];
+  for (const s of c.series) {
+    const common = { type: 'scatter' as const, mode: 'lines' as const, x: s.f ?? c.f, legendgroup: s.id, visible: s.visible !== false };
+    const style = { color: s.color, width: s.width ?? 2, dash: s.dash ?? 'solid' };
+    out.push(
+      { ...common, name: s.name, y: s.magDb, xaxis: 'x', yaxis: 'y', line: style, hovertemplate: `${s.name}<br>%{x:.3s}Hz · %{y:.1f} dB<extra></extra>` },
+      {
+        ...common,
+        name: `${s.name} phase`,
+        showlegend: false,
+        y: s.phaseDeg,
+        xaxis: 'x2',
+        yaxis: 'y2',
+        line: style,
+        hovertemplate: `${s.name} phase<br>%{x:.3s}Hz · %{y:.1f}°<extra></extra>`,
+      },
+    );
+  }
+  (c.bench ?? []).forEach((b, i, all) => {
+    const name = b.name ?? (all.length > 1 ? `Bench data ${i + 1}` : 'Bench data');
+    const marker = { color: BENCH_GREY, size: 5, opacity: 0.85 };
+    const dots = { type: 'scatter' as const, mode: 'markers' as const, name, legendgroup: `bench-${i}`, x: b.f, marker };
+    out.push(
+      { ...dots, y: b.gainDb, xaxis: 'x', yaxis: 'y', hovertemplate: `${name}<br>%{x:.3s}Hz · %{y:.1f} dB<extra></extra>` },
+      { ...dots, showlegend: false, y: b.phaseDeg, xaxis: 'x2', yaxis: 'y2', hovertemplate: `${name}<br>%{x:.3s}Hz · %{y:.1f}°<extra></extra>` },
+    );
+  });
+  for (const m of c.margins ?? []) out.push(...marginTraces(m, r));
+  for (const m of c.markers ?? []) {
+    out.push({
+      type: 'scatter',
+      mode: 'text+markers',
+      showlegend: false,
+      x: [m.hz],
+      y: [m.magDb],
+      xaxis: 'x',
+      yaxis: 'y',
+      text: [m.label],
+      textposition: 'top center',
+      textfont: { color: m.color, size: 11 },
+      marker: { symbol: m.kind === 'pole' ? 'x-thin-open' : 'circle-open', size: 12, color: m.color, line: { color: m.color, width: 2 } },
+      hovertemplate: `${m.label}<br>%{x:.3s}Hz<extra></extra>`,
+    });
+  }
+  out.push(...(c.extraTraces ?? []));
+  return out;
+}
+
+/** Two stacked panels on one log frequency axis; fixed margins so overlays can map pixels (geometry.ts). */
+export function buildBodeLayout(r: Ranges, height: number, showLegend: boolean): Partial<Layout> {
+  const axis = { gridcolor: GRID, fixedrange: true, automargin: false, zeroline: false };
+  return {
+    height,
+    margin: { ...PLOT_MARGIN, pad: 0 },
+    paper_bgcolor: '#ffffff',
+    plot_bgcolor: '#ffffff',
+    font: { family: 'Inter Variable, system-ui, sans-serif', size: 12, color: '#334155' },
+    showlegend: showLegend,
+    legend: { orientation: 'h', x: 0, y: 1, yanchor: 'bottom', font: { size: 11 }, itemclick: false, itemdoubleclick: false },
+    hovermode: 'closest',
+    dragmode: false,
+    xaxis: { ...axis, type: 'log', range: r.x, domain: [0, 1], anchor: 'y', showticklabels: false },
+    xaxis2: {
+      ...axis,
+      type: 'log',
+      range: r.x,
+      domain: [0, 1],
+      anchor: 'y2',
+      matches: 'x',
+      exponentformat: 'SI',
+      ticksuffix: 'Hz',
+      title: { text: 'Frequency', standoff: 2, font: { size: 11 } },
+    },
+    yaxis: { ...axis, domain: MAG_DOMAIN, range: r.mag, dtick: r.mag[1] - r.mag[0] > 160 ? 40 : 20, ticksuffix: ' dB', title: { text: 'Magnitude', font: { size: 11 } } },
+    yaxis2: {
+      ...axis,
+      domain: PHASE_DOMAIN,
+      range: r.phase,
+      dtick: r.phase[1] - r.phase[0] > 360 ? 90 : 45,
+      ticksuffix: '°',
+      title: { text: 'Phase', font: { size: 11 } },
+    },
+  };
+}

@@ -1,0 +1,152 @@
+'use client';
+
+import { useState } from 'react';
+import type { CompensatorShape, CompensatorType } from '@/lib/engine/types';
+import { formatSi } from '@/lib/units/si';
+import type { HandleMove } from './handle-overlay';
+import { shiftGain, type HandleSpec } from './handles';
+import { parseSiField, toSiText } from './si-schema';
+import { ValueCell } from './value-cell';
+
+const TYPE_NAMES: Record<CompensatorType, string> = {
+  type1: 'Type I (integrator)',
+  type2: 'Type II (one zero, one pole)',
+  type3: 'Type III (two zeros, two poles)',
+};
+
+const GLYPH: Record<HandleSpec['kind'], string> = { zero: '○', pole: '✕', gain: '◆' };
+
+const STEP_DECADE = 1 / 48;
+const STEP_DECADE_BIG = 1 / 8;
+
+interface Props {
+  shape: CompensatorShape;
+  handles: HandleSpec[];
+  midbandGainDb: number | null;
+  readOnly: boolean;
+  /** Apply a new shape; returns the reason it cannot be built, or null. */
+  onShape: (shape: CompensatorShape) => string | null;
+  onStep: (id: string, move: HandleMove) => void;
+  onTypeChange: (type: CompensatorType) => string | null;
+}
+
+/** The handles as numbers: type, gain, each zero and pole, and R1, editable by keyboard. */
+export function CompensatorTable({ shape, handles, midbandGainDb, readOnly, onShape, onStep, onTypeChange }: Props) {
+  const [typeError, setTypeError] = useState<string | null>(null);
+  const hzStep = (id: string, hz: number) => (sign: 1 | -1, big: boolean) => onStep(id, { hz: hz * 10 ** (sign * (big ? STEP_DECADE_BIG : STEP_DECADE)) });
+
+  const setHz = (h: HandleSpec) => (text: string) => {
+    const r = parseSiField(text, `${h.label} frequency`, 'Hz');
+    if ('error' in r) return r.error;
+    const i = Number(h.id.slice(1));
+    const next = h.kind === 'zero' ? { ...shape, zerosHz: shape.zerosHz.map((v, k) => (k === i ? r.value : v)) } : { ...shape, polesHz: shape.polesHz.map((v, k) => (k === i ? r.value : v)) };
+    return onShape(next);
+  };
+
+  const setGainDb = (text: string) => {
+    const v = Number(text.replace(/\s*dB$/i, '').replace('−', '-'));
+    if (!Number.isFinite(v) || text.trim() === '') return `Mid-band gain: "${text}" is not a number of dB`;
+    return onShape(shiftGain(shape, v - (midbandGainDb ?? 0)));
+  };
+
+  const setIntegrator = (text: string) => {
+    const r = parseSiField(text, 'Integrator 0 dB frequency', 'Hz');
+    return 'error' in r ? r.error : onShape({ ...shape, integratorHz: r.value });
+  };
+
+  const setR1 = (text: string) => {
+    const r = parseSiField(text, 'R1', 'Ω');
+    return 'error' in r ? r.error : onShape({ ...shape, r1: r.value });
+  };
+
+  return (
+    <div className="space-y-3">
+      <label className="block">
+        <span className="label">Compensator</span>
+        <select
+          className="input"
+          value={shape.type}
+          disabled={readOnly}
+          data-testid="compensator-type"
+          onChange={(e) => setTypeError(onTypeChange(e.target.value as CompensatorType))}
+        >
+          {(Object.keys(TYPE_NAMES) as CompensatorType[]).map((t) => (
+            <option key={t} value={t}>
+              {TYPE_NAMES[t]}
+            </option>
+          ))}
+        </select>
+        {typeError && (
+          <p className="field-error" role="alert">
+            {typeError}
+          </p>
+        )}
+      </label>
+      <table className="table-base" data-testid="handle-table">
+        <thead>
+          <tr>
+            <th>Handle</th>
+            <th>Sets</th>
+            <th className="text-right">Value</th>
+          </tr>
+        </thead>
+        <tbody>
+          {handles.map((h) => (
+            <tr key={h.id} data-row={h.id}>
+              <td className="whitespace-nowrap">
+                <span className="mr-1.5 inline-block w-4 text-center font-semibold text-amber-600" aria-hidden>
+                  {GLYPH[h.kind]}
+                </span>
+                {h.kind === 'gain' ? (midbandGainDb === null ? 'Integrator 0 dB' : 'Mid-band gain') : h.label}
+              </td>
+              <td className="text-xs text-slate-500">{h.parts}</td>
+              <td className="flex justify-end">
+                {h.kind === 'gain' && midbandGainDb !== null ? (
+                  <ValueCell
+                    label="Mid-band gain in dB"
+                    display={`${midbandGainDb.toFixed(2)} dB`}
+                    editText={midbandGainDb.toFixed(2)}
+                    disabled={readOnly}
+                    onCommit={setGainDb}
+                    onStep={(sign, big) => onStep('gain', { deltaDb: sign * (big ? 3 : 0.5) })}
+                    testId="value-gain"
+                  />
+                ) : h.kind === 'gain' ? (
+                  <ValueCell
+                    label="Integrator 0 dB frequency in Hz"
+                    display={formatSi(shape.integratorHz, 'Hz', 4)}
+                    editText={toSiText(shape.integratorHz)}
+                    disabled={readOnly}
+                    onCommit={setIntegrator}
+                    onStep={(sign, big) => onStep('gain', { deltaDb: sign * (big ? 3 : 0.5) })}
+                    testId="value-gain"
+                  />
+                ) : (
+                  <ValueCell
+                    label={`${h.label} frequency in Hz`}
+                    display={formatSi(h.hz, 'Hz', 4)}
+                    editText={toSiText(h.hz)}
+                    disabled={readOnly}
+                    onCommit={setHz(h)}
+                    onStep={hzStep(h.id, h.hz)}
+                    testId={`value-${h.id}`}
+                  />
+                )}
+              </td>
+            </tr>
+          ))}
+          <tr data-row="r1">
+            <td>
+              <span className="mr-1.5 inline-block w-4" aria-hidden />
+              R1
+            </td>
+            <td className="text-xs text-slate-500">scales every part; poles and zeros stay</td>
+            <td className="flex justify-end">
+              <ValueCell label="R1 in ohms" display={formatSi(shape.r1, 'Ω', 4)} editText={toSiText(shape.r1)} disabled={readOnly} onCommit={setR1} testId="value-r1" />
+            </td>
+          </tr>
+        </tbody>
+      </table>
+    </div>
+  );
+}

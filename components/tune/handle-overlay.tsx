@@ -1,0 +1,164 @@
+'use client';
+
+import { useRef, useState } from 'react';
+import { formatSi } from '@/lib/units/si';
+import type { PlotGeometry } from '@/components/plot/bode-plot';
+import type { HandleSpec } from './handles';
+
+export interface HandleMove {
+  /** New frequency for a zero or pole, Hz. */
+  hz?: number;
+  /** Gain change for the gain handle, dB, counted from the start of the drag (or one key step). */
+  deltaDb?: number;
+}
+
+export interface PlacedHandle extends HandleSpec {
+  /** Where the handle sits on the magnitude panel, dB. */
+  magDb: number;
+}
+
+interface Props {
+  geometry: PlotGeometry;
+  handles: PlacedHandle[];
+  color: string;
+  disabled: boolean;
+  midbandGainDb: number | null;
+  onDragStart: (id: string) => void;
+  onDrag: (id: string, move: HandleMove) => void;
+  onDragEnd: (id: string) => void;
+  /** One keyboard step, applied at once. */
+  onStep: (id: string, move: HandleMove) => void;
+}
+
+const SIZE = 24;
+/** Keyboard steps: 1/48 decade (Shift: 1/8), 0.5 dB (Shift: 3 dB). */
+const STEP_DECADE = 1 / 48;
+const STEP_DECADE_BIG = 1 / 8;
+const STEP_DB = 0.5;
+const STEP_DB_BIG = 3;
+
+function Glyph({ kind, color }: { kind: HandleSpec['kind']; color: string }) {
+  if (kind === 'zero') return <circle cx={12} cy={12} r={6.5} fill="white" stroke={color} strokeWidth={2.5} />;
+  if (kind === 'pole')
+    return (
+      <g stroke={color} strokeWidth={2.75} strokeLinecap="round">
+        <line x1={6.5} y1={6.5} x2={17.5} y2={17.5} />
+        <line x1={17.5} y1={6.5} x2={6.5} y2={17.5} />
+      </g>
+    );
+  return (
+    <g>
+      <rect x={5} y={5} width={14} height={14} rx={2} transform="rotate(45 12 12)" fill={color} />
+      <path d="M12 7.5 L14.5 10.5 H9.5 Z M12 16.5 L14.5 13.5 H9.5 Z" fill="white" />
+    </g>
+  );
+}
+
+/**
+ * Draggable compensator handles drawn above the Bode plot. Zeros and poles
+ * move sideways (frequency); the gain handle moves up and down. Each handle
+ * is a focusable slider: arrow keys step it (Shift for larger steps).
+ */
+export function HandleOverlay({ geometry: g, handles, color, disabled, midbandGainDb, onDragStart, onDrag, onDragEnd, onStep }: Props) {
+  const boxRef = useRef<HTMLDivElement>(null);
+  const drag = useRef<{ id: string; pointerId: number; startY: number } | null>(null);
+  const [active, setActive] = useState<string | null>(null);
+  const fMin = 10 ** g.ranges.x[0];
+  const fMax = 10 ** g.ranges.x[1];
+
+  const local = (e: React.PointerEvent) => {
+    const rect = boxRef.current!.getBoundingClientRect();
+    return { x: e.clientX - rect.left, y: e.clientY - rect.top };
+  };
+
+  const onPointerDown = (h: PlacedHandle) => (e: React.PointerEvent<HTMLDivElement>) => {
+    if (disabled || e.button !== 0) return;
+    e.preventDefault();
+    e.currentTarget.focus();
+    e.currentTarget.setPointerCapture(e.pointerId);
+    drag.current = { id: h.id, pointerId: e.pointerId, startY: local(e).y };
+    setActive(h.id);
+    onDragStart(h.id);
+  };
+
+  const onPointerMove = (h: PlacedHandle) => (e: React.PointerEvent<HTMLDivElement>) => {
+    const d = drag.current;
+    if (!d || d.id !== h.id || d.pointerId !== e.pointerId) return;
+    const p = local(e);
+    if (h.kind === 'gain') onDrag(h.id, { deltaDb: g.yToDb(p.y) - g.yToDb(d.startY) });
+    else onDrag(h.id, { hz: Math.min(fMax, Math.max(fMin, g.xToHz(Math.min(g.right, Math.max(g.left, p.x))))) });
+  };
+
+  const endDrag = (h: PlacedHandle) => (e: React.PointerEvent<HTMLDivElement>) => {
+    const d = drag.current;
+    if (!d || d.id !== h.id) return;
+    drag.current = null;
+    setActive(null);
+    if (e.currentTarget.hasPointerCapture(e.pointerId)) e.currentTarget.releasePointerCapture(e.pointerId);
+    onDragEnd(h.id);
+  };
+
+  const onKeyDown = (h: PlacedHandle) => (e: React.KeyboardEvent) => {
+    if (disabled) return;
+    const up = e.key === 'ArrowUp' || e.key === 'ArrowRight' || e.key === 'PageUp';
+    const down = e.key === 'ArrowDown' || e.key === 'ArrowLeft' || e.key === 'PageDown';
+    if (!up && !down) return;
+    e.preventDefault();
+    const big = e.shiftKey || e.key.startsWith('Page');
+    const sign = up ? 1 : -1;
+    if (h.kind === 'gain') onStep(h.id, { deltaDb: sign * (big ? STEP_DB_BIG : STEP_DB) });
+    else onStep(h.id, { hz: h.hz * 10 ** (sign * (big ? STEP_DECADE_BIG : STEP_DECADE)) });
+  };
+
+  return (
+    <div ref={boxRef} className="pointer-events-none absolute inset-0" data-testid="handle-overlay">
+      {handles.map((h) => {
+        const x = g.hzToX(h.hz);
+        const y = Math.min(g.magBottom, Math.max(g.magTop, g.dbToY(h.magDb)));
+        if (!Number.isFinite(x) || x < g.left - SIZE / 2 || x > g.right + SIZE / 2) return null;
+        const value =
+          h.kind === 'gain'
+            ? midbandGainDb !== null
+              ? `${midbandGainDb.toFixed(1)} dB mid-band`
+              : `integrator at ${formatSi(h.hz, 'Hz')}`
+            : formatSi(h.hz, 'Hz');
+        const isActive = active === h.id;
+        return (
+          <div
+            key={h.id}
+            role="slider"
+            tabIndex={disabled ? -1 : 0}
+            aria-label={`${h.label} handle (${h.parts})`}
+            aria-valuetext={value}
+            aria-valuenow={h.kind === 'gain' ? (midbandGainDb ?? 0) : h.hz}
+            aria-valuemin={h.kind === 'gain' ? -100 : fMin}
+            aria-valuemax={h.kind === 'gain' ? 100 : fMax}
+            aria-orientation={h.kind === 'gain' ? 'vertical' : 'horizontal'}
+            aria-disabled={disabled || undefined}
+            data-handle={h.id}
+            className={`group pointer-events-auto absolute rounded-full outline-none focus-visible:ring-2 focus-visible:ring-indigo-500 ${
+              disabled ? 'cursor-default' : h.kind === 'gain' ? 'cursor-ns-resize' : 'cursor-ew-resize'
+            }`}
+            style={{ left: x - SIZE / 2, top: y - SIZE / 2, width: SIZE, height: SIZE, touchAction: 'none' }}
+            onPointerDown={onPointerDown(h)}
+            onPointerMove={onPointerMove(h)}
+            onPointerUp={endDrag(h)}
+            onPointerCancel={endDrag(h)}
+            onKeyDown={onKeyDown(h)}
+          >
+            <svg width={SIZE} height={SIZE} viewBox="0 0 24 24" aria-hidden className={disabled ? 'opacity-70' : 'drop-shadow'}>
+              <Glyph kind={h.kind} color={color} />
+            </svg>
+            <span
+              className={`pointer-events-none absolute left-1/2 top-full mt-0.5 -translate-x-1/2 whitespace-nowrap rounded bg-slate-800/90 px-1.5 py-0.5 text-[11px] text-white ${
+                isActive ? 'block' : 'hidden group-hover:block group-focus-visible:block'
+              }`}
+            >
+              {h.label} · {value}
+            </span>
+          </div>
+        );
+      })}
+    </div>
+  );
+}

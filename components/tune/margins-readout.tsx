@@ -1,0 +1,60 @@
+import { formatSi } from '@/lib/units/si';
+import type { Margins } from '@/lib/engine/types';
+
+type Tone = 'good' | 'caution' | 'risk' | 'none';
+
+const TONE: Record<Tone, string> = {
+  good: 'text-emerald-700',
+  caution: 'text-amber-700',
+  risk: 'text-red-700',
+  none: 'text-slate-400',
+};
+
+// Common practice: PM ≥ 45° and GM ≥ 10 dB are comfortable; below 30° / 6 dB is a risk.
+const pmTone = (pm: number | null): Tone => (pm === null ? 'none' : pm < 30 ? 'risk' : pm < 45 ? 'caution' : 'good');
+const gmTone = (gm: number | null): Tone => (gm === null ? 'none' : gm < 6 ? 'risk' : gm < 10 ? 'caution' : 'good');
+
+function Item({ label, value, tone = 'none', hint, testId }: { label: string; value: string; tone?: Tone; hint?: string; testId: string }) {
+  return (
+    <div className="min-w-0">
+      <dt className="text-[11px] font-medium uppercase tracking-wide text-slate-500">{label}</dt>
+      <dd className={`num font-mono text-xl font-semibold ${tone === 'none' ? 'text-slate-900' : TONE[tone]}`} data-testid={testId}>
+        {value}
+      </dd>
+      {hint && <dd className="text-[11px] text-slate-500">{hint}</dd>}
+    </div>
+  );
+}
+
+/** fc, PM, GM and the phase at fsw/2 of the loop as tuned (and of the snapped parts). */
+export function MarginsReadout({
+  margins,
+  phaseAtHalfFswDeg,
+  fsw,
+  snapped,
+}: {
+  margins: Margins;
+  phaseAtHalfFswDeg: number | null;
+  fsw: number;
+  snapped: Margins | null;
+}) {
+  const { crossoverHz: fc, phaseMarginDeg: pm, gainMarginDb: gm } = margins;
+  const deg = (v: number | null) => (v === null ? '—' : `${v.toFixed(1)}°`);
+  const db = (v: number | null) => (v === null ? '—' : `${v.toFixed(1)} dB`);
+  return (
+    <section aria-label="Margins" className="space-y-2">
+      <dl className="grid grid-cols-2 gap-x-4 gap-y-3">
+        <Item label="Crossover fc" value={fc === null ? 'none' : formatSi(fc, 'Hz')} hint={fc === null ? undefined : `fsw/${(fsw / fc).toFixed(1)}`} testId="readout-fc" />
+        <Item label="Phase margin" value={deg(pm)} tone={pmTone(pm)} testId="readout-pm" />
+        <Item label="Gain margin" value={gm === null ? 'no −180°' : db(gm)} tone={gmTone(gm)} hint={margins.phaseCrossoverHz ? `at ${formatSi(margins.phaseCrossoverHz, 'Hz')}` : 'in the sweep'} testId="readout-gm" />
+        <Item label="Phase at fsw/2" value={deg(phaseAtHalfFswDeg)} hint={formatSi(fsw / 2, 'Hz')} testId="readout-phase-half-fsw" />
+      </dl>
+      {snapped && (
+        <p className="text-xs text-slate-500" data-testid="readout-snapped">
+          With the snapped parts: fc {snapped.crossoverHz === null ? 'none' : formatSi(snapped.crossoverHz, 'Hz')}, PM {deg(snapped.phaseMarginDeg)}, GM{' '}
+          {snapped.gainMarginDb === null ? '—' : db(snapped.gainMarginDb)}
+        </p>
+      )}
+    </section>
+  );
+}

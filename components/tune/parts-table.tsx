@@ -1,0 +1,97 @@
+'use client';
+
+import { E_SERIES_NAMES, type ESeriesName, type PartsOptions, type Topology } from '@/lib/engine/types';
+import { formatSi } from '@/lib/units/si';
+import type { PartsView } from './tune-analysis';
+
+const ROWS: { key: keyof PartsView['ideal']; name: string; unit: 'Ω' | 'F'; role: string }[] = [
+  { key: 'r1', name: 'R1', unit: 'Ω', role: 'output to inverting input (held fixed)' },
+  { key: 'r2', name: 'R2', unit: 'Ω', role: 'feedback, in series with C1' },
+  { key: 'c1', name: 'C1', unit: 'F', role: 'feedback, in series with R2' },
+  { key: 'c2', name: 'C2', unit: 'F', role: 'across the feedback path' },
+  { key: 'r3', name: 'R3', unit: 'Ω', role: 'in series with C3, across R1' },
+  { key: 'c3', name: 'C3', unit: 'F', role: 'in series with R3, across R1' },
+  { key: 'rb', name: 'Rb', unit: 'Ω', role: 'lower divider resistor (sets Vout)' },
+];
+
+function SeriesSelect({ id, label, value, disabled, onChange }: { id: string; label: string; value: ESeriesName; disabled: boolean; onChange: (s: ESeriesName) => void }) {
+  return (
+    <label className="inline-flex items-center gap-1.5 text-xs text-slate-600" htmlFor={id}>
+      {label}
+      <select id={id} className="input w-20 py-1 text-xs" value={value} disabled={disabled} onChange={(e) => onChange(e.target.value as ESeriesName)}>
+        {E_SERIES_NAMES.map((s) => (
+          <option key={s} value={s}>
+            {s}
+          </option>
+        ))}
+      </select>
+    </label>
+  );
+}
+
+/** Ideal and snapped compensator parts, with the standard series chosen for R and C. */
+export function PartsTable({
+  parts,
+  topology,
+  readOnly,
+  onSeriesChange,
+}: {
+  parts: PartsView;
+  topology: Topology;
+  readOnly: boolean;
+  onSeriesChange: (options: PartsOptions) => void;
+}) {
+  const rows = ROWS.filter((r) => parts.ideal[r.key] !== null && !(r.key === 'c2' && parts.ideal.c2 === 0));
+  return (
+    <div className="space-y-2">
+      <div className="flex flex-wrap gap-3">
+        <SeriesSelect id="series-r" label="Resistors" value={parts.options.resistorSeries} disabled={readOnly} onChange={(s) => onSeriesChange({ ...parts.options, resistorSeries: s })} />
+        <SeriesSelect id="series-c" label="Capacitors" value={parts.options.capacitorSeries} disabled={readOnly} onChange={(s) => onSeriesChange({ ...parts.options, capacitorSeries: s })} />
+      </div>
+      <table className="table-base" data-testid="parts-table">
+        <thead>
+          <tr>
+            <th>Part</th>
+            <th className="text-right">Ideal</th>
+            <th className="text-right">Snapped</th>
+            <th className="text-right">Δ</th>
+          </tr>
+        </thead>
+        <tbody>
+          {rows.map((r) => {
+            const ideal = parts.ideal[r.key] as number;
+            const snapped = parts.snapped[r.key] as number;
+            const delta = ideal > 0 ? (snapped / ideal - 1) * 100 : 0;
+            return (
+              <tr key={r.key} data-part={r.key}>
+                <td>
+                  <span className="font-medium">{r.name}</span>
+                  <span className="block text-[11px] text-slate-500">{r.role}</span>
+                </td>
+                <td className="num text-right font-mono" data-testid={`part-${r.key}-ideal`}>
+                  {formatSi(ideal, r.unit, 4)}
+                </td>
+                <td className="num text-right font-mono font-semibold" data-testid={`part-${r.key}-snapped`}>
+                  {formatSi(snapped, r.unit)}
+                </td>
+                <td className={`num text-right font-mono text-xs ${Math.abs(delta) > 5 ? 'text-amber-700' : 'text-slate-500'}`}>
+                  {delta >= 0 ? '+' : ''}
+                  {delta.toFixed(1)} %
+                </td>
+              </tr>
+            );
+          })}
+        </tbody>
+      </table>
+      {parts.ideal.rb === null || !(parts.ideal.rb > 0) ? (
+        <p className="text-xs text-red-700">No lower divider resistor: Vref must be below |Vout|.</p>
+      ) : null}
+      {topology === 'buck-boost' && (
+        <p className="text-xs text-slate-600" data-testid="rb-note">
+          Buck-boost: the output is negative. Rb assumes the controller is referenced to the negative output, so it senses |Vout| across R1 + Rb. With a
+          ground-referenced controller you need a level shifter or an inverting sense stage instead.
+        </p>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,134 @@
+'use client';
+
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useEffect, useRef } from 'react';
+import { useForm } from 'react-hook-form';
+import { z } from 'zod';
+import type { AnalyzeRequest, FieldIssue } from '@/lib/engine/types';
+import { siText, toSiText } from './si-schema';
+
+type Stage = Pick<AnalyzeRequest, 'converter' | 'modulator' | 'feedback'>;
+
+interface FieldSpec {
+  name: StageField;
+  label: string;
+  unit: string;
+  path: string;
+  hint?: string;
+  bound?: 'positive' | 'nonNegative';
+}
+
+type StageField = 'vin' | 'vout' | 'iout' | 'fsw' | 'l' | 'rl' | 'c' | 'rc' | 'vd' | 'vramp' | 'vref';
+
+const FIELDS: readonly FieldSpec[] = [
+  { name: 'vin', label: 'Input voltage Vin', unit: 'V', path: 'converter.vin' },
+  { name: 'vout', label: 'Output voltage Vout', unit: 'V', path: 'converter.vout', hint: 'magnitude' },
+  { name: 'iout', label: 'Load current Iout', unit: 'A', path: 'converter.iout' },
+  { name: 'fsw', label: 'Switching frequency fsw', unit: 'Hz', path: 'converter.fsw' },
+  { name: 'l', label: 'Inductance L', unit: 'H', path: 'converter.l' },
+  { name: 'rl', label: 'Inductor DCR', unit: 'Ω', path: 'converter.rl', bound: 'nonNegative' },
+  { name: 'c', label: 'Output capacitance C', unit: 'F', path: 'converter.c' },
+  { name: 'rc', label: 'Capacitor ESR', unit: 'Ω', path: 'converter.rc', bound: 'nonNegative' },
+  { name: 'vd', label: 'Diode drop Vd', unit: 'V', path: 'converter.vd', hint: '0 = synchronous', bound: 'nonNegative' },
+  { name: 'vramp', label: 'PWM ramp Vramp', unit: 'V', path: 'modulator.vramp' },
+  { name: 'vref', label: 'Reference Vref', unit: 'V', path: 'feedback.vref' },
+];
+
+const stageFormSchema = z.object(
+  Object.fromEntries(FIELDS.map((f) => [f.name, siText(f.label, f.unit, f.bound)])) as Record<
+    StageField,
+    ReturnType<typeof siText>
+  >,
+);
+
+type StageText = z.input<typeof stageFormSchema>;
+type StageValues = z.output<typeof stageFormSchema>;
+
+const toText = (s: Stage): StageText => ({
+  vin: toSiText(s.converter.vin),
+  vout: toSiText(s.converter.vout),
+  iout: toSiText(s.converter.iout),
+  fsw: toSiText(s.converter.fsw),
+  l: toSiText(s.converter.l),
+  rl: toSiText(s.converter.rl),
+  c: toSiText(s.converter.c),
+  rc: toSiText(s.converter.rc),
+  vd: toSiText(s.converter.vd),
+  vramp: toSiText(s.modulator.vramp),
+  vref: toSiText(s.feedback.vref),
+});
+
+const fromValues = (v: StageValues, topology: AnalyzeRequest['converter']['topology']): Stage => ({
+  converter: { topology, vin: v.vin, vout: v.vout, iout: v.iout, fsw: v.fsw, l: v.l, rl: v.rl, c: v.c, rc: v.rc, vd: v.vd },
+  modulator: { vramp: v.vramp },
+  feedback: { vref: v.vref },
+});
+
+export interface StageFormProps {
+  value: Stage;
+  readOnly: boolean;
+  /** Physical problems the engine found, by path ("converter.vout"), shown under their fields. */
+  issues: FieldIssue[];
+  onChange: (stage: Stage) => void;
+  /** False while a field holds text that does not parse (the draft keeps its last good value). */
+  onValidityChange: (valid: boolean) => void;
+}
+
+/** Power stage, modulator and reference inputs; SI-prefix text, checked as typed. */
+export function StageForm({ value, readOnly, issues, onChange, onValidityChange }: StageFormProps) {
+  const topology = value.converter.topology;
+  const {
+    register,
+    watch,
+    formState: { errors },
+  } = useForm<StageText, unknown, StageValues>({
+    resolver: zodResolver(stageFormSchema),
+    mode: 'onChange',
+    defaultValues: toText(value),
+  });
+  const callbacks = useRef({ onChange, onValidityChange });
+  callbacks.current = { onChange, onValidityChange };
+
+  useEffect(() => {
+    const sub = watch((text) => {
+      const r = stageFormSchema.safeParse(text);
+      callbacks.current.onValidityChange(r.success);
+      if (r.success) callbacks.current.onChange(fromValues(r.data, topology));
+    });
+    return () => sub.unsubscribe();
+  }, [watch, topology]);
+
+  return (
+    <fieldset className="grid grid-cols-2 gap-x-3 gap-y-2 sm:grid-cols-3" disabled={readOnly} aria-label="Power stage">
+      {FIELDS.map((f) => {
+        const id = `stage-${f.name}`;
+        const formError = errors[f.name]?.message;
+        const engineError = issues.filter((i) => i.path === f.path).map((i) => i.message)[0];
+        const message = formError ?? engineError;
+        return (
+          <div key={f.name}>
+            <label className="label normal-case tracking-normal" htmlFor={id}>
+              {f.label} <span className="text-slate-400">({f.unit})</span>
+            </label>
+            <input
+              id={id}
+              inputMode="decimal"
+              autoComplete="off"
+              spellCheck={false}
+              className={`input num font-mono ${message ? 'input-error' : ''}`}
+              aria-invalid={message ? true : undefined}
+              aria-describedby={message ? `${id}-error` : undefined}
+              placeholder={f.hint}
+              {...register(f.name)}
+            />
+            {message && (
+              <p id={`${id}-error`} className="field-error" role="alert">
+                {message}
+              </p>
+            )}
+          </div>
+        );
+      })}
+    </fieldset>
+  );
+}

@@ -1,0 +1,115 @@
+'use client';
+
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useForm } from 'react-hook-form';
+import { z } from 'zod';
+import type { StartingPointMethod } from '@/lib/engine/starting-point';
+import type { CompensatorType } from '@/lib/engine/types';
+import { siText, toSiText } from './si-schema';
+
+const schema = z.object({
+  crossoverHz: siText('Target crossover fc', 'Hz'),
+  phaseMarginDeg: z
+    .string()
+    .trim()
+    .min(1, 'Target phase margin is required')
+    .transform((t, ctx) => {
+      const v = Number(t.replace(/°$/, ''));
+      if (!Number.isFinite(v)) {
+        ctx.addIssue({ code: 'custom', message: `Target phase margin: "${t}" is not a number of degrees` });
+        return z.NEVER;
+      }
+      if (v <= 0 || v >= 90) {
+        ctx.addIssue({ code: 'custom', message: 'Target phase margin must lie between 0° and 90°' });
+        return z.NEVER;
+      }
+      return v;
+    }),
+  method: z.enum(['k-factor', 'pole-zero']),
+  type: z.enum(['type1', 'type2', 'type3']),
+});
+
+type Text = z.input<typeof schema>;
+export type StartingPointRequest = z.output<typeof schema>;
+
+interface Props {
+  fsw: number;
+  type: CompensatorType;
+  readOnly: boolean;
+  /** Replace the compensator; returns the reason it could not be placed, or null. */
+  onPropose: (target: StartingPointRequest) => string | null;
+}
+
+/** Starting point: target fc and PM and a placement method give an editable compensator. */
+export function StartingPointForm({ fsw, type, readOnly, onPropose }: Props) {
+  const {
+    register,
+    handleSubmit,
+    setError,
+    watch,
+    formState: { errors, isSubmitSuccessful },
+  } = useForm<Text, unknown, StartingPointRequest>({
+    resolver: zodResolver(schema),
+    defaultValues: { crossoverHz: toSiText(fsw / 10, 3), phaseMarginDeg: '60', method: 'k-factor', type },
+  });
+  const method = watch('method');
+
+  const submit = handleSubmit((values) => {
+    const problem = onPropose(values);
+    if (problem) setError('root', { message: problem });
+  });
+
+  return (
+    <form onSubmit={submit} noValidate className="space-y-2" aria-label="Starting point">
+      <fieldset disabled={readOnly} className="grid grid-cols-2 gap-2">
+        <div>
+          <label className="label normal-case tracking-normal" htmlFor="sp-fc">
+            Target fc <span className="text-slate-400">(Hz)</span>
+          </label>
+          <input id="sp-fc" className={`input num font-mono ${errors.crossoverHz ? 'input-error' : ''}`} {...register('crossoverHz')} />
+          {errors.crossoverHz && <p className="field-error">{errors.crossoverHz.message}</p>}
+        </div>
+        <div>
+          <label className="label normal-case tracking-normal" htmlFor="sp-pm">
+            Target PM <span className="text-slate-400">(°)</span>
+          </label>
+          <input id="sp-pm" className={`input num font-mono ${errors.phaseMarginDeg ? 'input-error' : ''}`} {...register('phaseMarginDeg')} />
+          {errors.phaseMarginDeg && <p className="field-error">{errors.phaseMarginDeg.message}</p>}
+        </div>
+        <div>
+          <label className="label normal-case tracking-normal" htmlFor="sp-method">
+            Method
+          </label>
+          <select id="sp-method" className="input" {...register('method')}>
+            <option value={'k-factor' satisfies StartingPointMethod}>K factor</option>
+            <option value={'pole-zero' satisfies StartingPointMethod}>Pole-zero rules</option>
+          </select>
+        </div>
+        <div>
+          <label className="label normal-case tracking-normal" htmlFor="sp-type">
+            Type
+          </label>
+          <select id="sp-type" className="input" {...register('type')}>
+            <option value="type1">Type I</option>
+            <option value="type2">Type II</option>
+            <option value="type3">Type III</option>
+          </select>
+        </div>
+      </fieldset>
+      <p className="text-[11px] text-slate-500">
+        {method === 'k-factor'
+          ? 'K factor: the boost needed for the target PM at fc sets where the zeros and poles sit.'
+          : 'Pole-zero rules: zeros at the LC resonance, poles at the ESR zero and fsw/2, gain set for fc. The target PM is not used.'}
+      </p>
+      {errors.root && (
+        <p className="field-error" role="alert">
+          {errors.root.message}
+        </p>
+      )}
+      {isSubmitSuccessful && !errors.root && <p className="text-xs text-emerald-700">Compensator placed; drag or edit it from here.</p>}
+      <button type="submit" className="btn-secondary" disabled={readOnly} data-testid="starting-point-apply">
+        Place compensator
+      </button>
+    </form>
+  );
+}

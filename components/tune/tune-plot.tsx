@@ -1,0 +1,108 @@
+'use client';
+
+import { useMemo, useState } from 'react';
+import { BodePlot, type BodeSeries, type PlotMarker } from '@/components/plot/bode-plot';
+import { interpolateLogF } from '@/lib/engine/margins';
+import type { BodeData, Margins, TransferSummary } from '@/lib/engine/types';
+import { HandleOverlay, type HandleMove, type PlacedHandle } from './handle-overlay';
+import type { HandleSpec } from './handles';
+
+export const TRACE_COLORS = { loop: '#4f46e5', plant: '#0d9488', compensator: '#d97706', rhp: '#dc2626' } as const;
+
+type TraceId = 'loop' | 'plant' | 'compensator';
+const TRACES: { id: TraceId; name: string }[] = [
+  { id: 'loop', name: 'Loop gain T' },
+  { id: 'plant', name: 'Power stage Gvd/Vramp' },
+  { id: 'compensator', name: 'Compensator Gc' },
+];
+
+interface Props {
+  bode: BodeData;
+  margins: Margins;
+  plant: TransferSummary;
+  handles: HandleSpec[];
+  midbandGainDb: number | null;
+  dragging: boolean;
+  readOnly: boolean;
+  onDragStart: (id: string) => void;
+  onDrag: (id: string, move: HandleMove) => void;
+  onDragEnd: (id: string) => void;
+  onStep: (id: string, move: HandleMove) => void;
+}
+
+/** The Tune Bode plot: trace toggles, power-stage features marked, compensator handles on top. */
+export function TunePlot({ bode, margins, plant, handles, midbandGainDb, dragging, readOnly, ...events }: Props) {
+  const [shown, setShown] = useState<Record<TraceId, boolean>>({ loop: true, plant: true, compensator: true });
+
+  const series = useMemo<BodeSeries[]>(
+    () => TRACES.map((t) => ({ id: t.id, name: t.name, color: TRACE_COLORS[t.id], magDb: bode[t.id].magDb, phaseDeg: bode[t.id].phaseDeg, visible: shown[t.id], width: t.id === 'loop' ? 2.5 : 1.75 })),
+    [bode, shown],
+  );
+
+  // Handles ride on the compensator curve, or on the loop when the compensator is hidden.
+  const handleCurve = shown.compensator ? bode.compensator : bode.loop;
+  const placed = useMemo<PlacedHandle[]>(
+    () => handles.map((h) => ({ ...h, magDb: interpolateLogF(bode.f, handleCurve.magDb, h.hz) })),
+    [handles, bode.f, handleCurve],
+  );
+
+  const markerCurve = shown.plant ? bode.plant : bode.loop;
+  const markers = useMemo<PlotMarker[]>(() => {
+    const at = (hz: number) => interpolateLogF(bode.f, markerCurve.magDb, hz);
+    const inRange = (hz: number | null): hz is number => hz !== null && hz >= bode.f[0] && hz <= bode.f[bode.f.length - 1];
+    const out: PlotMarker[] = [];
+    if (inRange(plant.resonanceHz))
+      out.push({ id: 'lc', hz: plant.resonanceHz, magDb: at(plant.resonanceHz), kind: 'pole', label: 'LC resonance', color: TRACE_COLORS.plant });
+    if (inRange(plant.esrZeroHz))
+      out.push({ id: 'esr', hz: plant.esrZeroHz, magDb: at(plant.esrZeroHz), kind: 'zero', label: 'ESR zero', color: TRACE_COLORS.plant });
+    if (inRange(plant.rhpZeroHz))
+      out.push({ id: 'rhp', hz: plant.rhpZeroHz, magDb: at(plant.rhpZeroHz), kind: 'zero', label: 'RHP zero', color: TRACE_COLORS.rhp });
+    return out;
+  }, [plant, bode.f, markerCurve]);
+
+  const marks = useMemo(() => ({ ...margins, color: TRACE_COLORS.loop }), [margins]);
+
+  return (
+    <div>
+      <div className="flex flex-wrap items-center gap-x-4 gap-y-1 px-1 pb-2 text-sm" role="group" aria-label="Traces shown">
+        {TRACES.map((t) => (
+          <label key={t.id} className="inline-flex cursor-pointer items-center gap-1.5">
+            <input
+              type="checkbox"
+              className="h-3.5 w-3.5 rounded border-slate-300"
+              style={{ accentColor: TRACE_COLORS[t.id] }}
+              checked={shown[t.id]}
+              onChange={(e) => setShown((s) => ({ ...s, [t.id]: e.target.checked }))}
+              data-testid={`toggle-${t.id}`}
+            />
+            <span className="inline-block h-0.5 w-4 rounded" style={{ background: TRACE_COLORS[t.id] }} aria-hidden />
+            {t.name}
+          </label>
+        ))}
+        <span className="ml-auto text-xs text-slate-500">
+          {readOnly ? 'Handles are fixed (read-only)' : 'Drag ○ zeros and ✕ poles sideways, ◆ gain up or down; arrow keys step a focused handle'}
+        </span>
+      </div>
+      <BodePlot
+        f={bode.f}
+        series={series}
+        markers={markers}
+        margins={marks}
+        freezeRanges={dragging}
+        showLegend={false}
+        height={480}
+        aria-label="Bode plot of the loop gain, power stage and compensator"
+        overlay={(g) => (
+          <HandleOverlay
+            geometry={g}
+            handles={placed}
+            color={TRACE_COLORS.compensator}
+            disabled={readOnly}
+            midbandGainDb={midbandGainDb}
+            {...events}
+          />
+        )}
+      />
+    </div>
+  );
+}

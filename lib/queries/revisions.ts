@@ -1,0 +1,81 @@
+import { queryOptions } from '@tanstack/react-query';
+import type { AnalyzeRequest } from '@/lib/engine/types';
+
+/** Stable query keys for designs and their revisions; mutations invalidate these. */
+export const designKeys = {
+  all: ['designs'] as const,
+  detail: (designId: number) => ['designs', designId] as const,
+  revisions: (designId: number) => ['designs', designId, 'revisions'] as const,
+  revision: (designId: number, number: number) => ['designs', designId, 'revisions', number] as const,
+};
+
+export interface RevisionListItem {
+  id: number;
+  designId: number;
+  number: number;
+  baseNumber: number | null;
+  input: AnalyzeRequest;
+  summary: unknown;
+  authorId: number;
+  authorName: string;
+  note: string;
+  createdAt: string;
+}
+
+export interface SavedRevision {
+  id: number;
+  number: number;
+  baseRevision: number | null;
+  note: string;
+  createdAt: string;
+}
+
+export interface SaveRevisionBody {
+  baseRevision: number | null;
+  note: string;
+  input: AnalyzeRequest;
+}
+
+/** A failed API call with the server's answer ({ error, issues?, … }). */
+export class ApiError extends Error {
+  constructor(
+    readonly status: number,
+    readonly body: { error?: string; issues?: { path: string; message: string }[]; baseRevision?: number | null; latestRevision?: number | null },
+  ) {
+    super(body.error ?? `Request failed (${status})`);
+    this.name = 'ApiError';
+  }
+}
+
+export async function requestJson<T>(url: string, init?: RequestInit): Promise<T> {
+  let res: Response;
+  try {
+    res = await fetch(url, init);
+  } catch {
+    throw new ApiError(0, { error: 'The server could not be reached; check the connection and try again' });
+  }
+  const body = await res.json().catch(() => ({}));
+  if (!res.ok) throw new ApiError(res.status, body);
+  return body as T;
+}
+
+export const revisionsQueryOptions = (designId: number) =>
+  queryOptions({
+    queryKey: designKeys.revisions(designId),
+    queryFn: () => requestJson<{ revisions: RevisionListItem[] }>(`/api/designs/${designId}/revisions`),
+  });
+
+export const revisionQueryOptions = (designId: number, number: number) =>
+  queryOptions({
+    queryKey: designKeys.revision(designId, number),
+    queryFn: () => requestJson<RevisionListItem>(`/api/designs/${designId}/revisions/${number}`),
+    staleTime: Infinity, // revisions are immutable
+  });
+
+/** POST a new revision; throws ApiError (409 carries latestRevision). */
+export const saveRevision = (designId: number, body: SaveRevisionBody) =>
+  requestJson<SavedRevision>(`/api/designs/${designId}/revisions`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify(body),
+  });
