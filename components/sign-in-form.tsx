@@ -40,7 +40,7 @@ export function SignInForm({ callbackUrl }: { callbackUrl: string }) {
         <input id="password" name="password" type="password" autoComplete="current-password" required className="input" />
       </div>
       {error && (
-        <p role="alert" className="rounded-md bg-red-50 px-3 py-2 text-sm text-red-700">
+        <p role="alert" data-testid="signin-error" className="rounded-md bg-red-50 px-3 py-2 text-sm text-red-700">
           {error}
         </p>
       )}

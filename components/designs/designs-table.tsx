@@ -5,6 +5,8 @@ import { useMemo, useState } from 'react';
 import type { DesignListItem } from '@/db/queries/designs';
 import { SignoffBadge } from './signoff-badge';
 
+const TOPOLOGY_LABELS: Record<string, string> = { buck: 'Buck', boost: 'Boost', 'buck-boost': 'Buck-boost' };
+
 type SortKey = 'name' | 'topology' | 'latestRevision' | 'signoffState' | 'updatedAt';
 
 const COLUMNS: { key: SortKey; label: string }[] = [
@@ -79,7 +81,7 @@ export function DesignsTable({ designs }: { designs: DesignListItem[] }) {
                 </Link>
                 {d.description && <div className="text-xs text-slate-500">{d.description}</div>}
               </td>
-              <td className="capitalize">{d.topology}</td>
+              <td>{TOPOLOGY_LABELS[d.topology] ?? d.topology}</td>
               <td className="num">{d.latestRevision ? `r${d.latestRevision}` : <span className="text-slate-400">not saved</span>}</td>
               <td>
                 <SignoffBadge state={d.signoffState} />

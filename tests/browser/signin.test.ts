@@ -37,7 +37,7 @@ describe.runIf(run)('sign-in and designs list', () => {
     await page.getByLabel('Email').fill('viewer@demo.test');
     await page.getByLabel('Password').fill('wrong password');
     await page.getByRole('button', { name: 'Sign in' }).click();
-    await expect.poll(() => page.getByRole('alert').textContent()).toMatch(/do not match/);
+    await expect.poll(() => page.getByTestId('signin-error').textContent()).toMatch(/do not match/);
     await page.close();
   });
 });
