@@ -10,7 +10,7 @@
  * the model's.
  */
 import { computeMargins, interpolateLogF, unwrapPhase } from '@/lib/engine/margins';
-import { wrapDeg, type BenchPoints } from './bench-parse';
+import { shiftPhase180, wrapDeg, type BenchPoints } from './bench-parse';
 
 export interface MeasuredMargins {
   /** Highest downward 0 dB crossing of the measured gain, Hz; null when it never crosses. */
@@ -71,3 +71,32 @@ export function modelMinusMeasured(model: ModelTrace, measured: BenchPoints): Be
 /** Largest absolute value of a list, or null when empty. */
 export const largestDeviation = (xs: readonly number[]): number | null =>
   xs.length === 0 ? null : xs.reduce((m, x) => Math.max(m, Math.abs(x)), 0);
+
+export interface BenchComparison {
+  /** Measured points as displayed: 180° taken off when shifted, phase on the branch of T. */
+  points: BenchPoints;
+  measured: MeasuredMargins;
+  /** Model minus measured at the measured frequencies inside the model sweep. */
+  difference: BenchPoints;
+  largestGainDifferenceDb: number | null;
+  largestPhaseDifferenceDeg: number | null;
+}
+
+/** Everything the Handoff screen shows of one bench data set against a model loop. */
+export function compareBench(stored: BenchPoints, phaseShifted: boolean, model: ModelTrace): BenchComparison {
+  const points = displayBenchPoints(stored, phaseShifted);
+  const difference = modelMinusMeasured(model, points);
+  return {
+    points,
+    measured: measureMargins(points),
+    difference,
+    largestGainDifferenceDb: largestDeviation(difference.gainDb),
+    largestPhaseDifferenceDeg: largestDeviation(difference.phaseDeg),
+  };
+}
+
+/** Stored points as displayed (shift applied, phase on the branch of T), without a model. */
+export function displayBenchPoints(stored: BenchPoints, phaseShifted: boolean): BenchPoints {
+  const phase = phaseShifted ? shiftPhase180(stored).phaseDeg : stored.phaseDeg;
+  return { f: stored.f, gainDb: stored.gainDb, phaseDeg: unwrapToLoopBranch(phase) };
+}

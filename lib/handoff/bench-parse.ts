@@ -274,8 +274,7 @@ export function parseBenchData(input: string | Uint8Array, opts: BenchParseOptio
 
   checkOrder(f, lineOf, unit, scale, notes, gainDb, phaseDeg);
 
-  const low = lowFrequencyPhase(phaseDeg);
-  const looksInverted = low > 45 && low < 135;
+  const { looksInverted, lowFrequencyPhaseDeg: low } = inspectLowFrequencyPhase(phaseDeg);
   return {
     points: { f, gainDb, phaseDeg },
     rows: f.length,
@@ -334,6 +333,12 @@ function lowFrequencyPhase(phaseDeg: number[]): number {
     .map(wrapDeg)
     .sort((a, b) => a - b);
   return w.length % 2 ? w[(w.length - 1) / 2] : (w[w.length / 2 - 1] + w[w.length / 2]) / 2;
+}
+
+/** Whether a phase sweep (rising f) sits near +90° at its low end, i.e. was measured as −T. */
+export function inspectLowFrequencyPhase(phaseDeg: number[]): { looksInverted: boolean; lowFrequencyPhaseDeg: number } {
+  const low = lowFrequencyPhase(phaseDeg);
+  return { looksInverted: low > 45 && low < 135, lowFrequencyPhaseDeg: low };
 }
 
 /** The 180° shift offered for data measured as −T: phase − 180°, kept near the original branch. */

@@ -36,7 +36,8 @@ const COMPENSATOR_LABEL = { type1: 'Type I (integrator)', type2: 'Type II', type
 const date = (d: Date) => d.toISOString().slice(0, 10);
 const dateTime = (d: Date) => `${d.toISOString().slice(0, 16).replace('T', ' ')} UTC`;
 const si = (v: number | null | undefined, unit: string, digits = 3) => (v === null || v === undefined ? '—' : formatSi(v, unit, digits));
-const num = (v: number | null | undefined, unit: string, dp = 1) => (v === null || v === undefined ? '—' : `${v.toFixed(dp)} ${unit}`);
+const num = (v: number | null | undefined, unit: string, dp = 1) =>
+  v === null || v === undefined ? '—' : `${v.toFixed(dp)}${unit === '°' ? '' : ' '}${unit}`;
 const pct = (v: number) => `${(v * 100).toFixed(1)} %`;
 
 function table(rows: [string, string][], cls = 'kv'): string {
@@ -117,7 +118,14 @@ export function buildReportHtml(r: ReportInput): string {
 
   const cautions = `<ul class="cautions">${CAUTIONS.map((c) => `<li><b>${esc(c.title)}.</b> ${esc(c.text)}</li>`).join('')}</ul>`;
 
-  const plot = bodeSvg(result.bode, { id: 'report-bode', title: `Bode plot of ${title}`, parts: true, width: 700, panelHeight: 220 });
+  const plot = bodeSvg(result.bode, {
+    id: 'report-bode',
+    title: `Bode plot of ${title}`,
+    parts: true,
+    width: 700,
+    panelHeight: 220,
+    crossoverHz: result.margins.crossoverHz,
+  });
 
   const signoffLine =
     r.signoff.at && r.signoff.state !== 'draft'
@@ -146,6 +154,7 @@ table.kv td { padding: 2px 0; font-variant-numeric: tabular-nums; }
 table.grid th, table.grid td { border-bottom: 1px solid #e2e8f0; padding: 4px 6px; text-align: left; vertical-align: top; }
 table.grid thead th { background: #eef2ff; color: #312e81; font-weight: 600; }
 table.parts td:nth-child(3) { color: #334155; }
+table.parts td:nth-child(4), table.parts td:nth-child(5), table.parts td:nth-child(7) { white-space: nowrap; }
 .muted { color: #64748b; } .small { font-size: 10.5px; }
 .plot svg { width: 100%; height: auto; }
 ul.checks, ul.cautions { padding-left: 0; list-style: none; margin: 0; }

@@ -34,8 +34,10 @@ export interface SvgPanel {
   series: SvgSeries[];
   /** Horizontal guide lines (0 dB, −180°). */
   guides?: number[];
-  /** Tick step; the range is widened to multiples of it. */
+  /** Smallest tick step; the range is widened to multiples of the step chosen. */
   step: number;
+  /** Larger steps to choose from, smallest first, when `step` would give more than 8 ticks. */
+  coarserSteps?: number[];
   /** Values the range must include. */
   include?: number[];
   /** Clamp of the range (wild values are cut, not allowed to flatten the plot). */
@@ -54,6 +56,8 @@ export interface SvgPlotOptions {
   fRange?: [number, number];
   /** Most dots drawn per dotted series (evenly thinned in log f beyond that). */
   maxDots?: number;
+  /** Vertical markers across every panel (e.g. the crossover). */
+  markers?: { f: number; label: string; color: string }[];
 }
 
 const esc = (s: string) =>
@@ -142,12 +146,14 @@ export function plotSvg(opts: SvgPlotOptions): string {
   opts.panels.forEach((panel, i) => {
     const top = i * ph + MARGIN.t;
     const bottom = (i + 1) * ph - MARGIN.b;
-    const [yLo, yHi] = niceRange(
-      panel.series.flatMap((s) => s.y as number[]),
-      panel.step,
-      panel.include ?? [],
-      panel.clamp,
-    );
+    const values = panel.series.flatMap((s) => s.y as number[]);
+    let step = panel.step;
+    let [yLo, yHi] = niceRange(values, step, panel.include ?? [], panel.clamp);
+    for (const coarser of panel.coarserSteps ?? [2, 5, 10, 20, 50].map((m) => m * panel.step)) {
+      if ((yHi - yLo) / step <= 8) break;
+      step = coarser;
+      [yLo, yHi] = niceRange(values, step, panel.include ?? [], panel.clamp);
+    }
     const y = (v: number) => bottom - ((Math.max(yLo, Math.min(yHi, v)) - yLo) / (yHi - yLo)) * (bottom - top);
     const clip = `${opts.id}-clip-${i}`;
     out.push(`<defs><clipPath id="${esc(clip)}"><rect x="${left}" y="${top}" width="${right - left}" height="${bottom - top}"/></clipPath></defs>`);
@@ -157,10 +163,9 @@ export function plotSvg(opts: SvgPlotOptions): string {
       out.push(`<line x1="${r1(x(f))}" x2="${r1(x(f))}" y1="${top}" y2="${bottom}" stroke="${PLOT_COLORS.grid}"/>`);
       out.push(`<text x="${r1(x(f))}" y="${bottom + 14}" text-anchor="middle" fill="${PLOT_COLORS.text}">${esc(formatSi(f, 'Hz'))}</text>`);
     }
-    const nTicks = Math.round((yHi - yLo) / panel.step);
-    const every = Math.max(1, Math.ceil(nTicks / 8));
-    for (let k = 0; k <= nTicks; k += every) {
-      const v = yLo + k * panel.step;
+    const nTicks = Math.round((yHi - yLo) / step);
+    for (let k = 0; k <= nTicks; k++) {
+      const v = yLo + k * step;
       out.push(`<line x1="${left}" x2="${right}" y1="${r1(y(v))}" y2="${r1(y(v))}" stroke="${PLOT_COLORS.grid}"/>`);
       out.push(`<text x="${left - 6}" y="${r1(y(v) + 4)}" text-anchor="end" fill="${PLOT_COLORS.text}">${+v.toFixed(6)}</text>`);
     }
@@ -172,6 +177,11 @@ export function plotSvg(opts: SvgPlotOptions): string {
       `<text transform="translate(14 ${r1((top + bottom) / 2)}) rotate(-90)" text-anchor="middle" fill="${PLOT_COLORS.text}">${esc(panel.title)}</text>`,
     );
     out.push(`<g clip-path="url(#${esc(clip)})">`);
+    for (const m of opts.markers ?? []) {
+      if (!(m.f >= fLo && m.f <= fHi)) continue;
+      out.push(`<line x1="${r1(x(m.f))}" x2="${r1(x(m.f))}" y1="${top}" y2="${bottom}" stroke="${m.color}" stroke-dasharray="2 3"/>`);
+      if (i === 0) out.push(`<text x="${r1(x(m.f) + 4)}" y="${top + 12}" fill="${m.color}">${esc(m.label)}</text>`);
+    }
     for (const s of panel.series) {
       if (s.dots) {
         const [fx, yx] = thin(s.f, s.y, maxDots);
@@ -199,11 +209,16 @@ export function plotSvg(opts: SvgPlotOptions): string {
   return out.join('');
 }
 
+interface TraceLike {
+  magDb: readonly number[];
+  phaseDeg: readonly number[];
+}
+
 export interface BodeLike {
   f: readonly number[];
-  loop: { magDb: readonly number[]; phaseDeg: readonly number[] };
-  plant: { magDb: readonly number[]; phaseDeg: readonly number[] };
-  compensator: { magDb: readonly number[]; phaseDeg: readonly number[] };
+  loop: TraceLike;
+  plant?: TraceLike;
+  compensator?: TraceLike;
 }
 
 export interface BenchLike {
@@ -218,16 +233,21 @@ export interface BenchLike {
  */
 export function bodeSvg(
   bode: BodeLike,
-  opts: { id: string; title: string; parts?: boolean; bench?: BenchLike | null; width?: number; panelHeight?: number },
+  opts: {
+    id: string;
+    title: string;
+    parts?: boolean;
+    loopLabel?: string;
+    bench?: BenchLike | null;
+    width?: number;
+    panelHeight?: number;
+    crossoverHz?: number | null;
+  },
 ): string {
   const lines = (key: 'magDb' | 'phaseDeg'): SvgSeries[] => [
-    { label: 'Loop gain T', color: PLOT_COLORS.loop, f: bode.f, y: bode.loop[key] },
-    ...(opts.parts
-      ? [
-          { label: 'Power stage', color: PLOT_COLORS.plant, f: bode.f, y: bode.plant[key] },
-          { label: 'Compensator', color: PLOT_COLORS.compensator, f: bode.f, y: bode.compensator[key] },
-        ]
-      : []),
+    { label: opts.loopLabel ?? 'Loop gain T', color: PLOT_COLORS.loop, f: bode.f, y: bode.loop[key] },
+    ...(opts.parts && bode.plant ? [{ label: 'Power stage', color: PLOT_COLORS.plant, f: bode.f, y: bode.plant[key] }] : []),
+    ...(opts.parts && bode.compensator ? [{ label: 'Compensator', color: PLOT_COLORS.compensator, f: bode.f, y: bode.compensator[key] }] : []),
   ];
   const bench = opts.bench;
   const f = [...bode.f, ...(bench?.f ?? [])];
@@ -237,6 +257,7 @@ export function bodeSvg(
     width: opts.width,
     panelHeight: opts.panelHeight,
     fRange: [Math.min(...f), Math.max(...f)],
+    markers: opts.crossoverHz ? [{ f: opts.crossoverHz, label: `fc ${formatSi(opts.crossoverHz, 'Hz')}`, color: PLOT_COLORS.loop }] : [],
     panels: [
       {
         title: 'Magnitude (dB)',
@@ -249,6 +270,7 @@ export function bodeSvg(
       {
         title: 'Phase (°)',
         step: 45,
+        coarserSteps: [90, 180],
         include: [-180],
         guides: [-180],
         clamp: [-450, 270],
@@ -267,7 +289,7 @@ export function differenceSvg(diff: BenchLike, opts: { id: string; title: string
     panelHeight: opts.panelHeight ?? 160,
     panels: [
       { title: 'Δ gain (dB)', step: 1, include: [-1, 1], guides: [0], clamp: [-40, 40], series: [{ label: 'Model − bench', color: PLOT_COLORS.difference, f: diff.f, y: diff.gainDb, dots: true }] },
-      { title: 'Δ phase (°)', step: 5, include: [-5, 5], guides: [0], clamp: [-180, 180], series: [{ label: 'Model − bench', color: PLOT_COLORS.difference, f: diff.f, y: diff.phaseDeg, dots: true }] },
+      { title: 'Δ phase (°)', step: 5, coarserSteps: [10, 15, 30, 45, 90], include: [-5, 5], guides: [0], clamp: [-180, 180], series: [{ label: 'Model − bench', color: PLOT_COLORS.difference, f: diff.f, y: diff.phaseDeg, dots: true }] },
     ],
   });
 }

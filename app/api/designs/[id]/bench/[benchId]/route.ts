@@ -1,0 +1,87 @@
+import { NextResponse } from 'next/server';
+import { z } from 'zod';
+import { getDb } from '@/db/client';
+import { deleteBenchData, getBenchData, getRevision, setBenchPhaseShift } from '@/db/queries';
+import { can } from '@/lib/auth';
+import { HttpError, parseId, parseJson, withUser } from '@/lib/api';
+import { requireDesign } from '@/lib/design-access';
+import { analyze } from '@/lib/engine/analyze';
+import type { AnalyzeRequest } from '@/lib/engine/types';
+import { compareBench, displayBenchPoints, measureMargins } from '@/lib/handoff/bench-compare';
+import { inspectLowFrequencyPhase } from '@/lib/handoff/bench-parse';
+
+type P = { id: string; benchId: string };
+
+function requireBench(user: Parameters<typeof requireDesign>[0], params: P) {
+  const design = requireDesign(user, params.id);
+  const benchId = parseId(params.benchId, 'bench data');
+  const bench = getBenchData(getDb(), user.teamId, design.id, benchId);
+  if (!bench) throw new HttpError(404, `No bench data ${benchId} for design ${design.id}`);
+  return { design, bench };
+}
+
+/**
+ * One bench data set. `points` are as displayed: 180° taken off when phaseShifted, phase on
+ * the branch of T. With ?revision=N also the model of that revision: its margins, the
+ * model-minus-measured difference and the largest deviations.
+ */
+export const GET = withUser<P>(async (req, { user, params }) => {
+  const { design, bench } = requireBench(user, params);
+  const revParam = new URL(req.url).searchParams.get('revision');
+  const base = {
+    id: bench.id,
+    designId: bench.designId,
+    name: bench.name,
+    phaseShifted: bench.phaseShifted,
+    uploaderName: bench.uploaderName,
+    createdAt: bench.createdAt,
+    // Of the data as uploaded: near +90° at low frequency means measured as −T.
+    ...inspectLowFrequencyPhase(bench.points.phaseDeg),
+  };
+  if (!revParam) {
+    const points = displayBenchPoints(bench.points, bench.phaseShifted);
+    return NextResponse.json({ ...base, points, measured: measureMargins(points) });
+  }
+  const number = parseId(revParam, 'revision');
+  const revision = getRevision(getDb(), design.id, number);
+  if (!revision) throw new HttpError(404, `No revision r${number} of design ${design.id}`);
+  const input = revision.input as AnalyzeRequest;
+  const fsw = input.converter.fsw;
+  // Sweep the model down to the lowest measured frequency (the averaged model stops at fsw/2).
+  const fStart = Math.min(10, bench.points.f[0]);
+  const model = analyze({ ...input, sweep: { fStart, fStop: fsw / 2, points: 600 } });
+  const cmp = compareBench(bench.points, bench.phaseShifted, { f: model.bode.f, magDb: model.bode.loop.magDb, phaseDeg: model.bode.loop.phaseDeg });
+  return NextResponse.json({
+    ...base,
+    ...cmp,
+    revision: number,
+    model: {
+      crossoverHz: model.margins.crossoverHz,
+      phaseMarginDeg: model.margins.phaseMarginDeg,
+      gainMarginDb: model.margins.gainMarginDb,
+      bode: { f: model.bode.f, magDb: model.bode.loop.magDb, phaseDeg: model.bode.loop.phaseDeg },
+    },
+  });
+});
+
+const patchSchema = z.object({ phaseShifted: z.boolean({ error: 'phaseShifted must be true or false' }) });
+
+/** Set or clear the 180° shift for data measured as −T (the stored points stay as uploaded). */
+export const PATCH = withUser<P>(
+  async (req, { user, params }) => {
+    const { design, bench } = requireBench(user, params);
+    const body = await parseJson(req, patchSchema);
+    setBenchPhaseShift(getDb(), user.id, user.teamId, design.id, bench.id, body.phaseShifted);
+    return NextResponse.json({ id: bench.id, phaseShifted: body.phaseShifted });
+  },
+  { allow: can.editDesigns, action: 'change bench data' },
+);
+
+export const DELETE = withUser<P>(
+  async (_req, { user, params }) => {
+    const { design, bench } = requireBench(user, params);
+    deleteBenchData(getDb(), user.id, user.teamId, design.id, bench.id);
+    return new Response(null, { status: 204 });
+  },
+  { allow: can.editDesigns, action: 'delete bench data' },
+);

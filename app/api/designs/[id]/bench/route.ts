@@ -1,0 +1,121 @@
+import { NextResponse } from 'next/server';
+import { getDb } from '@/db/client';
+import { createBenchData, listBenchData } from '@/db/queries';
+import { can } from '@/lib/auth';
+import { HttpError, withUser } from '@/lib/api';
+import { measureMargins, displayBenchPoints } from '@/lib/handoff/bench-compare';
+import { BENCH_MAX_BYTES, BenchParseError, parseBenchData, type FrequencyUnit } from '@/lib/handoff/bench-parse';
+import { requireDesign } from '@/lib/design-access';
+
+type P = { id: string };
+
+/** Room for multipart boundaries and fields around a file at the limit. */
+const MULTIPART_SLACK = 64 * 1024;
+const UNITS: FrequencyUnit[] = ['Hz', 'kHz', 'MHz'];
+
+export const GET = withUser<P>(async (_req, { user, params }) => {
+  const design = requireDesign(user, params.id);
+  return NextResponse.json({ benchData: listBenchData(getDb(), user.teamId, design.id) });
+});
+
+const tooLarge = () => new HttpError(413, `Bench data files are at most ${BENCH_MAX_BYTES / 1024 / 1024} MB`, [{ path: 'file', message: 'the file is too large' }]);
+
+/** The body, refusing more than `limit` bytes even when no Content-Length was sent. */
+async function readCapped(req: Request, limit: number): Promise<Uint8Array> {
+  const declared = Number(req.headers.get('content-length') ?? NaN);
+  if (declared > limit) throw tooLarge();
+  if (!req.body) return new Uint8Array();
+  const reader = req.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    total += value.byteLength;
+    if (total > limit) {
+      await reader.cancel();
+      throw tooLarge();
+    }
+    chunks.push(value);
+  }
+  return Buffer.concat(chunks);
+}
+
+interface Upload {
+  bytes: Uint8Array;
+  name: string;
+  frequencyUnit?: FrequencyUnit;
+  phaseShifted: boolean;
+}
+
+/** A multipart form (field `file`, optional `name`, `frequencyUnit`, `phaseShifted`) or a raw text body with the same as query parameters. */
+async function readUpload(req: Request): Promise<Upload> {
+  const url = new URL(req.url);
+  const type = req.headers.get('content-type') ?? '';
+  const raw = await readCapped(req, BENCH_MAX_BYTES + (type.startsWith('multipart/') ? MULTIPART_SLACK : 0));
+  let bytes = raw;
+  let fileName = '';
+  let fields: (k: string) => string | null = (k) => url.searchParams.get(k);
+  if (type.startsWith('multipart/form-data')) {
+    const form = await new Response(raw as BodyInit, { headers: { 'content-type': type } }).formData().catch(() => {
+      throw new HttpError(400, 'The upload is not a readable form', [{ path: 'file', message: 'send the file as multipart/form-data field "file"' }]);
+    });
+    const file = form.get('file');
+    if (!(file instanceof Blob))
+      throw new HttpError(400, 'No file in the upload', [{ path: 'file', message: 'send the measurement as the form field "file"' }]);
+    if (file.size > BENCH_MAX_BYTES) throw tooLarge();
+    bytes = new Uint8Array(await file.arrayBuffer());
+    fileName = 'name' in file && typeof file.name === 'string' ? file.name : '';
+    fields = (k) => {
+      const v = form.get(k);
+      return typeof v === 'string' ? v : url.searchParams.get(k);
+    };
+  }
+  const unit = fields('frequencyUnit');
+  if (unit && !UNITS.includes(unit as FrequencyUnit))
+    throw new HttpError(400, 'Unknown frequency unit', [{ path: 'frequencyUnit', message: 'frequencyUnit must be Hz, kHz or MHz' }]);
+  const name = (fields('name') || fileName || `Bench data ${new Date().toISOString().slice(0, 16).replace('T', ' ')}`).trim().slice(0, 120);
+  return { bytes, name, frequencyUnit: (unit as FrequencyUnit) || undefined, phaseShifted: ['1', 'true', 'on'].includes(fields('phaseShifted') ?? '') };
+}
+
+/**
+ * Upload bench data (designer, admin). A file that cannot be read answers 422 naming the line
+ * and the problem, 413 when too large; nothing is stored then.
+ */
+export const POST = withUser<P>(
+  async (req, { user, params }) => {
+    const design = requireDesign(user, params.id);
+    const upload = await readUpload(req);
+    let parsed;
+    try {
+      parsed = parseBenchData(upload.bytes, { frequencyUnit: upload.frequencyUnit });
+    } catch (err) {
+      if (!(err instanceof BenchParseError)) throw err;
+      const issue = { path: err.line === null ? 'file' : `line ${err.line}`, message: err.problem };
+      throw new HttpError(err.tooLarge ? 413 : 422, `The bench data was not stored: ${err.message}`, [issue], { line: err.line });
+    }
+    const id = createBenchData(getDb(), {
+      teamId: user.teamId,
+      designId: design.id,
+      name: upload.name,
+      points: parsed.points,
+      phaseShifted: upload.phaseShifted,
+      uploadedBy: user.id,
+    });
+    return NextResponse.json(
+      {
+        id,
+        name: upload.name,
+        rows: parsed.rows,
+        frequencyUnit: parsed.frequencyUnit,
+        notes: parsed.notes,
+        looksInverted: parsed.looksInverted,
+        lowFrequencyPhaseDeg: parsed.lowFrequencyPhaseDeg,
+        phaseShifted: upload.phaseShifted,
+        measured: measureMargins(displayBenchPoints(parsed.points, upload.phaseShifted)),
+      },
+      { status: 201 },
+    );
+  },
+  { allow: can.editDesigns, action: 'upload bench data' },
+);

@@ -1,0 +1,109 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { MeasuredMargins } from '@/lib/handoff/bench-compare';
+import type { BenchPoints } from '@/lib/handoff/bench-parse';
+import { ApiError, designKeys, requestJson } from './revisions';
+
+/**
+ * Bench data on the client: query options with stable keys, the upload, and a hook that
+ * gives Tune (and any Bode plot) the newest bench data of a design as an overlay
+ * `{ f, gainDb, phaseDeg, name }` (points as displayed: shift applied, phase on the branch of T).
+ */
+export const benchKeys = {
+  list: (designId: number) => [...designKeys.detail(designId), 'bench'] as const,
+  detail: (designId: number, benchId: number, revision: number | null) =>
+    [...designKeys.detail(designId), 'bench', benchId, revision ?? 'none'] as const,
+};
+
+export type { BenchPoints, MeasuredMargins };
+
+export interface BenchListItem {
+  id: number;
+  designId: number;
+  name: string;
+  phaseShifted: boolean;
+  uploaderName: string;
+  createdAt: string;
+}
+
+export interface BenchDetail extends BenchListItem {
+  points: BenchPoints;
+  /** Of the data as uploaded: phase near +90° at low frequency (measured as −T). */
+  looksInverted: boolean;
+  lowFrequencyPhaseDeg: number;
+  measured: MeasuredMargins;
+  /** Present when asked with a revision. */
+  revision?: number;
+  difference?: BenchPoints;
+  largestGainDifferenceDb?: number | null;
+  largestPhaseDifferenceDeg?: number | null;
+  model?: {
+    crossoverHz: number | null;
+    phaseMarginDeg: number | null;
+    gainMarginDb: number | null;
+    bode: { f: number[]; magDb: number[]; phaseDeg: number[] };
+  };
+}
+
+export interface BenchUploaded {
+  id: number;
+  name: string;
+  rows: number;
+  frequencyUnit: 'Hz' | 'kHz' | 'MHz';
+  notes: string[];
+  looksInverted: boolean;
+  lowFrequencyPhaseDeg: number;
+  phaseShifted: boolean;
+  measured: MeasuredMargins;
+}
+
+/** The overlay a Bode plot takes (components/plot/bode-plot.tsx `bench`). */
+export interface BenchOverlay extends BenchPoints {
+  name?: string;
+}
+
+export const benchListQueryOptions = (designId: number) =>
+  queryOptions({
+    queryKey: benchKeys.list(designId),
+    queryFn: () => requestJson<{ benchData: BenchListItem[] }>(`/api/designs/${designId}/bench`),
+  });
+
+export const benchDetailQueryOptions = (designId: number, benchId: number, revision: number | null = null) =>
+  queryOptions({
+    queryKey: benchKeys.detail(designId, benchId, revision),
+    queryFn: () =>
+      requestJson<BenchDetail>(`/api/designs/${designId}/bench/${benchId}${revision ? `?revision=${revision}` : ''}`),
+  });
+
+/** Upload a file (multipart); throws ApiError whose body names the line of a bad file. */
+export function uploadBenchData(designId: number, file: File, opts: { name?: string; frequencyUnit?: string; phaseShifted?: boolean } = {}) {
+  const form = new FormData();
+  form.set('file', file);
+  if (opts.name) form.set('name', opts.name);
+  if (opts.frequencyUnit) form.set('frequencyUnit', opts.frequencyUnit);
+  if (opts.phaseShifted) form.set('phaseShifted', 'true');
+  return requestJson<BenchUploaded>(`/api/designs/${designId}/bench`, { method: 'POST', body: form });
+}
+
+export const setBenchPhaseShift = (designId: number, benchId: number, phaseShifted: boolean) =>
+  requestJson<{ id: number; phaseShifted: boolean }>(`/api/designs/${designId}/bench/${benchId}`, {
+    method: 'PATCH',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify({ phaseShifted }),
+  });
+
+export async function deleteBenchData(designId: number, benchId: number) {
+  const res = await fetch(`/api/designs/${designId}/bench/${benchId}`, { method: 'DELETE' });
+  if (!res.ok) throw new ApiError(res.status, await res.json().catch(() => ({})));
+}
+
+/**
+ * The newest bench data of a design as a plot overlay, or null when there is none.
+ * Tune: `const bench = useBenchOverlay(designId); <BodePlot bench={bench ?? undefined} … />`.
+ */
+export function useBenchOverlay(designId: number): BenchOverlay | null {
+  const list = useQuery(benchListQueryOptions(designId));
+  const newest = list.data?.benchData[0];
+  const detail = useQuery({ ...benchDetailQueryOptions(designId, newest?.id ?? 0), enabled: newest !== undefined });
+  if (!newest || !detail.data) return null;
+  return { ...detail.data.points, name: `Bench: ${detail.data.name}` };
+}
