@@ -12,7 +12,7 @@ import { loopChecks, partChecks, stageChecks } from './checks';
 import { snapToSeries } from './eseries';
 import { computeMargins, computeMarginsFromComplex, type LoopPointEvaluator } from './margins';
 import { buildPlantModel, modulatedPlant, summarizePlant, type PlantModel } from './plant';
-import { defaultSweep, logSweep, makeGrid, sweepComplex, sweepTransfer, toTrace, type Grid, type RawResponse } from './sweep';
+import { defaultSweep, logSweep, makeGrid, sweepComplex, sweepTransfer, type Grid } from './sweep';
 import { dbFromMagSq, phaseOffsetDeg, transferPointRaw, transferPolys, type SectionedTransfer } from './transfer';
 import { compensatorIssues, stageIssues } from './validate';
 import {
@@ -50,11 +50,12 @@ export interface PreparedPlant {
   lineToOutput: TransferSummary;
   outputImpedance: TransferSummary;
   grid: Grid;
-  plantRaw: RawResponse;
   /** Gvd/Vramp as complex samples on the grid (for margins without per-sample atan2/log). */
   plantRe: Float64Array;
   plantIm: Float64Array;
   plantTrace: BodeTrace;
+  /** Multiple of 360° added to the plant's raw phase in plantTrace. */
+  plantOffsetDeg: number;
   stageChecks: Check[];
 }
 
@@ -86,9 +87,7 @@ export const preparePlant = (req: StageRequest): PreparedPlant => {
   const plantTransfer = modulatedPlant(model, vramp);
   const sweep = req.sweep ?? defaultSweep(converter.fsw);
   const grid = makeGrid(logSweep(sweep.fStart, sweep.fStop, sweep.points));
-  const plantRaw = sweepTransfer(plantTransfer, grid);
-  const plantPolys = transferPolys(plantTransfer);
-  const plantComplex = sweepComplex(plantPolys.num, plantPolys.den, grid);
+  const plantSweep = sweepTransfer(plantTransfer, grid, true);
   const summaries = summarizePlant(model, converter, vramp);
   return {
     converter,
@@ -100,10 +99,10 @@ export const preparePlant = (req: StageRequest): PreparedPlant => {
     plantTransfer,
     ...summaries,
     grid,
-    plantRaw,
-    plantRe: plantComplex.re,
-    plantIm: plantComplex.im,
-    plantTrace: toTrace(plantRaw.magDb, plantRaw.phaseRawDeg, phaseOffsetDeg(plantRaw.phaseRawDeg[0])),
+    plantRe: plantSweep.re!,
+    plantIm: plantSweep.im!,
+    plantTrace: plantSweep.trace,
+    plantOffsetDeg: plantSweep.offsetDeg,
     stageChecks: stageChecks(model.operatingPoint),
   };
 };
@@ -135,19 +134,24 @@ export const evaluateLoopGain = (
 
 /** Loop gain on the grid (plant sweep reused) and its analytic evaluator on the same branch. */
 const sweepLoop = (prepared: PreparedPlant, comp: SectionedTransfer) => {
-  const compRaw = sweepTransfer(comp, prepared.grid);
+  const compSweep = sweepTransfer(comp, prepared.grid);
   const n = prepared.grid.f.length;
-  const pm = prepared.plantRaw.magDb;
-  const pp = prepared.plantRaw.phaseRawDeg;
-  const offset = phaseOffsetDeg(pp[0] + compRaw.phaseRawDeg[0]);
-  const magDb: number[] = [];
-  const phaseDeg: number[] = [];
+  const pm = prepared.plantTrace.magDb;
+  const pp = prepared.plantTrace.phaseDeg;
+  const cm = compSweep.trace.magDb;
+  const cp = compSweep.trace.phaseDeg;
+  // Raw phases are traces minus their offsets; the loop gets its own offset.
+  const raw0 = pp[0] - prepared.plantOffsetDeg + cp[0] - compSweep.offsetDeg;
+  const offset = phaseOffsetDeg(raw0);
+  const shift = offset - prepared.plantOffsetDeg - compSweep.offsetDeg;
+  const magDb = new Array<number>(n);
+  const phaseDeg = new Array<number>(n);
   for (let i = 0; i < n; i++) {
-    magDb.push(pm[i] + compRaw.magDb[i]);
-    phaseDeg.push(pp[i] + compRaw.phaseRawDeg[i] + offset);
+    magDb[i] = pm[i] + cm[i];
+    phaseDeg[i] = pp[i] + cp[i] + shift;
   }
   const loop = { f: prepared.grid.f, magDb, phaseDeg };
-  return { compRaw, loop, evaluate: evaluateLoopGain(prepared, comp, offset) };
+  return { compTrace: compSweep.trace, loop, evaluate: evaluateLoopGain(prepared, comp, offset) };
 };
 
 const checkCompensator = (comp: CompensatorInput) => {
@@ -181,7 +185,7 @@ export const marginsForCompensator = (prepared: PreparedPlant, comp: Compensator
  */
 export const analyzeLoop = (prepared: PreparedPlant, comp: CompensatorInput): LoopResult => {
   checkCompensator(comp);
-  const { compRaw, loop, evaluate } = sweepLoop(prepared, compensatorTransfer(comp));
+  const { compTrace, loop, evaluate } = sweepLoop(prepared, compensatorTransfer(comp));
   const margins = computeMargins(loop, evaluate);
   const rb = dividerRb(comp.r1, prepared.vref, prepared.converter.vout);
   return {
@@ -192,7 +196,7 @@ export const analyzeLoop = (prepared: PreparedPlant, comp: CompensatorInput): Lo
       f: prepared.grid.f as number[],
       loop: { magDb: loop.magDb, phaseDeg: loop.phaseDeg },
       plant: prepared.plantTrace,
-      compensator: toTrace(compRaw.magDb, compRaw.phaseRawDeg, phaseOffsetDeg(compRaw.phaseRawDeg[0])),
+      compensator: compTrace,
     },
     checks: [
       ...prepared.stageChecks,

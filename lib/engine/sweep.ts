@@ -34,12 +34,6 @@ export const logSweep = (fStart: number, fStop: number, points: number): number[
   return f;
 };
 
-/** A transfer's raw response on a grid: magnitude in dB and continuous raw phase in degrees. */
-export interface RawResponse {
-  magDb: Float64Array;
-  phaseRawDeg: Float64Array;
-}
-
 /** Angular frequencies 2πf and their squares, computed once per grid. */
 export interface Grid {
   f: readonly number[];
@@ -78,20 +72,37 @@ const phasePlan = (h: SectionedTransfer): Float64Array => {
   return Float64Array.from(terms);
 };
 
+/** A transfer swept on a grid. */
+export interface TransferSweep {
+  /** Magnitude (dB) and phase (deg), the phase starting at its principal value. */
+  trace: BodeTrace;
+  /** The multiple of 360° added to the raw section phase (see phaseOffsetDeg). */
+  offsetDeg: number;
+  /** H(jω) as complex samples, when asked for. */
+  re?: Float64Array;
+  im?: Float64Array;
+}
+
 /**
- * Evaluate a sectioned transfer on a grid (hot path, plain numbers, one atan2 per term).
- * magDb = 10·log10(gain²·ω^(2n)·Π|num|²/Π|den|²); phaseRaw = Σ term angles + 90°·n (+180° for a negative gain).
+ * Evaluate a sectioned transfer on a grid (hot path: plain numbers, one atan2 per term, one
+ * log10 per point; output arrays are allocated once at their final size).
+ * magDb = 10·log10(gain²·ω^(2n)·Π|num|²/Π|den|²); phase = Σ term angles + 90°·n (+180° for a
+ * negative gain) + offset, the offset chosen at the first point.
+ * With `withComplex`, H(jω) = gain·(jω)^n·Π N·conj(D)/|D|² is accumulated from the same terms.
  */
-export const sweepTransfer = (h: SectionedTransfer, grid: Grid, out?: RawResponse): RawResponse => {
+export const sweepTransfer = (h: SectionedTransfer, grid: Grid, withComplex = false): TransferSweep => {
   const n = grid.f.length;
-  const magDb = out?.magDb ?? new Float64Array(n);
-  const phaseRawDeg = out?.phaseRawDeg ?? new Float64Array(n);
+  const magDb = new Array<number>(n);
+  const phaseDeg = new Array<number>(n);
+  const re = withComplex ? new Float64Array(n) : undefined;
+  const im = withComplex ? new Float64Array(n) : undefined;
   const g2 = h.gain * h.gain;
   const ph0 = (h.gain < 0 ? Math.PI : 0) + (h.originOrder * Math.PI) / 2;
   const order = h.originOrder;
   const plan = phasePlan(h);
   const nt = plan.length;
   const { w, w2 } = grid;
+  let offsetDeg = 0;
   for (let i = 0; i < n; i++) {
     const wi = w[i];
     const wi2 = w2[i];
@@ -99,19 +110,45 @@ export const sweepTransfer = (h: SectionedTransfer, grid: Grid, out?: RawRespons
     if (order === -1) m /= wi2;
     else if (order !== 0) m *= Math.pow(wi2, order);
     let ph = ph0;
+    let pr = 1;
+    let pi = 0;
     for (let k = 0; k < nt; k += 4) {
       const nre = 1 - plan[k + 1] * wi2;
       const nim = plan[k] * wi;
       const dre = 1 - plan[k + 3] * wi2;
       const dim = plan[k + 2] * wi;
-      m *= (nre * nre + nim * nim) / (dre * dre + dim * dim);
-      // ∠(N·conj(D)) = ∠N − ∠D
-      ph += Math.atan2(nim * dre - nre * dim, nre * dre + nim * dim);
+      const d2 = dre * dre + dim * dim;
+      m *= (nre * nre + nim * nim) / d2;
+      // N·conj(D): its angle is ∠N − ∠D
+      const tr = nre * dre + nim * dim;
+      const ti = nim * dre - nre * dim;
+      ph += Math.atan2(ti, tr);
+      if (re) {
+        const qr = (pr * tr - pi * ti) / d2;
+        pi = (pr * ti + pi * tr) / d2;
+        pr = qr;
+      }
     }
+    if (i === 0) offsetDeg = phaseOffsetDeg(ph * RAD2DEG);
     magDb[i] = DB_PER_LOG10_MAGSQ * Math.log10(m);
-    phaseRawDeg[i] = ph * RAD2DEG;
+    phaseDeg[i] = ph * RAD2DEG + offsetDeg;
+    if (re && im) {
+      // × gain·(jω)^order
+      for (let k = 0; k < order; k++) {
+        const t = -pi * wi;
+        pi = pr * wi;
+        pr = t;
+      }
+      for (let k = 0; k > order; k--) {
+        const t = pi / wi;
+        pi = -pr / wi;
+        pr = t;
+      }
+      re[i] = h.gain * pr;
+      im[i] = h.gain * pi;
+    }
   }
-  return { magDb, phaseRawDeg };
+  return { trace: { magDb, phaseDeg }, offsetDeg, re, im };
 };
 
 /** Complex response on a grid: re and im of N(jω)/D(jω) for ascending polynomials (Horner). */
@@ -143,23 +180,8 @@ export const sweepComplex = (num: readonly number[], den: readonly number[], gri
   return { re, im };
 };
 
-/** Bode trace (plain arrays, as the API returns them) with the phase shifted by `offsetDeg`. */
-export const toTrace = (magDb: ArrayLike<number>, phaseRawDeg: ArrayLike<number>, offsetDeg: number): BodeTrace => {
-  const n = magDb.length;
-  const m = new Array<number>(n);
-  const p = new Array<number>(n);
-  for (let i = 0; i < n; i++) {
-    m[i] = magDb[i];
-    p[i] = phaseRawDeg[i] + offsetDeg;
-  }
-  return { magDb: m, phaseDeg: p };
-};
-
 /** Trace of one transfer on a grid, phase starting at its principal value. */
-export const bodeTrace = (h: SectionedTransfer, grid: Grid): BodeTrace => {
-  const r = sweepTransfer(h, grid);
-  return toTrace(r.magDb, r.phaseRawDeg, phaseOffsetDeg(r.phaseRawDeg[0]));
-};
+export const bodeTrace = (h: SectionedTransfer, grid: Grid): BodeTrace => sweepTransfer(h, grid).trace;
 
 /**
  * Any transfer (e.g. a loop built by hand) as a sampled response on `f` plus its analytic
@@ -169,12 +191,10 @@ export const transferResponse = (
   h: SectionedTransfer,
   f: readonly number[],
 ): { sampled: SampledResponse; evaluate: LoopPointEvaluator } => {
-  const r = sweepTransfer(h, makeGrid(f));
-  const offset = phaseOffsetDeg(r.phaseRawDeg[0]);
-  for (let i = 0; i < f.length; i++) r.phaseRawDeg[i] += offset;
+  const { trace, offsetDeg } = sweepTransfer(h, makeGrid(f));
   const evaluate: LoopPointEvaluator = (hz) => {
     const p = transferPointRaw(h, hz);
-    return { magDb: dbFromMagSq(p.magSq), phaseDeg: p.phaseRawDeg + offset };
+    return { magDb: dbFromMagSq(p.magSq), phaseDeg: p.phaseRawDeg + offsetDeg };
   };
-  return { sampled: { f, magDb: r.magDb, phaseDeg: r.phaseRawDeg }, evaluate };
+  return { sampled: { f, ...trace }, evaluate };
 };

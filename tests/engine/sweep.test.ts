@@ -1,0 +1,50 @@
+import { describe, expect, it } from 'vitest';
+import Complex from 'complex.js';
+import { compensatorTransfer } from '@/lib/engine/compensator';
+import { defaultSweep, logSweep, makeGrid, sweepComplex, sweepTransfer } from '@/lib/engine/sweep';
+import { evaluateTransfer, multiplyTransfers, transferFromPolys, transferPolys, wrapDeg } from '@/lib/engine/transfer';
+import { expectAbs, expectRel } from './helpers';
+
+const TWO_PI = 2 * Math.PI;
+
+describe('logSweep', () => {
+  it('default: 10 Hz to fsw/2, 400 points', () => {
+    expect(defaultSweep(300e3)).toEqual({ fStart: 10, fStop: 150e3, points: 400 });
+  });
+
+  it('is geometric with exact end points', () => {
+    const f = logSweep(10, 150e3, 400);
+    expect(f).toHaveLength(400);
+    expect(f[0]).toBe(10);
+    expect(f[399]).toBe(150e3);
+    const r = (150e3 / 10) ** (1 / 399);
+    f.forEach((x, i) => expectRel(x, 10 * r ** i, 1e-12));
+  });
+});
+
+describe('sweepTransfer', () => {
+  const cases = [
+    ['Type III compensator (integrator)', compensatorTransfer({ type: 'type3', r1: 1e4, r2: 2e4, r3: 500, c1: 2.2e-9, c2: 47e-12, c3: 1e-9 })],
+    ['RHP zero and LC pair', transferFromPolys([3, -2e-5, 1e-10], [1, 4e-5, 2.5e-9])],
+    ['negative gain and a zero at the origin', multiplyTransfers(transferFromPolys([0, -2e-3], [1, 1e-4]), transferFromPolys([1], [1, 1e-6, 1e-10]))],
+  ] as const;
+
+  it.each(cases)('%s: magnitude, phase and complex samples match the polynomial ratio', (_, h) => {
+    const f = logSweep(1, 1e7, 300);
+    const s = sweepTransfer(h, makeGrid(f), true);
+    const { num, den } = transferPolys(h);
+    const c = sweepComplex(num, den, makeGrid(f));
+    for (let i = 0; i < f.length; i++) {
+      const ref = evaluateTransfer(h, new Complex(0, TWO_PI * f[i]));
+      expectAbs(s.trace.magDb[i], 20 * Math.log10(ref.abs()), 1e-9);
+      expectAbs(wrapDeg(s.trace.phaseDeg[i] - (ref.arg() * 180) / Math.PI), 0, 1e-9);
+      expect(Math.hypot(s.re![i] - ref.re, s.im![i] - ref.im) / ref.abs()).toBeLessThan(1e-12);
+      expect(Math.hypot(c.re[i] - ref.re, c.im[i] - ref.im) / ref.abs()).toBeLessThan(1e-12);
+    }
+    // Continuous phase: no jump of 180° or more between neighbouring samples.
+    for (let i = 1; i < f.length; i++) expect(Math.abs(s.trace.phaseDeg[i] - s.trace.phaseDeg[i - 1])).toBeLessThan(180);
+    // Starts at the principal value.
+    expect(s.trace.phaseDeg[0]).toBeGreaterThan(-180);
+    expect(s.trace.phaseDeg[0]).toBeLessThanOrEqual(180);
+  });
+});
