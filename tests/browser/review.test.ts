@@ -80,7 +80,7 @@ describe.runIf(run)('Compare and Sign-off', () => {
     const designer = await pageAs('designer@demo.test');
     await designer.goto(`${baseUrl}/designs/${designId}/history?r=2`);
     const panel = designer.getByTestId('signoff-panel');
-    await designer.getByLabel('Reviewer').selectOption({ label: 'Rui Reviewer (reviewer)' });
+    await designer.getByLabel('Reviewer', { exact: true }).selectOption({ label: 'Rui Reviewer (reviewer)' });
     await designer.getByLabel('Message to the reviewer').fill('Gain raised by lowering R1; please check PM');
     await designer.getByRole('button', { name: 'Submit r2 for review' }).click();
     await expect.poll(() => panel.locator('[data-state]').first().getAttribute('data-state')).toBe('in-review');
@@ -95,7 +95,7 @@ describe.runIf(run)('Compare and Sign-off', () => {
     await reviewer.goto(link!.replace(/^https?:\/\/[^/]+/, baseUrl));
     const rpanel = reviewer.getByTestId('signoff-panel');
     expect(await rpanel.textContent()).toMatch(/Gain raised by lowering R1/);
-    await reviewer.getByLabel('Add a remark').fill('Checked the step response margin; fine at low line.');
+    await reviewer.getByRole('textbox', { name: 'Add a remark' }).fill('Checked the step response margin; fine at low line.');
     await reviewer.getByRole('button', { name: 'Add remark' }).click();
     await expect.poll(() => reviewer.getByTestId('timeline').textContent()).toMatch(/fine at low line/);
     await reviewer.getByLabel(/Remarks with the decision/).fill('Approved for the pilot build');
