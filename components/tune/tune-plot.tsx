@@ -1,7 +1,7 @@
 'use client';
 
 import { useMemo, useState } from 'react';
-import { BodePlot, type BodeSeries, type PlotMarker } from '@/components/plot/bode-plot';
+import { BodePlot, type BenchOverlay, type BodeSeries, type PlotMarker } from '@/components/plot/bode-plot';
 import { interpolateLogF } from '@/lib/engine/margins';
 import type { BodeData, Margins, TransferSummary } from '@/lib/engine/types';
 import { HandleOverlay, type HandleMove, type PlacedHandle } from './handle-overlay';
@@ -28,10 +28,12 @@ interface Props {
   onDrag: (id: string, move: HandleMove) => void;
   onDragEnd: (id: string) => void;
   onStep: (id: string, move: HandleMove) => void;
+  /** Bench data (Handoff, issue 6): the newest measured loop, drawn as grey dots. */
+  bench?: BenchOverlay | null;
 }
 
 /** The Tune Bode plot: trace toggles, power-stage features marked, compensator handles on top. */
-export function TunePlot({ bode, margins, plant, handles, midbandGainDb, dragging, readOnly, ...events }: Props) {
+export function TunePlot({ bode, margins, plant, handles, midbandGainDb, dragging, readOnly, bench, ...events }: Props) {
   const [shown, setShown] = useState<Record<TraceId, boolean>>({ loop: true, plant: true, compensator: true });
 
   const series = useMemo<BodeSeries[]>(
@@ -88,6 +90,7 @@ export function TunePlot({ bode, margins, plant, handles, midbandGainDb, draggin
         series={series}
         markers={markers}
         margins={marks}
+        bench={bench ?? undefined}
         freezeRanges={dragging}
         showLegend={false}
         height={480}

@@ -17,6 +17,7 @@ import { StageForm } from './stage-form';
 import { StartingPointForm, type StartingPointRequest } from './starting-point-form';
 import { analyzeCompensator, analyzeParts, prepareStage } from './tune-analysis';
 import { TunePlot } from './tune-plot';
+import { useBenchOverlay } from '@/lib/queries/bench';
 import { useLeaveGuard } from './use-leave-guard';
 
 export type TuneMode = 'edit' | 'role-read-only' | 'earlier-revision';
@@ -55,6 +56,7 @@ function Card({ title, children, className = '', aside }: { title: string; child
 
 export function TuneScreen({ designId, initialInput, shownRevision, latestRevision, mode, role, revisions }: TuneScreenProps) {
   const readOnly = mode !== 'edit';
+  const bench = useBenchOverlay(designId); // Bench data overlay (Handoff, issue 6)
   const [input, setInput] = useState<AnalyzeRequest>(initialInput);
   const [saved, setSaved] = useState({ json: stableJson(initialInput), revision: shownRevision });
   const [stageValid, setStageValid] = useState(true);
@@ -179,6 +181,7 @@ export function TuneScreen({ designId, initialInput, shownRevision, latestRevisi
               onDrag={onDrag}
               onDragEnd={onDragEnd}
               onStep={onStep}
+              bench={bench}
             />
           ) : (
             <div className="grid h-[480px] place-items-center text-center text-sm text-slate-500" data-testid="plot-unavailable">
