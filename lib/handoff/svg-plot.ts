@@ -10,7 +10,7 @@ export const PLOT_COLORS = {
   loop: '#4f46e5', // indigo
   plant: '#0d9488', // teal
   compensator: '#d97706', // amber
-  bench: '#94a3b8', // grey dots
+  bench: '#6b7280', // grey dots (as the Tune plot)
   difference: '#be123c',
   grid: '#e2e8f0',
   guide: '#94a3b8',

@@ -85,7 +85,7 @@ describe('SVG plots', () => {
     const dots = (svg.match(/r="2.2"/g) ?? []).length;
     expect(dots).toBeGreaterThan(400);
     expect(dots).toBeLessThanOrEqual(2 * 800);
-    expect(svg).toContain('fill="#94a3b8"');
+    expect(svg).toContain('fill="#6b7280"');
     expect(differenceSvg(bench, { id: 'd', title: 'diff' })).toContain('Δ phase');
   });
 });
