@@ -56,6 +56,8 @@ export interface PreparedPlant {
   plantTrace: BodeTrace;
   /** Multiple of 360° added to the plant's raw phase in plantTrace. */
   plantOffsetDeg: number;
+  /** Work buffers of grid size, reused by marginsForCompensator (single-threaded use). */
+  scratch: { re: Float64Array; im: Float64Array };
   stageChecks: Check[];
 }
 
@@ -103,6 +105,7 @@ export const preparePlant = (req: StageRequest): PreparedPlant => {
     plantIm: plantSweep.im!,
     plantTrace: plantSweep.trace,
     plantOffsetDeg: plantSweep.offsetDeg,
+    scratch: { re: new Float64Array(grid.f.length), im: new Float64Array(grid.f.length) },
     stageChecks: stageChecks(model.operatingPoint),
   };
 };
@@ -168,7 +171,7 @@ export const marginsForCompensator = (prepared: PreparedPlant, comp: Compensator
   checkCompensator(comp);
   const gc = compensatorTransfer(comp);
   const polys = transferPolys(gc);
-  const c = sweepComplex(polys.num, polys.den, prepared.grid);
+  const c = sweepComplex(polys.num, polys.den, prepared.grid, prepared.scratch);
   const { plantRe, plantIm } = prepared;
   const n = plantRe.length;
   for (let i = 0; i < n; i++) {

@@ -151,11 +151,19 @@ export const sweepTransfer = (h: SectionedTransfer, grid: Grid, withComplex = fa
   return { trace: { magDb, phaseDeg }, offsetDeg, re, im };
 };
 
-/** Complex response on a grid: re and im of N(jω)/D(jω) for ascending polynomials (Horner). */
-export const sweepComplex = (num: readonly number[], den: readonly number[], grid: Grid): { re: Float64Array; im: Float64Array } => {
+/**
+ * Complex response on a grid: re and im of N(jω)/D(jω) for ascending polynomials (Horner).
+ * `out` (length ≥ grid size) is filled instead of allocating, for repeated calls.
+ */
+export const sweepComplex = (
+  num: readonly number[],
+  den: readonly number[],
+  grid: Grid,
+  out?: { re: Float64Array; im: Float64Array },
+): { re: Float64Array; im: Float64Array } => {
   const n = grid.f.length;
-  const re = new Float64Array(n);
-  const im = new Float64Array(n);
+  const re = out?.re ?? new Float64Array(n);
+  const im = out?.im ?? new Float64Array(n);
   const { w } = grid;
   for (let i = 0; i < n; i++) {
     const wi = w[i];

@@ -10,7 +10,7 @@
  * sweep and the numerical refinement of crossings.
  */
 import Complex from 'complex.js';
-import { evalPoly, polyMul, polyRoots, polyTrim, type Poly } from './complex-poly';
+import { evalPoly, polyMul, polyTrim, type Poly } from './complex-poly';
 import type { TransferSummary } from './types';
 
 const TWO_PI = 2 * Math.PI;
@@ -126,7 +126,38 @@ export const dbFromMagSq = (magSq: number): number => 10 * Math.log10(magSq);
 /** 20·log10(x) for a magnitude x. */
 export const dbFromMag = (mag: number): number => 20 * Math.log10(mag);
 
-const rootHz = (r: Complex) => r.abs() / TWO_PI;
+/** Roots of one section [1, a1] or [1, a1, a2] as plain {re, im} (rad/s), without cancellation. */
+const sectionRoots = (p: Poly): { re: number; im: number }[] => {
+  const a1 = p[1] ?? 0;
+  const a2 = p.length > 2 ? p[2] : 0;
+  if (a2 === 0) return a1 === 0 ? [] : [{ re: -1 / a1, im: 0 }];
+  const disc = a1 * a1 - 4 * a2;
+  if (disc >= 0) {
+    const q = -0.5 * (a1 + (a1 >= 0 ? Math.sqrt(disc) : -Math.sqrt(disc)));
+    return [
+      { re: q / a2, im: 0 },
+      { re: 1 / q, im: 0 },
+    ];
+  }
+  const re = -a1 / (2 * a2);
+  const im = Math.sqrt(-disc) / (2 * Math.abs(a2));
+  return [
+    { re, im },
+    { re, im: -im },
+  ];
+};
+
+/** Poles and zeros of a sectioned transfer (rad/s), origin roots included as 0. */
+export const transferRoots = (h: SectionedTransfer): { zeros: { re: number; im: number }[]; poles: { re: number; im: number }[] } => {
+  const origin = (k: number) => Array.from({ length: k }, () => ({ re: 0, im: 0 }));
+  return {
+    zeros: [...origin(Math.max(0, h.originOrder)), ...h.num.flatMap(sectionRoots)],
+    poles: [...origin(Math.max(0, -h.originOrder)), ...h.den.flatMap(sectionRoots)],
+  };
+};
+
+const rootHz = (r: { re: number; im: number }) => Math.hypot(r.re, r.im) / TWO_PI;
+const ascending = (a: number, b: number) => a - b;
 
 /**
  * Landmarks of a transfer, frequencies in Hz.
@@ -137,28 +168,25 @@ const rootHz = (r: Complex) => r.abs() / TWO_PI;
  * - rhpZeroHz: the lowest right-half-plane real zero, else null.
  */
 export const summarizeTransfer = (h: SectionedTransfer, esrHint: number | null = null): TransferSummary => {
-  const { num, den } = transferPolys(h);
-  const zeros = polyRoots(num);
-  const poles = polyRoots(den);
+  const { zeros, poles } = transferRoots(h);
   const quad = h.den.find((p) => p.length === 3 && p[2] > 0);
   const resonanceHz = quad ? 1 / (TWO_PI * Math.sqrt(quad[2])) : null;
   const q = quad && quad[1] > 0 ? Math.sqrt(quad[2]) / quad[1] : null;
   const realZeros = zeros.filter((z) => z.im === 0 && z.re !== 0);
-  const lhp = realZeros.filter((z) => z.re < 0).map((z) => -z.re / TWO_PI);
-  const rhp = realZeros.filter((z) => z.re > 0).map((z) => z.re / TWO_PI);
   let esrZeroHz: number | null = null;
-  if (esrHint !== null && lhp.length > 0) {
-    esrZeroHz = lhp.reduce((best, f) =>
-      Math.abs(Math.log(f / esrHint)) < Math.abs(Math.log(best / esrHint)) ? f : best,
-    );
+  let rhpZeroHz: number | null = null;
+  for (const z of realZeros) {
+    const f = Math.abs(z.re) / TWO_PI;
+    if (z.re > 0) rhpZeroHz = rhpZeroHz === null ? f : Math.min(rhpZeroHz, f);
+    else if (esrHint !== null && (esrZeroHz === null || Math.abs(Math.log(f / esrHint)) < Math.abs(Math.log(esrZeroHz / esrHint)))) esrZeroHz = f;
   }
   return {
     dcGainDb: h.originOrder === 0 ? dbFromMag(Math.abs(h.gain)) : null,
     resonanceHz,
     q,
     esrZeroHz,
-    rhpZeroHz: rhp.length > 0 ? Math.min(...rhp) : null,
-    polesHz: poles.map(rootHz).sort((a, b) => a - b),
-    zerosHz: zeros.map(rootHz).sort((a, b) => a - b),
+    rhpZeroHz,
+    polesHz: poles.map(rootHz).sort(ascending),
+    zerosHz: zeros.map(rootHz).sort(ascending),
   };
 };
