@@ -28,6 +28,7 @@ import {
   type Margins,
   type OperatingPoint,
   type PartsOptions,
+  type PartsResult,
   type PartValues,
   type SweepOptions,
   type TransferSummary,
@@ -228,6 +229,23 @@ export const snapCompensator = (comp: CompensatorInput, parts: PartsOptions): Co
 };
 
 /**
+ * Ideal and snapped parts with the margins the snapped parts give (defaults: E96 resistors,
+ * E12 capacitors). Rb is the divider's lower resistor, snapped to the resistor series.
+ */
+export const analyzeParts = (prepared: PreparedPlant, comp: CompensatorInput, options?: Partial<PartsOptions>): PartsResult => {
+  const series = { ...DEFAULT_PARTS, ...options };
+  const snappedComp = snapCompensator(comp, series);
+  const rb = dividerRb(comp.r1, prepared.vref, prepared.converter.vout);
+  return {
+    resistorSeries: series.resistorSeries,
+    capacitorSeries: series.capacitorSeries,
+    ideal: partValues(comp, rb),
+    snapped: partValues(snappedComp, snapToSeries(rb, series.resistorSeries)),
+    snappedMargins: marginsForCompensator(prepared, snappedComp),
+  };
+};
+
+/**
  * Full analysis of a design (POST /api/analyze).
  * @throws EngineInputError (→ 422) for physically impossible input, naming each field.
  */
@@ -237,9 +255,6 @@ export const analyze = (request: AnalyzeRequest): AnalyzeResult => {
   if (stage.length + comp.length > 0) throw new EngineInputError([...stage, ...comp]);
   const prepared = preparePlant(request);
   const loop = analyzeLoop(prepared, request.compensator);
-  const partsOptions = { ...DEFAULT_PARTS, ...request.parts };
-  const snappedComp = snapCompensator(request.compensator, partsOptions);
-  const rb = dividerRb(request.compensator.r1, prepared.vref, prepared.converter.vout);
   return {
     operatingPoint: prepared.operatingPoint,
     plant: prepared.plant,
@@ -248,13 +263,7 @@ export const analyze = (request: AnalyzeRequest): AnalyzeResult => {
     compensator: loop.compensator,
     margins: loop.margins,
     phaseAtHalfFswDeg: loop.phaseAtHalfFswDeg,
-    parts: {
-      resistorSeries: partsOptions.resistorSeries,
-      capacitorSeries: partsOptions.capacitorSeries,
-      ideal: partValues(request.compensator, rb),
-      snapped: partValues(snappedComp, snapToSeries(rb, partsOptions.resistorSeries)),
-      snappedMargins: marginsForCompensator(prepared, snappedComp),
-    },
+    parts: analyzeParts(prepared, request.compensator, request.parts),
     bode: loop.bode,
     checks: loop.checks,
   };

@@ -6,7 +6,7 @@
  *                 analyzeLoop(prepared, partsFromShape(shape)).
  */
 export * from './types';
-export { analyze, analyzeLoop, evaluateLoopGain, preparePlant, marginsForCompensator, snapCompensator, partValues } from './analyze';
+export { analyze, analyzeLoop, analyzeParts, evaluateLoopGain, preparePlant, marginsForCompensator, snapCompensator, partValues } from './analyze';
 export type { PreparedPlant, LoopResult, StageRequest } from './analyze';
 export {
   compensatorImpedances,
