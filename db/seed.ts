@@ -13,6 +13,10 @@ import { memberships, teams, type Role } from './schema';
 
 export const DEMO_PASSWORD = 'phasewright-demo';
 export const DEMO_TEAM = { name: 'Northwind Robotics — Power', slug: 'northwind-power' };
+/** A second team, so the team switcher and per-team roles can be tried: the designer only reads there. */
+export const DEMO_SECOND_TEAM = { name: 'Northwind Robotics — Lab instruments', slug: 'northwind-lab' };
+const SECOND_TEAM_ROLES: Record<string, Role> = { 'admin@demo.test': 'admin', 'designer@demo.test': 'viewer' };
+
 export const DEMO_USERS: { email: string; name: string; role: Role }[] = [
   { email: 'admin@demo.test', name: 'Ada Admin', role: 'admin' },
   { email: 'designer@demo.test', name: 'Dara Designer', role: 'designer' },
@@ -36,6 +40,11 @@ export function seedDemo(db: Db) {
       const user = getUserByEmail(t, u.email) ?? createUser(t, { ...u, password: DEMO_PASSWORD });
       ids[u.role] = user.id;
       t.insert(memberships).values({ userId: user.id, teamId: team.id, role: u.role }).onConflictDoNothing().run();
+    }
+    const lab = t.select().from(teams).where(eq(teams.slug, DEMO_SECOND_TEAM.slug)).get() ?? createTeam(t, DEMO_SECOND_TEAM);
+    for (const [email, role] of Object.entries(SECOND_TEAM_ROLES)) {
+      const user = getUserByEmail(t, email)!;
+      t.insert(memberships).values({ userId: user.id, teamId: lab.id, role }).onConflictDoNothing().run();
     }
     const existing = new Set(listDesigns(t, team.id).map((d) => d.name));
     for (const demo of DEMO_DESIGNS) {

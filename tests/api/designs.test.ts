@@ -96,3 +96,34 @@ describe('POST /api/designs', () => {
     expect((await res.json()).issues[0].path).toBe('(body)');
   });
 });
+
+describe('teams', () => {
+  it('switches only to a team the user belongs to, and the role follows the team', async () => {
+    const c = await signedInAs(baseUrl, 'designer');
+    const session = await (await c.fetch('/api/auth/session')).json();
+    const home = session.user.teamId as number;
+    const homeDesigns = (await (await c.fetch('/api/designs')).json()).designs;
+
+    // Any team id the designer is not in is refused.
+    expect((await c.json('/api/session/team', 'POST', { teamId: 999_999 })).status).toBe(403);
+    expect((await c.json('/api/session/team', 'POST', { teamId: 'lab' })).status).toBe(400);
+
+    // The second demo team, where the designer only reads.
+    const admin = await signedInAs(baseUrl, 'admin');
+    const adminTeams = (await (await admin.fetch('/api/auth/session')).json()).user.teamId as number;
+    expect(adminTeams).toBe(home);
+    let lab: number | null = null;
+    for (let id = home + 1; id < home + 5 && lab === null; id++) {
+      const res = await c.json('/api/session/team', 'POST', { teamId: id });
+      if (res.status === 200) lab = id;
+    }
+    expect(lab).not.toBeNull();
+    const inLab = await (await c.fetch('/api/auth/session')).json();
+    expect(inLab.user).toMatchObject({ teamId: lab, role: 'viewer' });
+    const labDesigns = (await (await c.fetch('/api/designs')).json()).designs;
+    expect(labDesigns.map((d: { id: number }) => d.id)).not.toEqual(expect.arrayContaining(homeDesigns.map((d: { id: number }) => d.id)));
+    expect((await c.json('/api/designs', 'POST', { name: 'Not allowed here' })).status).toBe(403);
+    // A design of the other team is not found from here.
+    expect((await c.fetch(`/api/designs/${homeDesigns[0].id}`)).status).toBe(404);
+  });
+});

@@ -38,5 +38,7 @@ describe('demo seed', () => {
     const teamId = listTeamsForUser(db, getUserByEmail(db, 'admin@demo.test')!.id)[0].teamId;
     expect(listDesigns(db, teamId)).toHaveLength(3);
     expect(listTeamsForUser(db, getUserByEmail(db, 'viewer@demo.test')!.id)).toHaveLength(1);
+    // The designer also reads a second team, with a different role there.
+    expect(listTeamsForUser(db, getUserByEmail(db, 'designer@demo.test')!.id).map((t) => t.role)).toEqual(['designer', 'viewer']);
   });
 });
