@@ -33,8 +33,8 @@ export function DiffTable({ rows, labelA, labelB }: { rows: DiffRow[]; labelA: s
         <thead>
           <tr>
             <th>Quantity</th>
-            <th className="text-right normal-case">{labelA} (A)</th>
-            <th className="text-right normal-case">{labelB} (B)</th>
+            <th className="text-right !normal-case">{labelA} (A)</th>
+            <th className="text-right !normal-case">{labelB} (B)</th>
             <th className="text-right">Change</th>
           </tr>
         </thead>
