@@ -3,9 +3,9 @@ import nodemailer, { type Transporter } from 'nodemailer';
 
 /**
  * Outgoing mail over SMTP with nodemailer. The server is SMTP_HOST
- * (default 127.0.0.1) on SMTP_PORT; in the demo and the tests that is the
- * local fake mail server. Without SMTP_PORT, mail is skipped with a log line.
- * Sending never throws: a failed notification must not undo a sign-off.
+ * (default 127.0.0.1) on SMTP_PORT (default 2525); in the demo and the tests
+ * that is the local fake mail server. Sending never throws: a failed
+ * notification is logged and must not undo a sign-off.
  */
 
 export interface OutgoingMail {
@@ -18,13 +18,13 @@ export interface OutgoingMail {
   link?: { label: string; url: string };
 }
 
-export const MAIL_FROM = process.env.MAIL_FROM ?? 'Phasewright <no-reply@phasewright.local>';
+export const MAIL_FROM = process.env.MAIL_FROM ?? 'Phasewright <noreply@phasewright.local>';
 
 let cached: { key: string; transport: Transporter } | undefined;
 
 function transport(): Transporter | null {
-  const port = Number(process.env.SMTP_PORT);
-  if (!port) return null;
+  const port = Number(process.env.SMTP_PORT || 2525);
+  if (!Number.isInteger(port) || port <= 0) return null;
   const host = process.env.SMTP_HOST ?? '127.0.0.1';
   const key = `${host}:${port}`;
   if (cached?.key !== key) {
@@ -69,8 +69,8 @@ ${m.link ? `<p style="margin:16px 0"><a href="${escapeHtml(m.link.url)}" style="
 export async function sendMail(m: OutgoingMail): Promise<{ sent: boolean; error?: string }> {
   const t = transport();
   if (!t) {
-    console.warn(`[mail] SMTP_PORT is not set; not sending "${m.subject}" to ${m.to}`);
-    return { sent: false, error: 'SMTP_PORT is not set' };
+    console.warn(`[mail] SMTP_PORT is not a port number; not sending "${m.subject}" to ${m.to}`);
+    return { sent: false, error: 'SMTP_PORT is not a port number' };
   }
   try {
     await t.sendMail({ from: MAIL_FROM, to: m.to, subject: m.subject, ...renderMail(m) });

@@ -62,7 +62,7 @@ describe('fake mail server', () => {
       expect(m.subject).toBe('Ströme — größer als 1 A ✓');
       expect(m.text).toContain('Grüße, ' + 'x'.repeat(200));
       expect(m.html).toContain('Grüße');
-      expect(m.fromAddress).toBe('no-reply@phasewright.local');
+      expect(m.fromAddress).toBe('noreply@phasewright.local');
       expect(m.raw).toMatch(/^Content-Type: multipart\/alternative/im);
     }
   });
