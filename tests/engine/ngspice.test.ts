@@ -112,3 +112,20 @@ describe.skipIf(!HAVE_NGSPICE && !IN_CI)('engine vs ngspice AC analysis of the a
     expect(worstDeg, 'worst phase difference, degrees').toBeLessThan(1);
   });
 });
+
+describe('buildSpiceNetlist (text, no simulator needed)', () => {
+  it('has an .ac card, every compensator part, the divider and the sensing sign of the topology', () => {
+    const [, buck] = DESIGNS[0];
+    const text = buildSpiceNetlist(buck, { pointsPerDecade: 10, fStart: 20, fStop: 1e5 });
+    expect(text).toMatch(/^\.ac dec 10 20 100000$/m);
+    for (const el of ['R1 fb inv 20000', 'R2 inv n2 10000', 'R3 fb n3 500', 'C1 n2 ctl 3.3e-9', 'C2 inv ctl 1e-10', 'C3 n3 inv 2.2e-9', 'Rb inv 0 1818.18181818']) {
+      expect(text).toContain(el);
+    }
+    expect(text).toMatch(/^Esense sense 0 out 0 1$/m);
+    expect(text).toMatch(/^\.end$/m);
+    const [, inverting] = DESIGNS[2];
+    const inv = buildSpiceNetlist(inverting);
+    expect(inv).toMatch(/^Esense sense 0 0 out 1$/m);
+    expect(inv).not.toMatch(/^C2 /m);
+  });
+});
