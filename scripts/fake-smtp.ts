@@ -12,9 +12,12 @@ const database = resolveDatabasePath();
 startFakeSmtp({ port, database })
   .then((smtp) => {
     console.log(`[fake-smtp] listening on 127.0.0.1:${port}, keeping mail in ${database}`);
-    const stop = () => smtp.close().then(() => process.exit(0));
-    process.on('SIGINT', stop);
-    process.on('SIGTERM', stop);
+    const stop = (signal: string) => {
+      console.log(`[fake-smtp] ${signal}: stopping after ${smtp.count()} message(s)`);
+      void smtp.close().then(() => process.exit(0));
+    };
+    process.on('SIGINT', () => stop('SIGINT'));
+    process.on('SIGTERM', () => stop('SIGTERM'));
   })
   .catch((err) => {
     console.error(`[fake-smtp] could not listen on 127.0.0.1:${port}: ${err.message}`);
