@@ -1,6 +1,6 @@
 import { desc, eq } from 'drizzle-orm';
 import type { Db } from '../connection';
-import { auditLog } from '../schema';
+import { auditLog, users } from '../schema';
 
 export interface AuditInput {
   teamId: number | null;
@@ -27,8 +27,18 @@ export function writeAudit(db: Db, e: AuditInput) {
 
 export function listAudit(db: Db, teamId: number, limit = 200) {
   return db
-    .select()
+    .select({
+      id: auditLog.id,
+      action: auditLog.action,
+      entityType: auditLog.entityType,
+      entityId: auditLog.entityId,
+      detail: auditLog.detail,
+      createdAt: auditLog.createdAt,
+      userId: auditLog.userId,
+      userName: users.name,
+    })
     .from(auditLog)
+    .leftJoin(users, eq(users.id, auditLog.userId))
     .where(eq(auditLog.teamId, teamId))
     .orderBy(desc(auditLog.id))
     .limit(limit)

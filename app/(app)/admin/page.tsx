@@ -3,6 +3,7 @@ import { redirect } from 'next/navigation';
 import { getDb } from '@/db/client';
 import { listAudit, listTeamMembers } from '@/db/queries';
 import { can, getCurrentUser } from '@/lib/auth';
+import { describeAudit } from '@/lib/audit-text';
 import { AddMemberForm, RoleSelect } from '@/components/admin/member-forms';
 
 export const metadata: Metadata = { title: 'Team' };
@@ -48,7 +49,7 @@ export default async function AdminPage() {
             <li key={a.id} className="px-3 py-2">
               <div className="font-mono text-xs text-slate-500">{a.createdAt.toISOString().replace('T', ' ').slice(0, 16)}</div>
               <div>
-                {a.action} <span className="text-slate-500">{a.entityType} #{a.entityId}</span>
+                <span className="font-medium">{a.userName ?? 'System'}</span> {describeAudit(a)}
               </div>
             </li>
           ))}
