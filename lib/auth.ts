@@ -1,5 +1,6 @@
 import 'server-only';
 import { cookies } from 'next/headers';
+import { redirect } from 'next/navigation';
 import { getServerSession, type NextAuthOptions } from 'next-auth';
 import CredentialsProvider from 'next-auth/providers/credentials';
 import { getDb } from '@/db/client';
@@ -107,3 +108,13 @@ export const can = {
   remark: (r: Role) => r !== 'viewer',
   manageTeam: (r: Role) => r === 'admin',
 };
+
+/**
+ * For server pages: the signed-in user, or a redirect to sign-in. Layouts and
+ * pages render in parallel, so each page checks for itself.
+ */
+export async function requireUser(): Promise<CurrentUser> {
+  const user = await getCurrentUser();
+  if (!user) redirect('/signin');
+  return user;
+}

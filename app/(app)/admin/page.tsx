@@ -2,14 +2,14 @@ import type { Metadata } from 'next';
 import { redirect } from 'next/navigation';
 import { getDb } from '@/db/client';
 import { listAudit, listTeamMembers } from '@/db/queries';
-import { can, getCurrentUser } from '@/lib/auth';
+import { can, requireUser } from '@/lib/auth';
 import { describeAudit } from '@/lib/audit-text';
 import { AddMemberForm, RoleSelect } from '@/components/admin/member-forms';
 
 export const metadata: Metadata = { title: 'Team' };
 
 export default async function AdminPage() {
-  const user = (await getCurrentUser())!;
+  const user = await requireUser();
   if (!can.manageTeam(user.role)) redirect('/designs');
   const db = getDb();
   const members = listTeamMembers(db, user.teamId);

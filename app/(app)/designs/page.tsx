@@ -1,14 +1,14 @@
 import type { Metadata } from 'next';
 import { getDb } from '@/db/client';
 import { listDesigns } from '@/db/queries';
-import { can, getCurrentUser } from '@/lib/auth';
+import { can, requireUser } from '@/lib/auth';
 import { DesignsTable } from '@/components/designs/designs-table';
 import { NewDesignButton } from '@/components/designs/new-design-button';
 
 export const metadata: Metadata = { title: 'Designs' };
 
 export default async function DesignsPage() {
-  const user = (await getCurrentUser())!;
+  const user = await requireUser();
   const designs = listDesigns(getDb(), user.teamId);
   return (
     <div className="space-y-4">

@@ -3,7 +3,7 @@ import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { getDb } from '@/db/client';
 import { getMail, listMail } from '@/db/queries';
-import { can, getCurrentUser } from '@/lib/auth';
+import { can, requireUser } from '@/lib/auth';
 import { formatDate } from '@/components/review/format';
 
 export const metadata: Metadata = { title: 'Mailbox' };
@@ -13,7 +13,7 @@ export const metadata: Metadata = { title: 'Mailbox' };
  * (PHASEWRIGHT_DEMO=1) and only for admins; elsewhere the page does not exist.
  */
 export default async function MailboxPage({ searchParams }: { searchParams: Promise<{ m?: string }> }) {
-  const user = (await getCurrentUser())!;
+  const user = await requireUser();
   if (process.env.PHASEWRIGHT_DEMO !== '1' || !can.manageTeam(user.role)) notFound();
   const { m } = await searchParams;
   const db = getDb();

@@ -2,12 +2,12 @@ import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { getDb } from '@/db/client';
 import { getDesign, getLatestRevision } from '@/db/queries';
-import { getCurrentUser } from '@/lib/auth';
+import { requireUser } from '@/lib/auth';
 import { DesignTabs } from '@/components/designs/design-tabs';
 
 export default async function DesignLayout({ children, params }: { children: React.ReactNode; params: Promise<{ id: string }> }) {
   const { id } = await params;
-  const user = (await getCurrentUser())!;
+  const user = await requireUser();
   const db = getDb();
   const design = /^\d+$/.test(id) ? getDesign(db, user.teamId, Number(id)) : undefined;
   if (!design) notFound();

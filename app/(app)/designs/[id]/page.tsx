@@ -1,7 +1,7 @@
 import { notFound } from 'next/navigation';
 import { getDb } from '@/db/client';
 import { getDesign, getLatestRevision, getRevision, listRevisions } from '@/db/queries';
-import { can, getCurrentUser } from '@/lib/auth';
+import { can, requireUser } from '@/lib/auth';
 import { SAMPLE_DESIGNS } from '@/lib/engine/samples';
 import type { AnalyzeRequest, Topology } from '@/lib/engine/types';
 import { CautionsPanel } from '@/components/cautions-panel';
@@ -16,7 +16,7 @@ function startingInput(topology: Topology): AnalyzeRequest {
 // Tune: the latest revision (editable for designers and admins), or ?r=N read-only.
 export default async function TunePage({ params, searchParams }: { params: Promise<{ id: string }>; searchParams: Promise<{ r?: string }> }) {
   const [{ id }, { r }] = await Promise.all([params, searchParams]);
-  const user = (await getCurrentUser())!;
+  const user = await requireUser();
   const db = getDb();
   const design = /^\d+$/.test(id) ? getDesign(db, user.teamId, Number(id)) : undefined;
   if (!design) notFound();
