@@ -1,7 +1,8 @@
 /**
  * Phasewright's SQLite schema (Drizzle). camelCase keys map to snake_case
  * columns; ids are integers; timestamps are ms since epoch.
- * Revisions are immutable: a migration adds a trigger refusing UPDATE/DELETE.
+ * Revisions are immutable: a migration adds a trigger refusing UPDATE (rows go
+ * only with their design, by cascade).
  */
 import { relations, sql } from 'drizzle-orm';
 import { index, integer, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
