@@ -26,29 +26,28 @@ export const logSweep = (fStart: number, fStop: number, points: number): number[
   const a = Math.log(fStart);
   const step = (Math.log(fStop) - a) / (n - 1);
   const r = Math.exp(step);
-  const f: number[] = [];
+  const f = new Array<number>(n);
   // Re-anchor with exp every 64 points so rounding of the running product cannot drift.
-  for (let i = 0; i < n; i++) f.push(i % 64 === 0 ? Math.exp(a + step * i) : f[i - 1] * r);
+  let x = 0;
+  for (let i = 0; i < n; i++) {
+    x = i % 64 === 0 ? Math.exp(a + step * i) : x * r;
+    f[i] = x;
+  }
   f[0] = fStart;
   f[n - 1] = fStop;
   return f;
 };
 
-/** Angular frequencies 2πf and their squares, computed once per grid. */
+/** Frequencies (Hz) and angular frequencies 2πf (rad/s), computed once per grid. */
 export interface Grid {
   f: readonly number[];
-  w: Float64Array;
-  w2: Float64Array;
+  w: readonly number[];
 }
 
 export const makeGrid = (f: readonly number[]): Grid => {
-  const w = new Float64Array(f.length);
-  const w2 = new Float64Array(f.length);
-  for (let i = 0; i < f.length; i++) {
-    w[i] = TWO_PI * f[i];
-    w2[i] = w[i] * w[i];
-  }
-  return { f, w, w2 };
+  const w = new Array<number>(f.length);
+  for (let i = 0; i < f.length; i++) w[i] = TWO_PI * f[i];
+  return { f, w };
 };
 
 /**
@@ -101,33 +100,44 @@ export const sweepTransfer = (h: SectionedTransfer, grid: Grid, withComplex = fa
   const order = h.originOrder;
   const plan = phasePlan(h);
   const nt = plan.length;
-  const { w, w2 } = grid;
+  // The first term in locals: most transfers (plant, every compensator type) have one.
+  const n1 = nt > 0 ? plan[0] : 0;
+  const n2 = nt > 0 ? plan[1] : 0;
+  const d1 = nt > 0 ? plan[2] : 0;
+  const d2 = nt > 0 ? plan[3] : 0;
+  const w = grid.w;
   let offsetDeg = 0;
   for (let i = 0; i < n; i++) {
     const wi = w[i];
-    const wi2 = w2[i];
+    const wi2 = wi * wi;
     let m = g2;
     if (order === -1) m /= wi2;
     else if (order !== 0) m *= Math.pow(wi2, order);
-    let ph = ph0;
-    let pr = 1;
-    let pi = 0;
-    for (let k = 0; k < nt; k += 4) {
-      const nre = 1 - plan[k + 1] * wi2;
-      const nim = plan[k] * wi;
-      const dre = 1 - plan[k + 3] * wi2;
-      const dim = plan[k + 2] * wi;
-      const d2 = dre * dre + dim * dim;
-      m *= (nre * nre + nim * nim) / d2;
-      // N·conj(D): its angle is ∠N − ∠D
-      const tr = nre * dre + nim * dim;
-      const ti = nim * dre - nre * dim;
+    // First term: N·conj(D), whose angle is ∠N − ∠D.
+    const nre = 1 - n2 * wi2;
+    const nim = n1 * wi;
+    const dre = 1 - d2 * wi2;
+    const dim = d1 * wi;
+    const dd = dre * dre + dim * dim;
+    let pr = nre * dre + nim * dim;
+    let pi = nim * dre - nre * dim;
+    m *= (nre * nre + nim * nim) / dd;
+    let ph = ph0 + Math.atan2(pi, pr);
+    pr /= dd;
+    pi /= dd;
+    for (let k = 4; k < nt; k += 4) {
+      const kre = 1 - plan[k + 1] * wi2;
+      const kim = plan[k] * wi;
+      const lre = 1 - plan[k + 3] * wi2;
+      const lim = plan[k + 2] * wi;
+      const l2 = lre * lre + lim * lim;
+      m *= (kre * kre + kim * kim) / l2;
+      const tr = kre * lre + kim * lim;
+      const ti = kim * lre - kre * lim;
       ph += Math.atan2(ti, tr);
-      if (re) {
-        const qr = (pr * tr - pi * ti) / d2;
-        pi = (pr * ti + pi * tr) / d2;
-        pr = qr;
-      }
+      const qr = (pr * tr - pi * ti) / l2;
+      pi = (pr * ti + pi * tr) / l2;
+      pr = qr;
     }
     if (i === 0) offsetDeg = phaseOffsetDeg(ph * RAD2DEG);
     magDb[i] = DB_PER_LOG10_MAGSQ * Math.log10(m);
