@@ -30,7 +30,7 @@
  */
 import { useMemo, useRef, useState } from 'react';
 import { PlotlyChart } from './plotly-chart';
-import { computeGeometry, type PlotGeometry, type Ranges } from './geometry';
+import { computeGeometry, plotMargin, type PlotGeometry, type Ranges } from './geometry';
 import {
   buildBodeLayout,
   buildBodeTraces,
@@ -79,7 +79,7 @@ export function BodePlot(props: BodePlotProps) {
     [f, series, bench, markers, margins, extraTraces, ranges],
   );
   const layout = useMemo(() => buildBodeLayout(ranges, height, showLegend), [ranges, height, showLegend]);
-  const geometry = useMemo(() => computeGeometry(width, height, ranges), [width, height, ranges]);
+  const geometry = useMemo(() => computeGeometry(width, height, ranges, plotMargin(showLegend)), [width, height, ranges, showLegend]);
 
   return (
     <PlotlyChart

@@ -4,7 +4,8 @@
  * See bode-plot.tsx for what each prop means.
  */
 import type { Data, Layout } from 'plotly.js-dist-min';
-import { MAG_DOMAIN, PHASE_DOMAIN, PLOT_MARGIN, type Ranges } from './geometry';
+import { formatSi } from '@/lib/units/si';
+import { MAG_DOMAIN, PHASE_DOMAIN, plotMargin, type Ranges } from './geometry';
 
 export interface BodeSeries {
   id: string;
@@ -57,6 +58,7 @@ export const BENCH_GREY = '#6b7280';
 const GUIDE = '#94a3b8';
 const GRID = '#e2e8f0';
 
+/** Range holding the values (and `must`), widened to whole `step`s plus `pad`, so no tick sits on an edge. */
 function niceRange(values: Iterable<number>, step: number, pad: number, fallback: [number, number], must: number): [number, number] {
   let lo = must;
   let hi = must;
@@ -68,7 +70,7 @@ function niceRange(values: Iterable<number>, step: number, pad: number, fallback
     if (v > hi) hi = v;
   }
   if (!any) return fallback;
-  return [Math.floor((lo - pad) / step) * step, Math.ceil((hi + pad) / step) * step];
+  return [Math.floor(lo / step) * step - pad, Math.ceil(hi / step) * step + pad];
 }
 
 function* each(arrays: number[][], clampLo = -Infinity, clampHi = Infinity) {
@@ -88,20 +90,26 @@ export function computeRanges({ f, series, bench = [] }: BodeContent): Ranges {
   if (!Number.isFinite(fMin) || !(fMax > fMin)) [fMin, fMax] = [10, 1e6];
   return {
     x: [Math.log10(fMin), Math.log10(fMax)],
-    mag: niceRange(each([...shown.map((s) => s.magDb), ...bench.map((b) => b.gainDb)], -120, 160), 20, 4, [-60, 60], 0),
-    phase: niceRange(each([...shown.map((s) => s.phaseDeg), ...bench.map((b) => b.phaseDeg)]), 45, 4, [-270, 90], -180),
+    mag: niceRange(each([...shown.map((s) => s.magDb), ...bench.map((b) => b.gainDb)], -120, 160), 20, 6, [-60, 60], 0),
+    phase: niceRange(each([...shown.map((s) => s.phaseDeg), ...bench.map((b) => b.phaseDeg)]), 45, 12, [-270, 90], -180),
   };
 }
 
-const fmtHz = (hz: number) => {
-  const units: [number, string][] = [
-    [1e6, 'MHz'],
-    [1e3, 'kHz'],
-    [1, 'Hz'],
-  ];
-  const [k, u] = units.find(([k]) => hz >= k) ?? [1, 'Hz'];
-  return `${Number((hz / k).toPrecision(3))} ${u}`;
-};
+/** Ticks at 1, 2, 5 × 10^k inside the range; only the decades carry a label (10 Hz, 1 kHz, …). */
+function frequencyTicks(r: Ranges): { tickvals: number[]; ticktext: string[] } {
+  const tickvals: number[] = [];
+  const ticktext: string[] = [];
+  for (let e = Math.floor(r.x[0]); e <= Math.ceil(r.x[1]); e++) {
+    for (const m of [1, 2, 5]) {
+      const v = m * 10 ** e;
+      if (Math.log10(v) < r.x[0] - 1e-9 || Math.log10(v) > r.x[1] + 1e-9) continue;
+      tickvals.push(v);
+      ticktext.push(m === 1 ? formatSi(v, 'Hz') : '');
+    }
+  }
+  return { tickvals, ticktext };
+}
+
 
 function line(x: number[], y: number[], xaxis: string, yaxis: string, color: string, width: number, dash: 'dash' | 'dot'): Data {
   return { type: 'scatter', mode: 'lines', x, y, xaxis, yaxis, showlegend: false, hoverinfo: 'skip', line: { color, width, dash } };
@@ -122,7 +130,7 @@ function marginTraces(m: MarginMarks, r: Ranges): Data[] {
       yaxis: 'y',
       showlegend: false,
       marker: { size: 7, color },
-      text: [`${pre}fc ${fmtHz(fc)}`],
+      text: [`${pre}fc ${formatSi(fc, 'Hz')}`],
       textposition: 'bottom right',
       textfont: { size: 11, color },
       hovertemplate: `${pre}crossover fc %{x:.3s}Hz<extra></extra>`,
@@ -156,7 +164,7 @@ function marginTraces(m: MarginMarks, r: Ranges): Data[] {
       showlegend: false,
       line: { color, width: 3 },
       text: ['', `${pre}GM ${m.gainMarginDb.toFixed(1)} dB`],
-      textposition: 'bottom right',
+      textposition: 'bottom left',
       textfont: { size: 11, color },
       hovertemplate: `${pre}gain margin ${m.gainMarginDb.toFixed(1)} dB<extra></extra>`,
     });
@@ -222,7 +230,7 @@ export function buildBodeLayout(r: Ranges, height: number, showLegend: boolean):
   const axis = { gridcolor: GRID, fixedrange: true, automargin: false, zeroline: false };
   return {
     height,
-    margin: { ...PLOT_MARGIN, pad: 0 },
+    margin: { ...plotMargin(showLegend), pad: 0 },
     paper_bgcolor: '#ffffff',
     plot_bgcolor: '#ffffff',
     font: { family: 'Inter Variable, system-ui, sans-serif', size: 12, color: '#334155' },
@@ -230,7 +238,7 @@ export function buildBodeLayout(r: Ranges, height: number, showLegend: boolean):
     legend: { orientation: 'h', x: 0, y: 1, yanchor: 'bottom', font: { size: 11 }, itemclick: false, itemdoubleclick: false },
     hovermode: 'closest',
     dragmode: false,
-    xaxis: { ...axis, type: 'log', range: r.x, domain: [0, 1], anchor: 'y', showticklabels: false },
+    xaxis: { ...axis, type: 'log', range: r.x, domain: [0, 1], anchor: 'y', showticklabels: false, tickmode: 'array', tickvals: frequencyTicks(r).tickvals },
     xaxis2: {
       ...axis,
       type: 'log',
@@ -238,15 +246,16 @@ export function buildBodeLayout(r: Ranges, height: number, showLegend: boolean):
       domain: [0, 1],
       anchor: 'y2',
       matches: 'x',
-      exponentformat: 'SI',
-      ticksuffix: 'Hz',
+      tickmode: 'array',
+      ...frequencyTicks(r),
       title: { text: 'Frequency', standoff: 2, font: { size: 11 } },
     },
-    yaxis: { ...axis, domain: MAG_DOMAIN, range: r.mag, dtick: r.mag[1] - r.mag[0] > 160 ? 40 : 20, ticksuffix: ' dB', title: { text: 'Magnitude', font: { size: 11 } } },
+    yaxis: { ...axis, domain: MAG_DOMAIN, range: r.mag, tick0: 0, dtick: r.mag[1] - r.mag[0] > 160 ? 40 : 20, ticksuffix: ' dB', title: { text: 'Magnitude', font: { size: 11 } } },
     yaxis2: {
       ...axis,
       domain: PHASE_DOMAIN,
       range: r.phase,
+      tick0: 0,
       dtick: r.phase[1] - r.phase[0] > 360 ? 90 : 45,
       ticksuffix: '°',
       title: { text: 'Phase', font: { size: 11 } },

@@ -4,7 +4,15 @@
  * drawn curves without reading Plotly internals.
  */
 
-export const PLOT_MARGIN = { l: 72, r: 20, t: 34, b: 44 };
+export interface PlotMargin {
+  l: number;
+  r: number;
+  t: number;
+  b: number;
+}
+
+/** Plot margins, px; the top one leaves room for Plotly's legend when it is shown. */
+export const plotMargin = (showLegend: boolean): PlotMargin => ({ l: 72, r: 20, t: showLegend ? 34 : 14, b: 44 });
 export const MAG_DOMAIN: [number, number] = [0.46, 1];
 export const PHASE_DOMAIN: [number, number] = [0, 0.38];
 
@@ -33,8 +41,8 @@ export interface PlotGeometry {
   degToY: (deg: number) => number;
 }
 
-export function computeGeometry(width: number, height: number, ranges: Ranges): PlotGeometry {
-  const { l, r, t, b } = PLOT_MARGIN;
+export function computeGeometry(width: number, height: number, ranges: Ranges, margin: PlotMargin): PlotGeometry {
+  const { l, r, t, b } = margin;
   const left = l;
   const right = Math.max(l + 1, width - r);
   const h = height - t - b;

@@ -4,7 +4,7 @@ import { useState } from 'react';
 import type { CompensatorShape, CompensatorType } from '@/lib/engine/types';
 import { formatSi } from '@/lib/units/si';
 import type { HandleMove } from './handle-overlay';
-import { shiftGain, type HandleSpec } from './handles';
+import { moveFrequency, shiftGain, type HandleSpec } from './handles';
 import { parseSiField, toSiText } from './si-schema';
 import { ValueCell } from './value-cell';
 
@@ -38,9 +38,7 @@ export function CompensatorTable({ shape, handles, midbandGainDb, readOnly, onSh
   const setHz = (h: HandleSpec) => (text: string) => {
     const r = parseSiField(text, `${h.label} frequency`, 'Hz');
     if ('error' in r) return r.error;
-    const i = Number(h.id.slice(1));
-    const next = h.kind === 'zero' ? { ...shape, zerosHz: shape.zerosHz.map((v, k) => (k === i ? r.value : v)) } : { ...shape, polesHz: shape.polesHz.map((v, k) => (k === i ? r.value : v)) };
-    return onShape(next);
+    return onShape(moveFrequency(shape, h.id, r.value));
   };
 
   const setGainDb = (text: string) => {
@@ -82,7 +80,7 @@ export function CompensatorTable({ shape, handles, midbandGainDb, readOnly, onSh
           </p>
         )}
       </label>
-      <table className="table-base" data-testid="handle-table">
+      <table className="table-base [&_td]:px-2 [&_th]:px-2" data-testid="handle-table">
         <thead>
           <tr>
             <th>Handle</th>

@@ -55,6 +55,25 @@ function Glyph({ kind, color }: { kind: HandleSpec['kind']; color: string }) {
 }
 
 /**
+ * Pixel positions: on the curve, pinned to the plot edge when the frequency
+ * lies outside the sweep, and stepped down when two handles would cover each other.
+ */
+function placeHandles(handles: PlacedHandle[], g: PlotGeometry) {
+  const out = new Map<string, { x: number; y: number; outside: 'left' | 'right' | null }>();
+  const taken: { x: number; y: number }[] = [];
+  for (const h of handles) {
+    const raw = g.hzToX(h.hz);
+    const outside = raw < g.left ? 'left' : raw > g.right ? 'right' : null;
+    const x = Math.min(g.right, Math.max(g.left, Number.isFinite(raw) ? raw : g.left));
+    let y = Math.min(g.magBottom, Math.max(g.magTop, g.dbToY(h.magDb)));
+    while (taken.some((t) => Math.abs(t.x - x) < SIZE * 0.8 && Math.abs(t.y - y) < SIZE * 0.8)) y += SIZE * 0.85;
+    taken.push({ x, y });
+    out.set(h.id, { x, y, outside });
+  }
+  return out;
+}
+
+/**
  * Draggable compensator handles drawn above the Bode plot. Zeros and poles
  * move sideways (frequency); the gain handle moves up and down. Each handle
  * is a focusable slider: arrow keys step it (Shift for larger steps).
@@ -110,12 +129,13 @@ export function HandleOverlay({ geometry: g, handles, color, disabled, midbandGa
     else onStep(h.id, { hz: h.hz * 10 ** (sign * (big ? STEP_DECADE_BIG : STEP_DECADE)) });
   };
 
+  const positions = placeHandles(handles, g);
+
   return (
     <div ref={boxRef} className="pointer-events-none absolute inset-0" data-testid="handle-overlay">
       {handles.map((h) => {
-        const x = g.hzToX(h.hz);
-        const y = Math.min(g.magBottom, Math.max(g.magTop, g.dbToY(h.magDb)));
-        if (!Number.isFinite(x) || x < g.left - SIZE / 2 || x > g.right + SIZE / 2) return null;
+        const { x, y, outside } = positions.get(h.id)!;
+        const index = /\d$/.exec(h.label)?.[0];
         const value =
           h.kind === 'gain'
             ? midbandGainDb !== null
@@ -149,6 +169,16 @@ export function HandleOverlay({ geometry: g, handles, color, disabled, midbandGa
             <svg width={SIZE} height={SIZE} viewBox="0 0 24 24" aria-hidden className={disabled ? 'opacity-70' : 'drop-shadow'}>
               <Glyph kind={h.kind} color={color} />
             </svg>
+            {index && (
+              <span className="pointer-events-none absolute -right-1.5 -top-1.5 text-[10px] font-bold leading-none" style={{ color }} aria-hidden>
+                {index}
+              </span>
+            )}
+            {outside && (
+              <span className="pointer-events-none absolute top-1/2 -translate-y-1/2 text-xs font-bold leading-none" style={{ color, [outside === 'right' ? 'left' : 'right']: SIZE }} aria-hidden>
+                {outside === 'right' ? '›' : '‹'}
+              </span>
+            )}
             <span
               className={`pointer-events-none absolute left-1/2 top-full mt-0.5 -translate-x-1/2 whitespace-nowrap rounded bg-slate-800/90 px-1.5 py-0.5 text-[11px] text-white ${
                 isActive ? 'block' : 'hidden group-hover:block group-focus-visible:block'

@@ -4,7 +4,7 @@
  * Moving a zero or pole changes its frequency; moving the gain scales the
  * integrator frequency, which lifts the whole compensator curve.
  */
-import { partsFromShape, shapeFromParts } from '@/lib/engine/compensator';
+import { partsFromShape, shapeFromParts, summarizeCompensator } from '@/lib/engine/compensator';
 import { EngineInputError, type CompensatorInput, type CompensatorShape, type FieldIssue } from '@/lib/engine/types';
 
 export type HandleKind = 'zero' | 'pole' | 'gain';
@@ -60,17 +60,34 @@ export function handlesOf(shape: CompensatorShape, crossoverHz: number | null): 
   return out;
 }
 
-/** The shape with one zero or pole moved to `hz`. */
-export function moveFrequency(shape: CompensatorShape, id: string, hz: number): CompensatorShape {
-  const i = Number(id.slice(1));
-  if (id.startsWith('z')) return { ...shape, zerosHz: shape.zerosHz.map((v, k) => (k === i ? hz : v)) };
-  if (id.startsWith('p')) return { ...shape, polesHz: shape.polesHz.map((v, k) => (k === i ? hz : v)) };
-  return shape;
-}
-
-/** The shape with its mid-band gain changed by `deltaDb` (integrator frequency scaled). */
+/** The shape with its mid-band gain changed by `deltaDb` (integrator frequency scaled; Gc is proportional to it). */
 export function shiftGain(shape: CompensatorShape, deltaDb: number): CompensatorShape {
   return { ...shape, integratorHz: shape.integratorHz * 10 ** (deltaDb / 20) };
+}
+
+const midbandDb = (shape: CompensatorShape): number | null => {
+  try {
+    return summarizeCompensator(partsFromShape(shape)).midbandGainDb;
+  } catch {
+    return null;
+  }
+};
+
+/**
+ * The shape with one zero or pole moved to `hz`, the mid-band gain held: moving
+ * a zero reshapes the phase without lifting the flat part of the curve (and so
+ * without shifting the crossover much).
+ */
+export function moveFrequency(shape: CompensatorShape, id: string, hz: number): CompensatorShape {
+  const i = Number(id.slice(1));
+  const moved = id.startsWith('z')
+    ? { ...shape, zerosHz: shape.zerosHz.map((v, k) => (k === i ? hz : v)) }
+    : id.startsWith('p')
+      ? { ...shape, polesHz: shape.polesHz.map((v, k) => (k === i ? hz : v)) }
+      : shape;
+  const before = midbandDb(shape);
+  const after = midbandDb(moved);
+  return before === null || after === null ? moved : shiftGain(moved, before - after);
 }
 
 /** Parts for a shape, or the reason the shape cannot be built (a pole at or below its zero). */

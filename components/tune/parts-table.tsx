@@ -1,10 +1,9 @@
 'use client';
 
-import { E_SERIES_NAMES, type ESeriesName, type PartsOptions, type Topology } from '@/lib/engine/types';
+import { E_SERIES_NAMES, type ESeriesName, type PartsOptions, type PartsResult, type Topology } from '@/lib/engine/types';
 import { formatSi } from '@/lib/units/si';
-import type { PartsView } from './tune-analysis';
 
-const ROWS: { key: keyof PartsView['ideal']; name: string; unit: 'Ω' | 'F'; role: string }[] = [
+const ROWS: { key: keyof PartsResult['ideal']; name: string; unit: 'Ω' | 'F'; role: string }[] = [
   { key: 'r1', name: 'R1', unit: 'Ω', role: 'output to inverting input (held fixed)' },
   { key: 'r2', name: 'R2', unit: 'Ω', role: 'feedback, in series with C1' },
   { key: 'c1', name: 'C1', unit: 'F', role: 'feedback, in series with R2' },
@@ -36,19 +35,20 @@ export function PartsTable({
   readOnly,
   onSeriesChange,
 }: {
-  parts: PartsView;
+  parts: PartsResult;
   topology: Topology;
   readOnly: boolean;
   onSeriesChange: (options: PartsOptions) => void;
 }) {
+  const options: PartsOptions = { resistorSeries: parts.resistorSeries, capacitorSeries: parts.capacitorSeries };
   const rows = ROWS.filter((r) => parts.ideal[r.key] !== null && !(r.key === 'c2' && parts.ideal.c2 === 0));
   return (
     <div className="space-y-2">
       <div className="flex flex-wrap gap-3">
-        <SeriesSelect id="series-r" label="Resistors" value={parts.options.resistorSeries} disabled={readOnly} onChange={(s) => onSeriesChange({ ...parts.options, resistorSeries: s })} />
-        <SeriesSelect id="series-c" label="Capacitors" value={parts.options.capacitorSeries} disabled={readOnly} onChange={(s) => onSeriesChange({ ...parts.options, capacitorSeries: s })} />
+        <SeriesSelect id="series-r" label="Resistors" value={parts.resistorSeries} disabled={readOnly} onChange={(s) => onSeriesChange({ ...options, resistorSeries: s })} />
+        <SeriesSelect id="series-c" label="Capacitors" value={parts.capacitorSeries} disabled={readOnly} onChange={(s) => onSeriesChange({ ...options, capacitorSeries: s })} />
       </div>
-      <table className="table-base" data-testid="parts-table">
+      <table className="table-base [&_td]:px-2 [&_th]:px-2" data-testid="parts-table">
         <thead>
           <tr>
             <th>Part</th>
@@ -68,13 +68,13 @@ export function PartsTable({
                   <span className="font-medium">{r.name}</span>
                   <span className="block text-[11px] text-slate-500">{r.role}</span>
                 </td>
-                <td className="num text-right font-mono" data-testid={`part-${r.key}-ideal`}>
+                <td className="num whitespace-nowrap text-right font-mono" data-testid={`part-${r.key}-ideal`}>
                   {formatSi(ideal, r.unit, 4)}
                 </td>
-                <td className="num text-right font-mono font-semibold" data-testid={`part-${r.key}-snapped`}>
+                <td className="num whitespace-nowrap text-right font-mono font-semibold" data-testid={`part-${r.key}-snapped`}>
                   {formatSi(snapped, r.unit)}
                 </td>
-                <td className={`num text-right font-mono text-xs ${Math.abs(delta) > 5 ? 'text-amber-700' : 'text-slate-500'}`}>
+                <td className={`num whitespace-nowrap text-right font-mono text-xs ${Math.abs(delta) > 5 ? 'text-amber-700' : 'text-slate-500'}`}>
                   {delta >= 0 ? '+' : ''}
                   {delta.toFixed(1)} %
                 </td>

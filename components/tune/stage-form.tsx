@@ -16,22 +16,24 @@ interface FieldSpec {
   path: string;
   hint?: string;
   bound?: 'positive' | 'nonNegative';
+  /** Shown without a prefix (0.8 rather than 800m). */
+  plain?: boolean;
 }
 
 type StageField = 'vin' | 'vout' | 'iout' | 'fsw' | 'l' | 'rl' | 'c' | 'rc' | 'vd' | 'vramp' | 'vref';
 
 const FIELDS: readonly FieldSpec[] = [
-  { name: 'vin', label: 'Input voltage Vin', unit: 'V', path: 'converter.vin' },
-  { name: 'vout', label: 'Output voltage Vout', unit: 'V', path: 'converter.vout', hint: 'magnitude' },
-  { name: 'iout', label: 'Load current Iout', unit: 'A', path: 'converter.iout' },
+  { name: 'vin', plain: true, label: 'Input voltage Vin', unit: 'V', path: 'converter.vin' },
+  { name: 'vout', plain: true, label: 'Output voltage Vout', unit: 'V', path: 'converter.vout', hint: 'magnitude' },
+  { name: 'iout', plain: true, label: 'Load current Iout', unit: 'A', path: 'converter.iout' },
   { name: 'fsw', label: 'Switching frequency fsw', unit: 'Hz', path: 'converter.fsw' },
   { name: 'l', label: 'Inductance L', unit: 'H', path: 'converter.l' },
   { name: 'rl', label: 'Inductor DCR', unit: 'Ω', path: 'converter.rl', bound: 'nonNegative' },
   { name: 'c', label: 'Output capacitance C', unit: 'F', path: 'converter.c' },
   { name: 'rc', label: 'Capacitor ESR', unit: 'Ω', path: 'converter.rc', bound: 'nonNegative' },
-  { name: 'vd', label: 'Diode drop Vd', unit: 'V', path: 'converter.vd', hint: '0 = synchronous', bound: 'nonNegative' },
-  { name: 'vramp', label: 'PWM ramp Vramp', unit: 'V', path: 'modulator.vramp' },
-  { name: 'vref', label: 'Reference Vref', unit: 'V', path: 'feedback.vref' },
+  { name: 'vd', plain: true, label: 'Diode drop Vd', unit: 'V', path: 'converter.vd', hint: '0 = synchronous', bound: 'nonNegative' },
+  { name: 'vramp', plain: true, label: 'PWM ramp Vramp', unit: 'V', path: 'modulator.vramp' },
+  { name: 'vref', plain: true, label: 'Reference Vref', unit: 'V', path: 'feedback.vref' },
 ];
 
 const stageFormSchema = z.object(
@@ -44,25 +46,34 @@ const stageFormSchema = z.object(
 type StageText = z.input<typeof stageFormSchema>;
 type StageValues = z.output<typeof stageFormSchema>;
 
-const toText = (s: Stage): StageText => ({
-  vin: toSiText(s.converter.vin),
-  vout: toSiText(s.converter.vout),
-  iout: toSiText(s.converter.iout),
-  fsw: toSiText(s.converter.fsw),
-  l: toSiText(s.converter.l),
-  rl: toSiText(s.converter.rl),
-  c: toSiText(s.converter.c),
-  rc: toSiText(s.converter.rc),
-  vd: toSiText(s.converter.vd),
-  vramp: toSiText(s.modulator.vramp),
-  vref: toSiText(s.feedback.vref),
+const numbersOf = (s: Stage): Record<StageField, number> => ({
+  vin: s.converter.vin,
+  vout: s.converter.vout,
+  iout: s.converter.iout,
+  fsw: s.converter.fsw,
+  l: s.converter.l,
+  rl: s.converter.rl ?? 0,
+  c: s.converter.c,
+  rc: s.converter.rc ?? 0,
+  vd: s.converter.vd ?? 0,
+  vramp: s.modulator.vramp,
+  vref: s.feedback.vref,
 });
+
+const toText = (s: Stage): StageText => {
+  const n = numbersOf(s);
+  return Object.fromEntries(FIELDS.map((f) => [f.name, f.plain ? String(Number(n[f.name].toPrecision(6))) : toSiText(n[f.name], 6)])) as StageText;
+};
 
 const fromValues = (v: StageValues, topology: AnalyzeRequest['converter']['topology']): Stage => ({
   converter: { topology, vin: v.vin, vout: v.vout, iout: v.iout, fsw: v.fsw, l: v.l, rl: v.rl, c: v.c, rc: v.rc, vd: v.vd },
   modulator: { vramp: v.vramp },
   feedback: { vref: v.vref },
 });
+
+/** Fields whose text was not touched keep their exact starting value (the text may round it). */
+const keepUntouched = (parsed: StageValues, text: Partial<StageText>, start: StageText, startValues: Record<StageField, number>): StageValues =>
+  Object.fromEntries(FIELDS.map((f) => [f.name, text[f.name] === start[f.name] ? startValues[f.name] : parsed[f.name]])) as StageValues;
 
 export interface StageFormProps {
   value: Stage;
@@ -77,6 +88,7 @@ export interface StageFormProps {
 /** Power stage, modulator and reference inputs; SI-prefix text, checked as typed. */
 export function StageForm({ value, readOnly, issues, onChange, onValidityChange }: StageFormProps) {
   const topology = value.converter.topology;
+  const start = useRef({ text: toText(value), values: numbersOf(value) });
   const {
     register,
     watch,
@@ -84,7 +96,7 @@ export function StageForm({ value, readOnly, issues, onChange, onValidityChange 
   } = useForm<StageText, unknown, StageValues>({
     resolver: zodResolver(stageFormSchema),
     mode: 'onChange',
-    defaultValues: toText(value),
+    defaultValues: start.current.text,
   });
   const callbacks = useRef({ onChange, onValidityChange });
   callbacks.current = { onChange, onValidityChange };
@@ -93,13 +105,13 @@ export function StageForm({ value, readOnly, issues, onChange, onValidityChange 
     const sub = watch((text) => {
       const r = stageFormSchema.safeParse(text);
       callbacks.current.onValidityChange(r.success);
-      if (r.success) callbacks.current.onChange(fromValues(r.data, topology));
+      if (r.success) callbacks.current.onChange(fromValues(keepUntouched(r.data, text, start.current.text, start.current.values), topology));
     });
     return () => sub.unsubscribe();
   }, [watch, topology]);
 
   return (
-    <fieldset className="grid grid-cols-2 gap-x-3 gap-y-2 sm:grid-cols-3" disabled={readOnly} aria-label="Power stage">
+    <fieldset className="grid grid-cols-2 gap-x-3 gap-y-2" disabled={readOnly} aria-label="Power stage">
       {FIELDS.map((f) => {
         const id = `stage-${f.name}`;
         const formError = errors[f.name]?.message;

@@ -15,7 +15,7 @@ import { RevisionPicker } from './revision-picker';
 import { SaveBar } from './save-bar';
 import { StageForm } from './stage-form';
 import { StartingPointForm, type StartingPointRequest } from './starting-point-form';
-import { analyzeCompensator, analyzeParts, prepareStage } from './tune-analysis';
+import { analyzeCompensator, analyzeCompensatorParts, prepareStage } from './tune-analysis';
 import { TunePlot } from './tune-plot';
 import { useBenchOverlay } from '@/lib/queries/bench';
 import { useLeaveGuard } from './use-leave-guard';
@@ -70,7 +70,7 @@ export function TuneScreen({ designId, initialInput, shownRevision, latestRevisi
   // Snapped parts and their margins may lag a frame behind a drag.
   const deferredComp = useDeferredValue(input.compensator);
   const parts = useMemo(
-    () => (prepared.ok ? analyzeParts(prepared.value, deferredComp, input.parts) : null),
+    () => (prepared.ok ? analyzeCompensatorParts(prepared.value, deferredComp, input.parts) : null),
     [prepared, deferredComp, input.parts],
   );
   const shape = useMemo(() => shapeFromParts(input.compensator), [input.compensator]);
@@ -166,7 +166,7 @@ export function TuneScreen({ designId, initialInput, shownRevision, latestRevisi
         </div>
       </div>
 
-      <div className="grid gap-4 xl:grid-cols-[minmax(0,1fr)_22rem]">
+      <div className="grid items-start gap-4 xl:grid-cols-[minmax(0,1fr)_22rem]">
         <section className="card p-3" aria-label="Bode plot">
           {result && prepared.ok ? (
             <TunePlot
@@ -215,8 +215,8 @@ export function TuneScreen({ designId, initialInput, shownRevision, latestRevisi
         </div>
       </div>
 
-      <div className="grid gap-4 lg:grid-cols-2 2xl:grid-cols-3">
-        <Card title="Power stage" aside={<span className="text-xs capitalize text-slate-500">{input.converter.topology}, voltage-mode</span>}>
+      <div className="grid items-start gap-4 lg:grid-cols-2 xl:grid-cols-3">
+        <Card title="Power stage" aside={<span className="text-xs text-slate-500">{input.converter.topology}, voltage-mode</span>}>
           <StageForm
             value={input}
             readOnly={readOnly}

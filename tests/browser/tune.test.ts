@@ -1,0 +1,168 @@
+/**
+ * Issue 4 in Chromium: the Tune screen. A designer drags a handle with the
+ * mouse, changes a value in the handle table by keyboard, sees the phase
+ * margin move, saves with a note and finds the new revision after a reload;
+ * a save that races another one offers "save anyway"; leaving with unsaved
+ * changes asks first. A viewer sees the plot, cannot edit, and the server
+ * answers 403 to a save. Screenshots go to $SCREENSHOT_DIR.
+ */
+import { chromium, type Browser, type Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { CHROMIUM, CHROMIUM_ARGS, chromiumAvailable } from '../support/chromium';
+import { screenshot, signInThroughForm } from '../support/browser';
+import { signedInAs, type Client } from '../support/http';
+import { savedDesign, type AnalyzeInput } from '../support/saved-design';
+
+const run = chromiumAvailable();
+const baseUrl = inject('baseUrl');
+let browser: Browser;
+let designer: Client;
+let designId: number;
+let input: AnalyzeInput;
+
+async function pageAs(email: string): Promise<Page> {
+  const context = await browser.newContext({ viewport: { width: 1500, height: 1100 } });
+  const page = await context.newPage();
+  // Let the sign-in form hydrate first, so the click signs in rather than submitting the bare form.
+  await page.goto(`${baseUrl}/signin`, { waitUntil: 'networkidle' });
+  await signInThroughForm(page, baseUrl, email);
+  return page;
+}
+
+async function openTune(page: Page) {
+  await page.goto(`${baseUrl}/designs/${designId}`);
+  await page.locator('[data-plot-ready="true"]').waitFor({ timeout: 60_000 });
+  await page.locator('[data-handle="z0"]').waitFor();
+}
+
+const pm = (page: Page) => page.getByTestId('readout-pm').textContent();
+
+async function dragBy(page: Page, handle: string, dx: number, dy: number) {
+  const box = (await page.locator(`[data-handle="${handle}"]`).boundingBox())!;
+  const x = box.x + box.width / 2;
+  const y = box.y + box.height / 2;
+  await page.mouse.move(x, y);
+  await page.mouse.down();
+  await page.mouse.move(x + dx, y + dy, { steps: 12 });
+  await page.mouse.up();
+}
+
+describe.runIf(run)('Tune', () => {
+  beforeAll(async () => {
+    browser = await chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_ARGS });
+    designer = await signedInAs(baseUrl, 'designer');
+    ({ designId, input } = await savedDesign(designer, 'Browser tune rail'));
+  });
+  afterAll(async () => browser?.close());
+
+  it('lets a designer drag a handle, edit a value by keyboard, save and find the new revision', async () => {
+    const page = await pageAs('designer@demo.test');
+    await openTune(page);
+    const pm0 = await pm(page);
+    expect(pm0).toMatch(/°$/);
+    await expect.poll(() => page.getByTestId('save-state').textContent()).toContain('No changes since r1');
+    await screenshot(page, 'tune-designer-open');
+
+    // Mouse: drag the first zero a good way to the left.
+    const zeroBefore = await page.getByTestId('value-z0').inputValue();
+    await dragBy(page, 'z0', -90, 0);
+    await expect.poll(() => page.getByTestId('value-z0').inputValue()).not.toBe(zeroBefore);
+    const pm1 = await pm(page);
+    expect(pm1).not.toBe(pm0);
+    await expect.poll(() => page.getByTestId('save-state').textContent()).toContain('Unsaved changes');
+    await screenshot(page, 'tune-designer-dragged');
+
+    // Keyboard: type a new gain into the handle table, then step a handle with the arrow keys.
+    await page.getByTestId('value-gain').focus();
+    await page.keyboard.press('ControlOrMeta+A');
+    await page.keyboard.type('12');
+    await page.keyboard.press('Enter');
+    await expect.poll(() => page.getByTestId('value-gain').inputValue()).toBe('12.00 dB');
+    const pm2 = await pm(page);
+    expect(pm2).not.toBe(pm1);
+    await page.locator('[data-handle="z0"]').focus();
+    await page.keyboard.press('Shift+ArrowRight');
+    await expect.poll(() => pm(page)).not.toBe(pm2);
+    const pmSaved = await pm(page);
+    const gainSaved = await page.getByTestId('value-gain').inputValue();
+    await screenshot(page, 'tune-designer-keyboard');
+
+    await page.getByTestId('revision-note').fill('Zero moved down, less mid-band gain');
+    await page.getByTestId('save-revision').click();
+    await expect.poll(() => page.getByTestId('save-state').textContent(), { timeout: 20_000 }).toContain('Saved as r2');
+    await screenshot(page, 'tune-designer-saved');
+
+    await page.reload();
+    await page.locator('[data-plot-ready="true"]').waitFor({ timeout: 60_000 });
+    await expect.poll(() => page.getByTestId('save-state').textContent()).toContain('No changes since r2');
+    expect(await page.getByTestId('revision-picker').locator('[aria-current="page"]').textContent()).toBe('r2');
+    expect(await pm(page)).toBe(pmSaved);
+    expect(await page.getByTestId('value-gain').inputValue()).toBe(gainSaved);
+    await expect.poll(() => page.getByTestId('design-name').locator('xpath=..').textContent()).toContain('latest r2');
+    await screenshot(page, 'tune-designer-reloaded');
+
+    const revisions = await (await designer.fetch(`/api/designs/${designId}/revisions`)).json();
+    const r2 = revisions.revisions.find((r: { number: number }) => r.number === 2);
+    expect(r2.note).toBe('Zero moved down, less mid-band gain');
+    await page.context().close();
+  });
+
+  it('asks before leaving with unsaved changes, and offers "save anyway" after a conflict', async () => {
+    const page = await pageAs('designer@demo.test');
+    await openTune(page);
+    const latest = Number((await page.getByTestId('revision-picker').locator('[aria-current="page"]').textContent())!.slice(1));
+    await page.locator('[data-handle="gain"]').focus();
+    await page.keyboard.press('ArrowUp');
+    await expect.poll(() => page.getByTestId('save-state').textContent()).toContain('Unsaved changes');
+
+    // Leaving through an in-app link asks first; dismissing keeps the page and the change.
+    let asked = '';
+    page.once('dialog', (d) => {
+      asked = d.message();
+      void d.dismiss();
+    });
+    await page.getByRole('link', { name: 'History' }).click();
+    await expect.poll(() => asked).toContain('unsaved changes');
+    expect(new URL(page.url()).pathname).toBe(`/designs/${designId}`);
+
+    // Someone else saves meanwhile: the save conflicts, nothing typed is lost, "save anyway" lands on the next number.
+    const other = await designer.json(`/api/designs/${designId}/revisions`, 'POST', { baseRevision: latest, note: 'from elsewhere', input });
+    expect(other.status).toBe(201);
+    await page.getByTestId('revision-note').fill('Gain up a notch');
+    await page.getByTestId('save-revision').click();
+    await page.getByTestId('save-conflict').waitFor();
+    expect(await page.getByTestId('save-conflict').textContent()).toContain(`r${latest + 1}`);
+    expect(await page.getByTestId('revision-note').inputValue()).toBe('Gain up a notch');
+    await screenshot(page, 'tune-designer-conflict');
+    await page.getByTestId('save-anyway').click();
+    await expect.poll(() => page.getByTestId('save-state').textContent(), { timeout: 20_000 }).toContain(`Saved as r${latest + 2}`);
+    await page.context().close();
+  });
+
+  it('shows a viewer the plot but no way to edit, and the server refuses a save', async () => {
+    const page = await pageAs('viewer@demo.test');
+    await openTune(page);
+    await page.getByTestId('read-only-note').waitFor();
+    expect(await page.getByTestId('save-revision').count()).toBe(0);
+    expect(await page.locator('#stage-vin').isDisabled()).toBe(true);
+    expect(await page.getByTestId('value-z0').isDisabled()).toBe(true);
+    expect(await page.locator('[data-handle="z0"]').getAttribute('aria-disabled')).toBe('true');
+
+    const pmBefore = await pm(page);
+    await dragBy(page, 'z0', -90, 0);
+    await page.locator('[data-handle="gain"]').focus();
+    await page.keyboard.press('ArrowUp');
+    expect(await pm(page)).toBe(pmBefore);
+    await screenshot(page, 'tune-viewer');
+
+    const status = await page.evaluate(
+      async ([id, body]) => {
+        const res = await fetch(`/api/designs/${id}/revisions`, { method: 'POST', headers: { 'content-type': 'application/json' }, body });
+        return res.status;
+      },
+      [designId, JSON.stringify({ baseRevision: null, note: 'viewer try', input })] as const,
+    );
+    expect(status).toBe(403);
+    await page.context().close();
+  });
+});
