@@ -172,15 +172,8 @@ export const marginsForCompensator = (prepared: PreparedPlant, comp: Compensator
   checkCompensator(comp);
   const gc = compensatorTransfer(comp);
   const polys = transferPolys(gc);
-  const c = sweepComplex(polys.num, polys.den, prepared.grid, prepared.scratch);
-  const { plantRe, plantIm } = prepared;
-  const n = plantRe.length;
-  for (let i = 0; i < n; i++) {
-    const re = plantRe[i] * c.re[i] - plantIm[i] * c.im[i];
-    c.im[i] = plantRe[i] * c.im[i] + plantIm[i] * c.re[i];
-    c.re[i] = re;
-  }
-  return computeMarginsFromComplex(prepared.grid.f, c.re, c.im, evaluateLoopGain(prepared, gc));
+  const t = sweepComplex(polys.num, polys.den, prepared.grid, prepared.scratch, { re: prepared.plantRe, im: prepared.plantIm });
+  return computeMarginsFromComplex(prepared.grid.f, t.re, t.im, evaluateLoopGain(prepared, gc));
 };
 
 /**
@@ -228,11 +221,21 @@ export const snapCompensator = (comp: CompensatorInput, parts: PartsOptions): Co
   return { type: comp.type, r1: r(comp.r1)!, r2: r(comp.r2), r3: r(comp.r3), c1: c(comp.c1)!, c2: c(comp.c2), c3: c(comp.c3) };
 };
 
+const sameParts = (a: CompensatorInput, b: CompensatorInput) =>
+  a.type === b.type && a.r1 === b.r1 && a.r2 === b.r2 && a.r3 === b.r3 && a.c1 === b.c1 && a.c2 === b.c2 && a.c3 === b.c3;
+
 /**
  * Ideal and snapped parts with the margins the snapped parts give (defaults: E96 resistors,
  * E12 capacitors). Rb is the divider's lower resistor, snapped to the resistor series.
+ * `idealMargins`, when given, are reused if every part is already a standard value (the
+ * snapped loop is then the same loop).
  */
-export const analyzeParts = (prepared: PreparedPlant, comp: CompensatorInput, options?: Partial<PartsOptions>): PartsResult => {
+export const analyzeParts = (
+  prepared: PreparedPlant,
+  comp: CompensatorInput,
+  options?: Partial<PartsOptions>,
+  idealMargins?: Margins,
+): PartsResult => {
   const series = { ...DEFAULT_PARTS, ...options };
   const snappedComp = snapCompensator(comp, series);
   const rb = dividerRb(comp.r1, prepared.vref, prepared.converter.vout);
@@ -241,7 +244,8 @@ export const analyzeParts = (prepared: PreparedPlant, comp: CompensatorInput, op
     capacitorSeries: series.capacitorSeries,
     ideal: partValues(comp, rb),
     snapped: partValues(snappedComp, snapToSeries(rb, series.resistorSeries)),
-    snappedMargins: marginsForCompensator(prepared, snappedComp),
+    snappedMargins:
+      idealMargins && sameParts(comp, snappedComp) ? idealMargins : marginsForCompensator(prepared, snappedComp),
   };
 };
 
@@ -263,7 +267,7 @@ export const analyze = (request: AnalyzeRequest): AnalyzeResult => {
     compensator: loop.compensator,
     margins: loop.margins,
     phaseAtHalfFswDeg: loop.phaseAtHalfFswDeg,
-    parts: analyzeParts(prepared, request.compensator, request.parts),
+    parts: analyzeParts(prepared, request.compensator, request.parts, loop.margins),
     bode: loop.bode,
     checks: loop.checks,
   };

@@ -12,7 +12,8 @@ import type { BodeTrace, SweepOptions } from './types';
 
 const TWO_PI = 2 * Math.PI;
 const RAD2DEG = 180 / Math.PI;
-const DB_PER_LOG10_MAGSQ = 10;
+/** 10·log10(x) = DB_PER_LN_MAGSQ·ln(x); Math.log is markedly faster than Math.log10 in V8. */
+const DB_PER_LN_MAGSQ = 10 / Math.LN10;
 
 /** Default sweep: 10 Hz to fsw/2, 400 points, logarithmic. */
 export const defaultSweep = (fsw: number): SweepOptions => ({ fStart: 10, fStop: fsw / 2, points: 400 });
@@ -84,7 +85,7 @@ export interface TransferSweep {
 
 /**
  * Evaluate a sectioned transfer on a grid (hot path: plain numbers, one atan2 per term, one
- * log10 per point; output arrays are allocated once at their final size).
+ * logarithm per point; output arrays are allocated once at their final size).
  * magDb = 10·log10(gain²·ω^(2n)·Π|num|²/Π|den|²); phase = Σ term angles + 90°·n (+180° for a
  * negative gain) + offset, the offset chosen at the first point.
  * With `withComplex`, H(jω) = gain·(jω)^n·Π N·conj(D)/|D|² is accumulated from the same terms.
@@ -140,7 +141,7 @@ export const sweepTransfer = (h: SectionedTransfer, grid: Grid, withComplex = fa
       pr = qr;
     }
     if (i === 0) offsetDeg = phaseOffsetDeg(ph * RAD2DEG);
-    magDb[i] = DB_PER_LOG10_MAGSQ * Math.log10(m);
+    magDb[i] = DB_PER_LN_MAGSQ * Math.log(m);
     phaseDeg[i] = ph * RAD2DEG + offsetDeg;
     if (re && im) {
       // × gain·(jω)^order
@@ -162,7 +163,8 @@ export const sweepTransfer = (h: SectionedTransfer, grid: Grid, withComplex = fa
 };
 
 /**
- * Complex response on a grid: re and im of N(jω)/D(jω) for ascending polynomials (Horner).
+ * Complex response on a grid: re and im of N(jω)/D(jω) for ascending polynomials (Horner),
+ * multiplied sample by sample by `times` when given (e.g. the plant, to form the loop).
  * `out` (length ≥ grid size) is filled instead of allocating, for repeated calls.
  */
 export const sweepComplex = (
@@ -170,6 +172,7 @@ export const sweepComplex = (
   den: readonly number[],
   grid: Grid,
   out?: { re: Float64Array; im: Float64Array },
+  times?: { re: ArrayLike<number>; im: ArrayLike<number> },
 ): { re: Float64Array; im: Float64Array } => {
   const n = grid.f.length;
   const re = out?.re ?? new Float64Array(n);
@@ -192,8 +195,17 @@ export const sweepComplex = (
       dr = t;
     }
     const d2 = dr * dr + di * di;
-    re[i] = (nr * dr + ni * di) / d2;
-    im[i] = (ni * dr - nr * di) / d2;
+    const hr = (nr * dr + ni * di) / d2;
+    const hi = (ni * dr - nr * di) / d2;
+    if (times) {
+      const tr = times.re[i];
+      const ti = times.im[i];
+      re[i] = hr * tr - hi * ti;
+      im[i] = hr * ti + hi * tr;
+    } else {
+      re[i] = hr;
+      im[i] = hi;
+    }
   }
   return { re, im };
 };

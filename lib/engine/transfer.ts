@@ -120,8 +120,8 @@ export const wrapDeg = (deg: number): number => {
 export const phaseOffsetDeg = (rawAtStartDeg: number): number =>
   360 * Math.round((wrapDeg(rawAtStartDeg) - rawAtStartDeg) / 360);
 
-/** 20·log10|H| from |H|². */
-export const dbFromMagSq = (magSq: number): number => 10 * Math.log10(magSq);
+/** 20·log10|H| from |H|² (as (10/ln 10)·ln|H|²: Math.log is faster than Math.log10 in V8). */
+export const dbFromMagSq = (magSq: number): number => (10 / Math.LN10) * Math.log(magSq);
 
 /** 20·log10(x) for a magnitude x. */
 export const dbFromMag = (mag: number): number => 20 * Math.log10(mag);
@@ -149,11 +149,13 @@ const sectionRoots = (p: Poly): { re: number; im: number }[] => {
 
 /** Poles and zeros of a sectioned transfer (rad/s), origin roots included as 0. */
 export const transferRoots = (h: SectionedTransfer): { zeros: { re: number; im: number }[]; poles: { re: number; im: number }[] } => {
-  const origin = (k: number) => Array.from({ length: k }, () => ({ re: 0, im: 0 }));
-  return {
-    zeros: [...origin(Math.max(0, h.originOrder)), ...h.num.flatMap(sectionRoots)],
-    poles: [...origin(Math.max(0, -h.originOrder)), ...h.den.flatMap(sectionRoots)],
-  };
+  const zeros: { re: number; im: number }[] = [];
+  const poles: { re: number; im: number }[] = [];
+  for (let k = 0; k < h.originOrder; k++) zeros.push({ re: 0, im: 0 });
+  for (let k = 0; k < -h.originOrder; k++) poles.push({ re: 0, im: 0 });
+  for (const p of h.num) zeros.push(...sectionRoots(p));
+  for (const p of h.den) poles.push(...sectionRoots(p));
+  return { zeros, poles };
 };
 
 const rootHz = (r: { re: number; im: number }) => Math.hypot(r.re, r.im) / TWO_PI;

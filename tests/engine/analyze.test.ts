@@ -106,6 +106,18 @@ describe('analyze(): the contract, field by field', () => {
     expect(e6.parts.snapped.r2).toBe(snapToSeries(c.r2!, 'E6'));
   });
 
+  it('snapped margins are computed for non-standard parts and equal the ideal ones for standard parts', () => {
+    const odd = analyze({ ...req, compensator: { ...req.compensator, r2: 21.37e3, c1: 8.6e-9 } });
+    expect(odd.parts.snapped.r2).toBe(21.5e3);
+    expect(odd.parts.snapped.c1).toBe(8.2e-9);
+    expect(odd.parts.snappedMargins.crossoverHz).not.toBe(odd.margins.crossoverHz);
+    expectRel(odd.parts.snappedMargins.crossoverHz, odd.margins.crossoverHz!, 0.2);
+    // Same parts as the snapped ones → the same loop, margins reused.
+    const std = analyze({ ...req, compensator: { ...req.compensator, r2: 21.5e3, c1: 8.2e-9 } });
+    expect(std.parts.snappedMargins).toEqual(std.margins);
+    expectRel(odd.parts.snappedMargins.phaseMarginDeg, std.margins.phaseMarginDeg!, 1e-9);
+  });
+
   it('serialises to JSON without NaN or Infinity', () => {
     const text = JSON.stringify(r);
     expect(text).not.toMatch(/NaN|Infinity/);
