@@ -7,6 +7,7 @@ import { analyze, analyzeLoop, preparePlant } from '@/lib/engine/analyze';
 import { partsFromShape, shapeFromParts } from '@/lib/engine/compensator';
 import { SAMPLE_DESIGNS } from '@/lib/engine/samples';
 import type { CompensatorShape } from '@/lib/engine/types';
+import { tuneDragCase } from '@/components/tune/drag-bench';
 
 export interface BenchCase {
   name: string;
@@ -90,6 +91,7 @@ export const BENCH_CASES: BenchCase[] = [
     run: (i) => analyze(offSeries[i % offSeries.length]),
   },
   dragCase(),
+  tuneDragCase(),
 ];
 
 const main = () => {
