@@ -51,15 +51,15 @@ export interface PreparedPlant {
   lineToOutput: TransferSummary;
   outputImpedance: TransferSummary;
   grid: Grid;
-  /** Gvd/Vramp as complex samples on the grid (for margins without per-sample atan2/log). */
-  plantRe: Float64Array;
-  plantIm: Float64Array;
   plantTrace: BodeTrace;
   /** Multiple of 360° added to the plant's raw phase in plantTrace. */
   plantOffsetDeg: number;
-  /** Work buffers of grid size, reused by marginsForCompensator (single-threaded use). */
-  scratch: { re: Float64Array; im: Float64Array };
   stageChecks: Check[];
+  /**
+   * Made on first use by marginsForCompensator: Gvd/Vramp as complex samples on the grid, and
+   * work buffers of grid size reused by later calls (single-threaded use).
+   */
+  complexCache?: { plant: { re: Float64Array; im: Float64Array }; work: { re: Float64Array; im: Float64Array } };
 }
 
 /** What the drag loop needs back after each compensator change. */
@@ -90,7 +90,7 @@ export const preparePlant = (req: StageRequest): PreparedPlant => {
   const plantTransfer = modulatedPlant(model, vramp);
   const sweep = req.sweep ?? defaultSweep(converter.fsw);
   const grid = makeGrid(logSweep(sweep.fStart, sweep.fStop, sweep.points));
-  const plantSweep = sweepTransfer(plantTransfer, grid, true);
+  const plantSweep = sweepTransfer(plantTransfer, grid);
   const summaries = summarizePlant(model, converter, vramp);
   return {
     converter,
@@ -102,11 +102,8 @@ export const preparePlant = (req: StageRequest): PreparedPlant => {
     plantTransfer,
     ...summaries,
     grid,
-    plantRe: plantSweep.re!,
-    plantIm: plantSweep.im!,
     plantTrace: plantSweep.trace,
     plantOffsetDeg: plantSweep.offsetDeg,
-    scratch: { re: new Float64Array(grid.f.length), im: new Float64Array(grid.f.length) },
     stageChecks: stageChecks(model.operatingPoint),
   };
 };
@@ -172,7 +169,16 @@ export const marginsForCompensator = (prepared: PreparedPlant, comp: Compensator
   checkCompensator(comp);
   const gc = compensatorTransfer(comp);
   const polys = transferPolys(gc);
-  const t = sweepComplex(polys.num, polys.den, prepared.grid, prepared.scratch, { re: prepared.plantRe, im: prepared.plantIm });
+  if (!prepared.complexCache) {
+    const n = prepared.grid.f.length;
+    const pp = transferPolys(prepared.plantTransfer);
+    prepared.complexCache = {
+      plant: sweepComplex(pp.num, pp.den, prepared.grid),
+      work: { re: new Float64Array(n), im: new Float64Array(n) },
+    };
+  }
+  const { plant, work } = prepared.complexCache;
+  const t = sweepComplex(polys.num, polys.den, prepared.grid, work, plant);
   return computeMarginsFromComplex(prepared.grid.f, t.re, t.im, evaluateLoopGain(prepared, gc));
 };
 
