@@ -20,7 +20,7 @@ export {
 export { evalPoly, evalPolyJw, polyMul, polyRoots, polyTrim } from './complex-poly';
 export type { Poly } from './complex-poly';
 export { seriesValues, snapToSeries } from './eseries';
-export { computeMargins, findCrossings, interpolateLogF, unwrapPhase } from './margins';
+export { computeMargins, computeMarginsFromComplex, findCrossings, interpolateLogF, unwrapPhase } from './margins';
 export type { LoopPointEvaluator, SampledResponse } from './margins';
 export { buildPlantModel, modulatedPlant, summarizePlant } from './plant';
 export type { PlantModel } from './plant';
