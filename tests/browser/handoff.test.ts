@@ -47,13 +47,15 @@ describe.runIf(run)('Handoff: bench data and exports', () => {
     const page = await designerPage();
     await page.goto(`${baseUrl}/designs/${designId}/handoff`);
     await page.getByTestId('handoff').waitFor();
+    // Rendered by the client once the list is fetched: the upload form is live (hydrated).
+    await page.getByText('No bench data uploaded for this design yet.').waitFor({ timeout: 30_000 });
 
     // A bad file first: the message names the line, nothing is listed.
     const bad = path.join(dir, 'bad.csv');
-    fs.writeFileSync(bad, 'Frequency (Hz),Gain (dB),Phase (deg)\n100,40,-90\n50,30,-95\n');
+    fs.writeFileSync(bad, 'Frequency (Hz),Gain (dB),Phase (deg)\n100,40,-90\n1000,30,-95\n500,20,-100\n');
     await page.setInputFiles('input[name=bench-file]', bad);
     await page.getByRole('button', { name: 'Upload' }).click();
-    await expect.poll(() => page.getByTestId('bench-error').textContent(), { timeout: 30_000 }).toMatch(/line 3: frequency 50 Hz is below 100 Hz/);
+    await expect.poll(() => page.getByTestId('bench-error').textContent(), { timeout: 30_000 }).toMatch(/line 4: frequency 500 Hz is below 1000 Hz on line 3/);
 
     const file = path.join(dir, 'loop-inverted.csv');
     fs.writeFileSync(file, benchCsvFor(input, { invert: true, gainOffsetDb: -1, phaseOffsetDeg: -2 }));
@@ -66,10 +68,12 @@ describe.runIf(run)('Handoff: bench data and exports', () => {
 
     await detail.getByRole('button', { name: 'Shift phase by 180°' }).click();
     await expect.poll(() => page.getByText('Shown with 180° taken off the phase').count(), { timeout: 15_000 }).toBe(1);
-    // Measured PM is about 2° below the model's; fc a little lower (1 dB less gain).
+    // 2° less phase and, with 1 dB less gain, fc a little lower where the phase differs too:
+    // the measured PM sits a few degrees below the model's.
     const pm = Number((await page.getByTestId('measured-pm').textContent())!.replace(/[^\d.-]/g, ''));
     const modelPm = Number((await page.getByTestId('bench-margins').locator('tr', { hasText: 'Phase margin' }).locator('td').nth(2).textContent())!.replace(/[^\d.-]/g, ''));
-    expect(Math.abs(modelPm - pm - 2)).toBeLessThan(0.6);
+    expect(modelPm - pm).toBeGreaterThan(1);
+    expect(modelPm - pm).toBeLessThan(5);
     expect(await page.getByTestId('measured-fc').textContent()).toMatch(/Hz$/);
 
     // Grey dots over the model line, and the difference plot.
