@@ -35,6 +35,7 @@ interface Props {
 /** The Tune Bode plot: trace toggles, power-stage features marked, compensator handles on top. */
 export function TunePlot({ bode, margins, plant, handles, midbandGainDb, dragging, readOnly, bench, ...events }: Props) {
   const [shown, setShown] = useState<Record<TraceId, boolean>>({ loop: true, plant: true, compensator: true });
+  const [benchShown, setBenchShown] = useState(true); // Bench data toggle (Handoff, issue 6)
 
   const series = useMemo<BodeSeries[]>(
     () => TRACES.map((t) => ({ id: t.id, name: t.name, color: TRACE_COLORS[t.id], magDb: bode[t.id].magDb, phaseDeg: bode[t.id].phaseDeg, visible: shown[t.id], width: t.id === 'loop' ? 2.5 : 1.75 })),
@@ -81,6 +82,13 @@ export function TunePlot({ bode, margins, plant, handles, midbandGainDb, draggin
             {t.name}
           </label>
         ))}
+        {bench && (
+          <label className="inline-flex cursor-pointer items-center gap-1.5" title="The newest bench data of this design (Handoff)">
+            <input type="checkbox" className="h-3.5 w-3.5 rounded border-slate-300" style={{ accentColor: '#6b7280' }} checked={benchShown} onChange={(e) => setBenchShown(e.target.checked)} data-testid="toggle-bench" />
+            <span className="inline-block h-1.5 w-1.5 rounded-full bg-trace-bench" aria-hidden />
+            {bench.name ?? 'Bench data'}
+          </label>
+        )}
         <span className="ml-auto text-xs text-slate-500">
           {readOnly ? 'Handles are fixed (read-only)' : 'Drag ○ zeros and ✕ poles sideways, ◆ gain up or down; arrow keys step a focused handle'}
         </span>
@@ -90,7 +98,7 @@ export function TunePlot({ bode, margins, plant, handles, midbandGainDb, draggin
         series={series}
         markers={markers}
         margins={marks}
-        bench={bench ?? undefined}
+        bench={bench && benchShown ? bench : undefined}
         freezeRanges={dragging}
         showLegend={false}
         height={480}
