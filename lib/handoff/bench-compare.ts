@@ -10,7 +10,8 @@
  * the model's.
  */
 import { computeMargins, interpolateLogF, unwrapPhase } from '@/lib/engine/margins';
-import { shiftPhase180, wrapDeg, type BenchPoints } from './bench-parse';
+import { wrapDeg } from '@/lib/engine/transfer';
+import { shiftPhase180, type BenchPoints } from './bench-parse';
 
 export interface MeasuredMargins {
   /** Highest downward 0 dB crossing of the measured gain, Hz; null when it never crosses. */

@@ -24,6 +24,8 @@
  * store a 180° shift.
  */
 
+import { wrapDeg } from '@/lib/engine/transfer';
+
 export const BENCH_MAX_BYTES = 10 * 1024 * 1024;
 export const BENCH_MAX_ROWS = 20_000;
 
@@ -317,12 +319,6 @@ function checkOrder(
     lineOf.reverse();
     notes.push('The sweep fell in frequency: the rows were reversed.');
   }
-}
-
-/** Wrap an angle to (−180°, 180°]. */
-export function wrapDeg(deg: number): number {
-  const w = ((((deg + 180) % 360) + 360) % 360) - 180;
-  return w === -180 ? 180 : w;
 }
 
 /** Median wrapped phase of the lowest-frequency points (the first 5 %, at least 3). */

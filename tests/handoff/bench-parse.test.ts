@@ -5,8 +5,8 @@ import {
   BenchParseError,
   parseBenchData,
   shiftPhase180,
-  wrapDeg,
 } from '@/lib/handoff/bench-parse';
+import { wrapDeg } from '@/lib/engine/transfer';
 
 /** The error a parse throws, or fail. */
 function errorOf(input: string | Uint8Array, opts = {}): BenchParseError {
