@@ -1,5 +1,6 @@
 'use client';
 
+import { memo } from 'react';
 import { E_SERIES_NAMES, type ESeriesName, type PartsOptions, type PartsResult, type Topology } from '@/lib/engine/types';
 import { formatSi } from '@/lib/units/si';
 
@@ -29,7 +30,7 @@ function SeriesSelect({ id, label, value, disabled, onChange }: { id: string; la
 }
 
 /** Ideal and snapped compensator parts, with the standard series chosen for R and C. */
-export function PartsTable({
+export const PartsTable = memo(function PartsTable({
   parts,
   topology,
   readOnly,
@@ -94,4 +95,4 @@ export function PartsTable({
       )}
     </div>
   );
-}
+});

@@ -73,11 +73,11 @@ export function SaveBar({ designId, input, baseRevision, dirty, blockedBy, onSav
           onChange={(e) => setNote(e.target.value)}
           data-testid="revision-note"
         />
-        <button type="submit" className="btn-primary" disabled={!dirty || mutation.isPending || blockedBy !== null} title={blockedBy ?? undefined} data-testid="save-revision">
+        <button type="submit" className="btn-primary" disabled={!(dirty || baseRevision === null) || mutation.isPending || blockedBy !== null} title={blockedBy ?? undefined} data-testid="save-revision">
           {mutation.isPending ? 'Saving…' : baseRevision === null ? 'Save as r1' : `Save as r${baseRevision + 1}`}
         </button>
       </form>
-      {dirty && blockedBy && <p className="text-xs text-red-700">{blockedBy}</p>}
+      {(dirty || baseRevision === null) && blockedBy && <p className="text-xs text-red-700">{blockedBy}</p>}
       {conflict && (
         <div className="rounded-md border border-amber-300 bg-amber-50 p-3 text-sm text-amber-900" role="alert" data-testid="save-conflict">
           <p>

@@ -1,7 +1,7 @@
 'use client';
 
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useEffect, useRef } from 'react';
+import { memo, useEffect, useRef } from 'react';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
 import type { AnalyzeRequest, FieldIssue } from '@/lib/engine/types';
@@ -86,7 +86,7 @@ export interface StageFormProps {
 }
 
 /** Power stage, modulator and reference inputs; SI-prefix text, checked as typed. */
-export function StageForm({ value, readOnly, issues, onChange, onValidityChange }: StageFormProps) {
+export const StageForm = memo(function StageForm({ value, readOnly, issues, onChange, onValidityChange }: StageFormProps) {
   const topology = value.converter.topology;
   const start = useRef({ text: toText(value), values: numbersOf(value) });
   const {
@@ -143,4 +143,4 @@ export function StageForm({ value, readOnly, issues, onChange, onValidityChange 
       })}
     </fieldset>
   );
-}
+});

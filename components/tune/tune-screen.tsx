@@ -3,7 +3,7 @@
 import Link from 'next/link';
 import { useCallback, useDeferredValue, useMemo, useRef, useState } from 'react';
 import { proposeForPlant } from '@/lib/engine/starting-point';
-import { EngineInputError, type AnalyzeRequest, type CompensatorShape, type CompensatorType, type PartsOptions } from '@/lib/engine/types';
+import { EngineInputError, type AnalyzeRequest, type CompensatorShape, type CompensatorType, type FieldIssue, type PartsOptions } from '@/lib/engine/types';
 import type { RevisionListItem, SavedRevision } from '@/lib/queries/revisions';
 import { ChecksList } from './checks-list';
 import { CompensatorTable } from './compensator-table';
@@ -40,6 +40,8 @@ function stableJson(v: unknown): string {
   );
 }
 
+const NO_ISSUES: FieldIssue[] = [];
+
 const firstMessage = (err: unknown) => (err instanceof EngineInputError ? err.issues[0]?.message ?? err.message : err instanceof Error ? err.message : String(err));
 
 function Card({ title, children, className = '', aside }: { title: string; children: React.ReactNode; className?: string; aside?: React.ReactNode }) {
@@ -65,7 +67,11 @@ export function TuneScreen({ designId, initialInput, shownRevision, latestRevisi
   const dragBase = useRef<CompensatorShape | null>(null);
 
   const { converter, modulator, feedback, sweep } = input;
-  const prepared = useMemo(() => prepareStage({ converter, modulator, feedback, sweep } as AnalyzeRequest), [converter, modulator, feedback, sweep]);
+  const stage = useMemo(() => ({ converter, modulator, feedback, sweep }), [converter, modulator, feedback, sweep]);
+  const prepared = useMemo(() => prepareStage(stage as AnalyzeRequest), [stage]);
+  // Stable callbacks keep the memoised stage form and parts table still while a handle is dragged.
+  const onStageChange = useCallback((next: Pick<AnalyzeRequest, 'converter' | 'modulator' | 'feedback'>) => setInput((i) => ({ ...i, ...next })), []);
+  const onSeriesChange = useCallback((options: PartsOptions) => setInput((i) => ({ ...i, parts: options })), []);
   const loop = useMemo(() => (prepared.ok ? analyzeCompensator(prepared.value, input.compensator) : null), [prepared, input.compensator]);
   // Snapped parts and their margins may lag a frame behind a drag.
   const deferredComp = useDeferredValue(input.compensator);
@@ -132,7 +138,7 @@ export function TuneScreen({ designId, initialInput, shownRevision, latestRevisi
 
   const onSaved = (rev: SavedRevision, savedInput: AnalyzeRequest) => setSaved({ json: stableJson(savedInput), revision: rev.number });
 
-  const stageIssues = prepared.ok ? [] : prepared.issues;
+  const stageIssues = prepared.ok ? NO_ISSUES : prepared.issues;
   const blockedBy = !stageValid
     ? 'A power-stage field holds text that is not a number; fix it to save.'
     : !prepared.ok
@@ -217,13 +223,7 @@ export function TuneScreen({ designId, initialInput, shownRevision, latestRevisi
 
       <div className="grid items-start gap-4 lg:grid-cols-2 xl:grid-cols-3">
         <Card title="Power stage" aside={<span className="text-xs text-slate-500">{input.converter.topology}, voltage-mode</span>}>
-          <StageForm
-            value={input}
-            readOnly={readOnly}
-            issues={stageIssues}
-            onChange={(stage) => setInput((i) => ({ ...i, ...stage }))}
-            onValidityChange={setStageValid}
-          />
+          <StageForm value={stage} readOnly={readOnly} issues={stageIssues} onChange={onStageChange} onValidityChange={setStageValid} />
         </Card>
         <Card title="Compensator handles">
           <CompensatorTable
@@ -248,7 +248,7 @@ export function TuneScreen({ designId, initialInput, shownRevision, latestRevisi
               parts={parts}
               topology={input.converter.topology}
               readOnly={readOnly}
-              onSeriesChange={(options: PartsOptions) => setInput((i) => ({ ...i, parts: options }))}
+              onSeriesChange={onSeriesChange}
             />
           ) : (
             <p className="text-sm text-slate-500">Parts appear once the power stage is valid.</p>
