@@ -16,5 +16,7 @@ export default defineConfig({
     testTimeout: 120_000,
     hookTimeout: 300_000,
     fileParallelism: false,
+    // Pages answer slower on a loaded 2-core machine: poll for up to 15 s, not 1 s.
+    expect: { poll: { timeout: 15_000, interval: 100 } },
   },
 });
