@@ -189,7 +189,13 @@ function BenchDetailView({ detail, canEdit, shifting, onShift }: { detail: Bench
     );
   }, [detail]);
   const diff = useMemo(
-    () => (detail.difference && detail.difference.f.length > 0 ? differenceSvg(detail.difference, { id: `diff-${detail.id}`, title: 'Model minus bench data', width: 720 }) : null),
+    () => {
+      if (!detail.difference || detail.difference.f.length === 0) return null;
+      // Same frequency span as the overlay beside it.
+      const f = [...(detail.model?.bode.f ?? []), ...detail.points.f];
+      const fRange: [number, number] = [Math.min(...f), Math.max(...f)];
+      return differenceSvg(detail.difference, { id: `diff-${detail.id}`, title: 'Model minus bench data', width: 720, fRange });
+    },
     [detail],
   );
   const m = detail.measured;

@@ -281,10 +281,14 @@ export function bodeSvg(
 }
 
 /** Model minus measured: gain difference (dB) and phase difference (°). */
-export function differenceSvg(diff: BenchLike, opts: { id: string; title: string; width?: number; panelHeight?: number }): string {
+export function differenceSvg(
+  diff: BenchLike,
+  opts: { id: string; title: string; width?: number; panelHeight?: number; fRange?: [number, number] },
+): string {
   return plotSvg({
     id: opts.id,
     title: opts.title,
+    fRange: opts.fRange,
     width: opts.width,
     panelHeight: opts.panelHeight ?? 160,
     panels: [
