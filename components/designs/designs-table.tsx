@@ -3,9 +3,8 @@
 import Link from 'next/link';
 import { useMemo, useState } from 'react';
 import type { DesignListItem } from '@/db/queries/designs';
+import { topologyLabel } from '@/lib/topology';
 import { SignoffBadge } from './signoff-badge';
-
-const TOPOLOGY_LABELS: Record<string, string> = { buck: 'Buck', boost: 'Boost', 'buck-boost': 'Buck-boost' };
 
 type SortKey = 'name' | 'topology' | 'latestRevision' | 'signoffState' | 'updatedAt';
 
@@ -81,7 +80,7 @@ export function DesignsTable({ designs }: { designs: DesignListItem[] }) {
                 </Link>
                 {d.description && <div className="text-xs text-slate-500">{d.description}</div>}
               </td>
-              <td>{TOPOLOGY_LABELS[d.topology] ?? d.topology}</td>
+              <td>{topologyLabel(d.topology)}</td>
               <td className="num">{d.latestRevision ? `r${d.latestRevision}` : <span className="text-slate-400">not saved</span>}</td>
               <td>
                 <SignoffBadge state={d.signoffState} />

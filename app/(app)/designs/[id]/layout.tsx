@@ -3,6 +3,7 @@ import { notFound } from 'next/navigation';
 import { getDb } from '@/db/client';
 import { getDesign, getLatestRevision } from '@/db/queries';
 import { requireUser } from '@/lib/auth';
+import { topologyLabel } from '@/lib/topology';
 import { DesignTabs } from '@/components/designs/design-tabs';
 
 export default async function DesignLayout({ children, params }: { children: React.ReactNode; params: Promise<{ id: string }> }) {
@@ -23,7 +24,7 @@ export default async function DesignLayout({ children, params }: { children: Rea
             {design.name}
           </h1>
           <p className="text-sm text-slate-500">
-            <span className="capitalize">{design.topology}</span> · {latest ? `latest r${latest.number}` : 'not saved yet'}
+            {topologyLabel(design.topology)} · {latest ? `latest r${latest.number}` : 'not saved yet'}
             {design.description ? ` · ${design.description}` : ''}
           </p>
         </div>
