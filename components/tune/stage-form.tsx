@@ -6,6 +6,7 @@ import { useForm } from 'react-hook-form';
 import { z } from 'zod';
 import type { AnalyzeRequest, FieldIssue } from '@/lib/engine/types';
 import { siText, toSiText } from './si-schema';
+import { TextField } from './text-field';
 
 type Stage = Pick<AnalyzeRequest, 'converter' | 'modulator' | 'feedback'>;
 
@@ -113,32 +114,17 @@ export const StageForm = memo(function StageForm({ value, readOnly, issues, onCh
   return (
     <fieldset className="grid grid-cols-2 gap-x-3 gap-y-2" disabled={readOnly} aria-label="Power stage">
       {FIELDS.map((f) => {
-        const id = `stage-${f.name}`;
-        const formError = errors[f.name]?.message;
-        const engineError = issues.filter((i) => i.path === f.path).map((i) => i.message)[0];
-        const message = formError ?? engineError;
+        const engineError = issues.find((i) => i.path === f.path)?.message;
         return (
-          <div key={f.name}>
-            <label className="label normal-case tracking-normal" htmlFor={id}>
-              {f.label} <span className="text-slate-400">({f.unit})</span>
-            </label>
-            <input
-              id={id}
-              inputMode="decimal"
-              autoComplete="off"
-              spellCheck={false}
-              className={`input num font-mono ${message ? 'input-error' : ''}`}
-              aria-invalid={message ? true : undefined}
-              aria-describedby={message ? `${id}-error` : undefined}
-              placeholder={f.hint}
-              {...register(f.name)}
-            />
-            {message && (
-              <p id={`${id}-error`} className="field-error" role="alert">
-                {message}
-              </p>
-            )}
-          </div>
+          <TextField
+            key={f.name}
+            id={`stage-${f.name}`}
+            label={f.label}
+            unit={f.unit}
+            error={errors[f.name]?.message ?? engineError}
+            placeholder={f.hint}
+            {...register(f.name)}
+          />
         );
       })}
     </fieldset>

@@ -6,6 +6,7 @@ import { z } from 'zod';
 import type { StartingPointMethod } from '@/lib/engine/starting-point';
 import type { CompensatorType } from '@/lib/engine/types';
 import { siText, toSiText } from './si-schema';
+import { TextField } from './text-field';
 
 const schema = z.object({
   crossoverHz: siText('Target crossover fc', 'Hz'),
@@ -35,13 +36,12 @@ export type StartingPointRequest = z.output<typeof schema>;
 interface Props {
   fsw: number;
   type: CompensatorType;
-  readOnly: boolean;
   /** Replace the compensator; returns the reason it could not be placed, or null. */
   onPropose: (target: StartingPointRequest) => string | null;
 }
 
 /** Starting point: target fc and PM and a placement method give an editable compensator. */
-export function StartingPointForm({ fsw, type, readOnly, onPropose }: Props) {
+export function StartingPointForm({ fsw, type, onPropose }: Props) {
   const {
     register,
     handleSubmit,
@@ -61,21 +61,9 @@ export function StartingPointForm({ fsw, type, readOnly, onPropose }: Props) {
 
   return (
     <form onSubmit={submit} noValidate className="space-y-2" aria-label="Starting point">
-      <fieldset disabled={readOnly} className="grid grid-cols-2 gap-2">
-        <div>
-          <label className="label normal-case tracking-normal" htmlFor="sp-fc">
-            Target fc <span className="text-slate-400">(Hz)</span>
-          </label>
-          <input id="sp-fc" className={`input num font-mono ${errors.crossoverHz ? 'input-error' : ''}`} {...register('crossoverHz')} />
-          {errors.crossoverHz && <p className="field-error">{errors.crossoverHz.message}</p>}
-        </div>
-        <div>
-          <label className="label normal-case tracking-normal" htmlFor="sp-pm">
-            Target PM <span className="text-slate-400">(°)</span>
-          </label>
-          <input id="sp-pm" className={`input num font-mono ${errors.phaseMarginDeg ? 'input-error' : ''}`} {...register('phaseMarginDeg')} />
-          {errors.phaseMarginDeg && <p className="field-error">{errors.phaseMarginDeg.message}</p>}
-        </div>
+      <div className="grid grid-cols-2 gap-2">
+        <TextField id="sp-fc" label="Target fc" unit="Hz" error={errors.crossoverHz?.message} {...register('crossoverHz')} />
+        <TextField id="sp-pm" label="Target PM" unit="°" error={errors.phaseMarginDeg?.message} {...register('phaseMarginDeg')} />
         <div>
           <label className="label normal-case tracking-normal" htmlFor="sp-method">
             Method
@@ -95,7 +83,7 @@ export function StartingPointForm({ fsw, type, readOnly, onPropose }: Props) {
             <option value="type3">Type III</option>
           </select>
         </div>
-      </fieldset>
+      </div>
       <p className="text-[11px] text-slate-500">
         {method === 'k-factor'
           ? 'K factor: the boost needed for the target PM at fc sets where the zeros and poles sit.'
@@ -107,7 +95,7 @@ export function StartingPointForm({ fsw, type, readOnly, onPropose }: Props) {
         </p>
       )}
       {isSubmitSuccessful && !errors.root && <p className="text-xs text-emerald-700">Compensator placed; drag or edit it from here.</p>}
-      <button type="submit" className="btn-secondary" disabled={readOnly} data-testid="starting-point-apply">
+      <button type="submit" className="btn-secondary" data-testid="starting-point-apply">
         Place compensator
       </button>
     </form>

@@ -235,12 +235,14 @@ export function TuneScreen({ designId, initialInput, shownRevision, latestRevisi
             onStep={onStep}
             onTypeChange={onTypeChange}
           />
-          <details className="mt-4 rounded-md border border-slate-200 p-3" open={!readOnly && saved.revision === null}>
-            <summary className="cursor-pointer text-sm font-semibold text-slate-800">Starting point</summary>
-            <div className="mt-3">
-              <StartingPointForm fsw={input.converter.fsw} type={input.compensator.type} readOnly={readOnly} onPropose={propose} />
-            </div>
-          </details>
+          {!readOnly && (
+            <details className="mt-4 rounded-md border border-slate-200 p-3" open={saved.revision === null}>
+              <summary className="cursor-pointer text-sm font-semibold text-slate-800">Starting point</summary>
+              <div className="mt-3">
+                <StartingPointForm fsw={input.converter.fsw} type={input.compensator.type} onPropose={propose} />
+              </div>
+            </details>
+          )}
         </Card>
         <Card title="Parts">
           {parts ? (
