@@ -6,6 +6,7 @@ import { interpolateLogF } from '@/lib/engine/margins';
 import type { BodeData, Margins, TransferSummary } from '@/lib/engine/types';
 import { HandleOverlay, type HandleMove, type PlacedHandle } from './handle-overlay';
 import type { HandleSpec } from './handles';
+import { LiveCurves, type LiveCurve } from './live-curves';
 
 export const TRACE_COLORS = { loop: '#4f46e5', plant: '#0d9488', compensator: '#d97706', rhp: '#dc2626' } as const;
 
@@ -37,9 +38,22 @@ export function TunePlot({ bode, margins, plant, handles, midbandGainDb, draggin
   const [shown, setShown] = useState<Record<TraceId, boolean>>({ loop: true, plant: true, compensator: true });
   const [benchShown, setBenchShown] = useState(true); // Bench data toggle (Handoff, issue 6)
 
-  const series = useMemo<BodeSeries[]>(
-    () => TRACES.map((t) => ({ id: t.id, name: t.name, color: TRACE_COLORS[t.id], magDb: bode[t.id].magDb, phaseDeg: bode[t.id].phaseDeg, visible: shown[t.id], width: t.id === 'loop' ? 2.5 : 1.75 })),
-    [bode, shown],
+  const toSeries = (t: (typeof TRACES)[number], trace: { magDb: number[]; phaseDeg: number[] }): BodeSeries => ({
+    id: t.id,
+    name: t.name,
+    color: TRACE_COLORS[t.id],
+    ...trace,
+    visible: shown[t.id],
+    width: t.id === 'loop' ? 2.5 : 1.75,
+  });
+  const all = useMemo(() => TRACES.map((t) => toSeries(t, bode[t.id])), [bode, shown]); // eslint-disable-line react-hooks/exhaustive-deps
+  // While a handle is dragged Plotly keeps only the power stage, which does not move, and the
+  // loop and compensator are drawn live above it (LiveCurves); Plotly takes them back on release.
+  const plantOnly = useMemo(() => TRACES.map((t) => toSeries(t, t.id === 'plant' ? bode.plant : { magDb: [], phaseDeg: [] })), [bode.plant, shown]); // eslint-disable-line react-hooks/exhaustive-deps
+  const series = dragging ? plantOnly : all;
+  const live = useMemo<LiveCurve[]>(
+    () => (dragging ? all.filter((s) => s.id !== 'plant' && s.visible).map((s) => ({ id: s.id, color: s.color, width: s.width ?? 2, magDb: s.magDb, phaseDeg: s.phaseDeg })) : []),
+    [all, dragging],
   );
 
   // Handles ride on the compensator curve, or on the loop when the compensator is hidden.
@@ -97,14 +111,16 @@ export function TunePlot({ bode, margins, plant, handles, midbandGainDb, draggin
         f={bode.f}
         series={series}
         markers={markers}
-        margins={marks}
+        margins={dragging ? undefined : marks}
         bench={bench && benchShown ? bench : undefined}
         freezeRanges={dragging}
         showLegend={false}
         height={480}
         aria-label="Bode plot of the loop gain, power stage and compensator"
         overlay={(g) => (
-          <HandleOverlay
+          <>
+            {dragging && <LiveCurves geometry={g} f={bode.f} curves={live} margins={margins} color={TRACE_COLORS.loop} />}
+            <HandleOverlay
             geometry={g}
             handles={placed}
             color={TRACE_COLORS.compensator}
@@ -112,6 +128,7 @@ export function TunePlot({ bode, margins, plant, handles, midbandGainDb, draggin
             midbandGainDb={midbandGainDb}
             {...events}
           />
+          </>
         )}
       />
     </div>
