@@ -75,7 +75,7 @@ export function CompensatorTable({ shape, handles, midbandGainDb, readOnly, onSh
           ))}
         </select>
         {typeError && (
-          <p className="field-error" role="alert">
+          <p className="mt-1 text-xs text-amber-800" role="status" data-testid="type-note">
             {typeError}
           </p>
         )}

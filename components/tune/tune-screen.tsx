@@ -132,8 +132,10 @@ export function TuneScreen({ designId, initialInput, shownRevision, latestRevisi
     const fsw = input.converter.fsw;
     const base = { crossoverHz: crossoverHz ?? fsw / 10, phaseMarginDeg: 55, type };
     // The K factor cannot reach every target (e.g. Type I); the pole-zero rules always place something.
-    const problem = propose({ ...base, method: 'k-factor' });
-    return problem === null ? null : propose({ ...base, method: 'pole-zero' });
+    const kFactor = propose({ ...base, method: 'k-factor' });
+    if (kFactor === null) return null;
+    const poleZero = propose({ ...base, method: 'pole-zero' });
+    return poleZero ?? `The K factor could not place it (${kFactor}), so the pole-zero rules did: check the margins.`;
   };
 
   const onSaved = (rev: SavedRevision, savedInput: AnalyzeRequest) => setSaved({ json: stableJson(savedInput), revision: rev.number });
