@@ -33,23 +33,26 @@ interface Props {
   bench?: BenchOverlay | null;
 }
 
+const NO_TRACE = { magDb: [], phaseDeg: [] };
+
+const toSeries = (t: (typeof TRACES)[number], trace: { magDb: number[]; phaseDeg: number[] }, shown: Record<TraceId, boolean>): BodeSeries => ({
+  id: t.id,
+  name: t.name,
+  color: TRACE_COLORS[t.id],
+  ...trace,
+  visible: shown[t.id],
+  width: t.id === 'loop' ? 2.5 : 1.75,
+});
+
 /** The Tune Bode plot: trace toggles, power-stage features marked, compensator handles on top. */
 export function TunePlot({ bode, margins, plant, handles, midbandGainDb, dragging, readOnly, bench, ...events }: Props) {
   const [shown, setShown] = useState<Record<TraceId, boolean>>({ loop: true, plant: true, compensator: true });
   const [benchShown, setBenchShown] = useState(true); // Bench data toggle (Handoff, issue 6)
 
-  const toSeries = (t: (typeof TRACES)[number], trace: { magDb: number[]; phaseDeg: number[] }): BodeSeries => ({
-    id: t.id,
-    name: t.name,
-    color: TRACE_COLORS[t.id],
-    ...trace,
-    visible: shown[t.id],
-    width: t.id === 'loop' ? 2.5 : 1.75,
-  });
-  const all = useMemo(() => TRACES.map((t) => toSeries(t, bode[t.id])), [bode, shown]); // eslint-disable-line react-hooks/exhaustive-deps
+  const all = useMemo(() => TRACES.map((t) => toSeries(t, bode[t.id], shown)), [bode, shown]);
   // While a handle is dragged Plotly keeps only the power stage, which does not move, and the
   // loop and compensator are drawn live above it (LiveCurves); Plotly takes them back on release.
-  const plantOnly = useMemo(() => TRACES.map((t) => toSeries(t, t.id === 'plant' ? bode.plant : { magDb: [], phaseDeg: [] })), [bode.plant, shown]); // eslint-disable-line react-hooks/exhaustive-deps
+  const plantOnly = useMemo(() => TRACES.map((t) => toSeries(t, t.id === 'plant' ? bode.plant : NO_TRACE, shown)), [bode.plant, shown]);
   const series = dragging ? plantOnly : all;
   const live = useMemo<LiveCurve[]>(
     () => (dragging ? all.filter((s) => s.id !== 'plant' && s.visible).map((s) => ({ id: s.id, color: s.color, width: s.width ?? 2, magDb: s.magDb, phaseDeg: s.phaseDeg })) : []),
