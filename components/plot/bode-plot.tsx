@@ -19,11 +19,16 @@
  *   as a bar at the −180° crossing.
  * - `extraTraces`: raw Plotly traces appended as given (xaxis 'x' / yaxis 'y'
  *   for magnitude, 'x2' / 'y2' for phase).
- * - `freezeRanges`: keep the current axis ranges (Tune sets it while a handle
- *   is dragged so the plot does not jump under the pointer).
+ * - `labelObstacles`: points on the magnitude panel the text labels keep
+ *   clear of ({ hz, magDb, sizePx }; Tune passes its handles).
+ * - `freezeRanges`: keep the current axis ranges and label places (Tune sets
+ *   it while a handle is dragged so the plot does not jump under the pointer).
  * - `overlay(geometry)`: rendered above the plot with a PlotGeometry mapping
  *   Hz/dB/degrees ↔ pixels (the Tune handles use it).
  * - `showLegend` (default true), `height` (px, default 460).
+ *
+ * The labels (fc, PM, GM, marker names) are annotations placed in pixels so
+ * they do not cover each other (label-placement.ts).
  *
  * 0 dB and −180° guides are always drawn. Phase has its own panel, so curves
  * are solid unless a series asks for a dash.
@@ -32,18 +37,21 @@ import { useMemo, useRef, useState } from 'react';
 import { PlotlyChart } from './plotly-chart';
 import { computeGeometry, plotMargin, type PlotGeometry, type Ranges } from './geometry';
 import {
+  buildBodeLabels,
   buildBodeLayout,
   buildBodeTraces,
   computeRanges,
+  isMarginLabel,
   type BenchOverlay,
   type BodeSeries,
+  type LabelObstacle,
   type MarginMarks,
   type PlotMarker,
 } from './bode-traces';
-import type { Data } from 'plotly.js-dist-min';
+import type { Annotation, Data } from 'plotly.js-dist-min';
 
 export type { PlotGeometry } from './geometry';
-export type { BenchOverlay, BodeSeries, MarginMarks, PlotMarker } from './bode-traces';
+export type { BenchOverlay, BodeSeries, LabelObstacle, MarginMarks, PlotMarker } from './bode-traces';
 export { BENCH_GREY } from './bode-traces';
 
 export interface BodePlotProps {
@@ -53,6 +61,7 @@ export interface BodePlotProps {
   markers?: PlotMarker[];
   margins?: MarginMarks | MarginMarks[];
   extraTraces?: Data[];
+  labelObstacles?: LabelObstacle[];
   freezeRanges?: boolean;
   overlay?: (geometry: PlotGeometry) => React.ReactNode;
   showLegend?: boolean;
@@ -64,11 +73,12 @@ export interface BodePlotProps {
 const asList = <T,>(v: T | T[] | undefined): T[] | undefined => (v === undefined ? undefined : Array.isArray(v) ? v : [v]);
 
 export function BodePlot(props: BodePlotProps) {
-  const { f, series, markers, extraTraces, freezeRanges = false, overlay, showLegend = true, height = 460, className } = props;
+  const { f, series, markers, extraTraces, labelObstacles, freezeRanges = false, overlay, showLegend = true, height = 460, className } = props;
   const bench = useMemo(() => asList(props.bench), [props.bench]);
   const margins = useMemo(() => asList(props.margins), [props.margins]);
   const [width, setWidth] = useState(0);
   const frozen = useRef<Ranges | null>(null);
+  const frozenLabels = useRef<Partial<Annotation>[] | null>(null);
 
   const fresh = useMemo(() => computeRanges({ f, series, bench }), [f, series, bench]);
   if (!freezeRanges || !frozen.current) frozen.current = fresh;
@@ -78,8 +88,16 @@ export function BodePlot(props: BodePlotProps) {
     () => buildBodeTraces({ f, series, bench, markers, margins, extraTraces }, ranges),
     [f, series, bench, markers, margins, extraTraces, ranges],
   );
-  const layout = useMemo(() => buildBodeLayout(ranges, height, showLegend), [ranges, height, showLegend]);
   const geometry = useMemo(() => computeGeometry(width, height, ranges, plotMargin(showLegend)), [width, height, ranges, showLegend]);
+  // While frozen (a drag) the labels stay where they were, so Plotly is not redrawn every frame;
+  // the margin labels go when the margins do (Tune draws live ones then).
+  const labels = useMemo(() => {
+    if (freezeRanges && frozenLabels.current) return margins ? frozenLabels.current : frozenLabels.current.filter((a) => !isMarginLabel(a));
+    return buildBodeLabels({ f, series, markers, margins }, geometry, labelObstacles);
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [f, series, markers, margins, geometry, freezeRanges ? null : labelObstacles, freezeRanges]);
+  if (!freezeRanges) frozenLabels.current = labels;
+  const layout = useMemo(() => buildBodeLayout(ranges, height, showLegend, labels), [ranges, height, showLegend, labels]);
 
   return (
     <PlotlyChart

@@ -3,9 +3,10 @@
  * (no React, no Plotly import), so the drag benchmark can time them too.
  * See bode-plot.tsx for what each prop means.
  */
-import type { Data, Layout } from 'plotly.js-dist-min';
+import type { Annotation, Data, Layout } from 'plotly.js-dist-min';
 import { formatSi } from '@/lib/units/si';
-import { MAG_DOMAIN, PHASE_DOMAIN, plotMargin, type Ranges } from './geometry';
+import { MAG_DOMAIN, PHASE_DOMAIN, plotMargin, type PlotGeometry, type Ranges } from './geometry';
+import { placeLabels, type Box, type LabelRequest, type LabelSide } from './label-placement';
 
 export interface BodeSeries {
   id: string;
@@ -123,31 +124,25 @@ function marginTraces(m: MarginMarks, r: Ranges): Data[] {
     const fc = m.crossoverHz;
     out.push(line([fc, fc], r.mag, 'x', 'y', color, 1, 'dot'), line([fc, fc], r.phase, 'x2', 'y2', color, 1, 'dot'), {
       type: 'scatter',
-      mode: 'text+markers',
+      mode: 'markers',
       x: [fc],
       y: [0],
       xaxis: 'x',
       yaxis: 'y',
       showlegend: false,
       marker: { size: 7, color },
-      text: [`${pre}fc ${formatSi(fc, 'Hz')}`],
-      textposition: 'bottom right',
-      textfont: { size: 11, color },
       hovertemplate: `${pre}crossover fc %{x:.3s}Hz<extra></extra>`,
     });
     if (m.phaseMarginDeg !== null) {
       out.push({
         type: 'scatter',
-        mode: 'text+lines',
+        mode: 'lines',
         x: [fc, fc],
         y: [-180, m.phaseMarginDeg - 180],
         xaxis: 'x2',
         yaxis: 'y2',
         showlegend: false,
         line: { color, width: 3 },
-        text: ['', `${pre}PM ${m.phaseMarginDeg.toFixed(1)}°`],
-        textposition: 'top right',
-        textfont: { size: 11, color },
         hovertemplate: `${pre}phase margin ${m.phaseMarginDeg.toFixed(1)}°<extra></extra>`,
       });
     }
@@ -156,16 +151,13 @@ function marginTraces(m: MarginMarks, r: Ranges): Data[] {
     const f180 = m.phaseCrossoverHz;
     out.push({
       type: 'scatter',
-      mode: 'text+lines',
+      mode: 'lines',
       x: [f180, f180],
       y: [0, -m.gainMarginDb],
       xaxis: 'x',
       yaxis: 'y',
       showlegend: false,
       line: { color, width: 3 },
-      text: ['', `${pre}GM ${m.gainMarginDb.toFixed(1)} dB`],
-      textposition: 'bottom left',
-      textfont: { size: 11, color },
       hovertemplate: `${pre}gain margin ${m.gainMarginDb.toFixed(1)} dB<extra></extra>`,
     });
   }
@@ -208,15 +200,12 @@ export function buildBodeTraces(c: BodeContent, r: Ranges): Data[] {
   for (const m of c.markers ?? []) {
     out.push({
       type: 'scatter',
-      mode: 'text+markers',
+      mode: 'markers',
       showlegend: false,
       x: [m.hz],
       y: [m.magDb],
       xaxis: 'x',
       yaxis: 'y',
-      text: [m.label],
-      textposition: 'top center',
-      textfont: { color: m.color, size: 11 },
       marker: { symbol: m.kind === 'pole' ? 'x-thin-open' : 'circle-open', size: 12, color: m.color, line: { color: m.color, width: 2 } },
       hovertemplate: `${m.label}<br>%{x:.3s}Hz<extra></extra>`,
     });
@@ -226,7 +215,7 @@ export function buildBodeTraces(c: BodeContent, r: Ranges): Data[] {
 }
 
 /** Two stacked panels on one log frequency axis; fixed margins so overlays can map pixels (geometry.ts). */
-export function buildBodeLayout(r: Ranges, height: number, showLegend: boolean): Partial<Layout> {
+export function buildBodeLayout(r: Ranges, height: number, showLegend: boolean, annotations: Partial<Annotation>[] = []): Partial<Layout> {
   const axis = { gridcolor: GRID, fixedrange: true, automargin: false, zeroline: false };
   return {
     height,
@@ -238,6 +227,7 @@ export function buildBodeLayout(r: Ranges, height: number, showLegend: boolean):
     legend: { orientation: 'h', x: 0, y: 1, yanchor: 'bottom', font: { size: 11 }, itemclick: false, itemdoubleclick: false },
     hovermode: 'closest',
     dragmode: false,
+    annotations,
     xaxis: { ...axis, type: 'log', range: r.x, domain: [0, 1], anchor: 'y', showticklabels: false, tickmode: 'array', tickvals: frequencyTicks(r).tickvals },
     xaxis2: {
       ...axis,
@@ -261,4 +251,148 @@ export function buildBodeLayout(r: Ranges, height: number, showLegend: boolean):
       title: { text: 'Phase', font: { size: 11 } },
     },
   };
+}
+
+/** A point a label must keep clear of, on the magnitude panel (e.g. a Tune handle), with its size in px. */
+export interface LabelObstacle {
+  hz: number;
+  magDb: number;
+  sizePx: number;
+}
+
+interface PlotLabel {
+  id: string;
+  text: string;
+  hz: number;
+  value: number;
+  panel: 'mag' | 'phase';
+  color: string;
+  prefer: LabelSide;
+  hover: string;
+}
+
+/** The text labels, most important first: each crossover, then the named features, then the margin bars. */
+function plotLabels(c: BodeContent): PlotLabel[] {
+  const fcs: PlotLabel[] = [];
+  const bars: PlotLabel[] = [];
+  (c.margins ?? []).forEach((m, i) => {
+    const color = m.color ?? '#4f46e5';
+    const pre = m.label ? `${m.label} ` : '';
+    if (m.crossoverHz !== null) {
+      const fc = m.crossoverHz;
+      fcs.push({ id: `fc-${i}`, text: `${pre}fc ${formatSi(fc, 'Hz')}`, hz: fc, value: 0, panel: 'mag', color, prefer: 'below-right', hover: `${pre}crossover fc` });
+      if (m.phaseMarginDeg !== null)
+        bars.push({
+          id: `pm-${i}`,
+          text: `${pre}PM ${m.phaseMarginDeg.toFixed(1)}°`,
+          hz: fc,
+          value: m.phaseMarginDeg - 180,
+          panel: 'phase',
+          color,
+          prefer: 'above-right',
+          hover: `${pre}phase margin`,
+        });
+    }
+    if (m.phaseCrossoverHz !== null && m.gainMarginDb !== null)
+      bars.push({
+        id: `gm-${i}`,
+        text: `${pre}GM ${m.gainMarginDb.toFixed(1)} dB`,
+        hz: m.phaseCrossoverHz,
+        value: -m.gainMarginDb,
+        panel: 'mag',
+        color,
+        prefer: 'below-left',
+        hover: `${pre}gain margin`,
+      });
+  });
+  // Several loops (Compare): the lowest crossover's labels lean left, the highest's right, so each stays on its own side of its line.
+  for (const group of [fcs, bars.filter((b) => b.id.startsWith('pm-')), bars.filter((b) => b.id.startsWith('gm-'))]) {
+    if (group.length < 2) continue;
+    const sorted = [...group].sort((a, b) => a.hz - b.hz);
+    sorted[0].prefer = sorted[0].prefer.startsWith('above') ? 'above-left' : 'below-left';
+    const last = sorted[sorted.length - 1];
+    last.prefer = last.prefer.startsWith('above') ? 'above-right' : 'below-right';
+  }
+  const features = (c.markers ?? []).map<PlotLabel>((m) => ({ id: `marker-${m.id}`, text: m.label, hz: m.hz, value: m.magDb, panel: 'mag', color: m.color, prefer: 'above', hover: m.label }));
+  return [...fcs, ...features, ...bars];
+}
+
+/** Whether an annotation from buildBodeLabels names a margin (fc, PM, GM) rather than a marker. */
+export const isMarginLabel = (a: Partial<Annotation>) => /^(fc|pm|gm)-/.test(a.name ?? '');
+
+const around = (x: number, y: number, half: number): Box => ({ x0: x - half, y0: y - half, x1: x + half, y1: y + half });
+
+/**
+ * The labels as Plotly annotations, placed in pixels (label-placement.ts) so
+ * they keep clear of each other, of the markers and bars, of `obstacles`
+ * (Tune's handles) and, where they can, of the curves.
+ */
+export function buildBodeLabels(c: BodeContent, g: PlotGeometry, obstacles: LabelObstacle[] = []): Partial<Annotation>[] {
+  if (!(g.right - g.left > 40)) return [];
+  const labels = plotLabels(c);
+  if (!labels.length) return [];
+  const y = (l: { panel: 'mag' | 'phase'; value: number }) => (l.panel === 'mag' ? g.dbToY(l.value) : g.degToY(l.value));
+  const magBounds: Box = { x0: g.left, y0: g.magTop, x1: g.right, y1: g.magBottom };
+  const phaseBounds: Box = { x0: g.left, y0: g.phaseTop, x1: g.right, y1: g.phaseBottom };
+
+  const boxes: Box[] = obstacles.map((o) => around(g.hzToX(o.hz), g.dbToY(o.magDb), o.sizePx / 2));
+  for (const m of c.markers ?? []) boxes.push(around(g.hzToX(m.hz), g.dbToY(m.magDb), 8));
+  for (const m of c.margins ?? []) {
+    if (m.crossoverHz !== null) {
+      const x = g.hzToX(m.crossoverHz);
+      boxes.push(around(x, g.dbToY(0), 5));
+      if (m.phaseMarginDeg !== null) boxes.push({ x0: x - 2, x1: x + 2, y0: g.degToY(m.phaseMarginDeg - 180), y1: g.degToY(-180) });
+    }
+    if (m.phaseCrossoverHz !== null && m.gainMarginDb !== null) {
+      const x = g.hzToX(m.phaseCrossoverHz);
+      const [a, b] = [g.dbToY(0), g.dbToY(-m.gainMarginDb)];
+      boxes.push({ x0: x - 2, x1: x + 2, y0: Math.min(a, b), y1: Math.max(a, b) });
+    }
+  }
+  const points: { x: number; y: number }[] = [];
+  for (const s of c.series) {
+    if (s.visible === false) continue;
+    const f = s.f ?? c.f;
+    for (let i = 0; i < f.length; i++) {
+      points.push({ x: g.hzToX(f[i]), y: g.dbToY(s.magDb[i]) });
+      points.push({ x: g.hzToX(f[i]), y: g.degToY(s.phaseDeg[i]) });
+    }
+  }
+
+  const requests: LabelRequest[] = labels.map((l) => ({
+    id: l.id,
+    text: l.text,
+    x: g.hzToX(l.hz),
+    y: y(l),
+    prefer: l.prefer,
+    bounds: l.panel === 'mag' ? magBounds : phaseBounds,
+  }));
+  const placed = placeLabels(requests, { boxes, points });
+  return labels.map((l, i) => {
+    const p = placed[i];
+    return {
+      name: l.id,
+      xref: l.panel === 'mag' ? 'x' : 'x2',
+      yref: l.panel === 'mag' ? 'y' : 'y2',
+      // Annotation on a log axis take log10 of the value.
+      x: Math.log10(l.hz),
+      y: l.value,
+      text: l.text,
+      hovertext: l.hover,
+      showarrow: true,
+      axref: 'pixel',
+      ayref: 'pixel',
+      ax: p.dx,
+      ay: p.dy,
+      arrowhead: 0,
+      arrowwidth: 1,
+      arrowcolor: p.leader ? l.color : 'rgba(0,0,0,0)',
+      standoff: 2,
+      xanchor: 'center',
+      yanchor: 'middle',
+      font: { size: 11, color: l.color },
+      bgcolor: 'rgba(255,255,255,0.85)',
+      borderpad: 1,
+    } satisfies Partial<Annotation>;
+  });
 }

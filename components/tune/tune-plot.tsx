@@ -66,6 +66,8 @@ export function TunePlot({ bode, margins, plant, handles, midbandGainDb, draggin
     [handles, bode.f, handleCurve],
   );
 
+  const obstacles = useMemo(() => placed.map((h) => ({ hz: h.hz, magDb: h.magDb, sizePx: 22 })), [placed]);
+
   const markerCurve = shown.plant ? bode.plant : bode.loop;
   const markers = useMemo<PlotMarker[]>(() => {
     const at = (hz: number) => interpolateLogF(bode.f, markerCurve.magDb, hz);
@@ -114,6 +116,7 @@ export function TunePlot({ bode, margins, plant, handles, midbandGainDb, draggin
         f={bode.f}
         series={series}
         markers={markers}
+        labelObstacles={obstacles}
         margins={dragging ? undefined : marks}
         bench={bench && benchShown ? bench : undefined}
         freezeRanges={dragging}
