@@ -15,11 +15,13 @@ interface Props {
   /** A reason saving is not possible right now (a field that does not parse, an impossible design). */
   blockedBy: string | null;
   onSaved: (saved: SavedRevision, input: AnalyzeRequest) => void;
+  /** What the note starts with (e.g. "From r2: " when editing from an earlier revision). */
+  initialNote?: string;
 }
 
 /** Note + save as a new revision; a conflict offers saving as the next revision anyway. */
-export function SaveBar({ designId, input, baseRevision, dirty, blockedBy, onSaved }: Props) {
-  const [note, setNote] = useState('');
+export function SaveBar({ designId, input, baseRevision, dirty, blockedBy, onSaved, initialNote = '' }: Props) {
+  const [note, setNote] = useState(initialNote);
   const [lastSaved, setLastSaved] = useState<number | null>(null);
   const queryClient = useQueryClient();
   const router = useRouter();

@@ -24,7 +24,12 @@ export type TuneMode = 'edit' | 'role-read-only' | 'earlier-revision';
 
 export interface TuneScreenProps {
   designId: number;
+  /** What the editor starts with: the shown revision's input, or an earlier one's when editing from it. */
   initialInput: AnalyzeRequest;
+  /** The shown revision's own input, to tell unsaved changes by (default: initialInput). */
+  savedInput?: AnalyzeRequest;
+  /** Editing from this earlier revision: its input is loaded on top of the latest as unsaved changes. */
+  editFrom?: number | null;
   /** The revision shown; null for a design with none saved yet. */
   shownRevision: number | null;
   latestRevision: number | null;
@@ -56,11 +61,12 @@ function Card({ title, children, className = '', aside }: { title: string; child
   );
 }
 
-export function TuneScreen({ designId, initialInput, shownRevision, latestRevision, mode, role, revisions }: TuneScreenProps) {
+export function TuneScreen({ designId, initialInput, savedInput, editFrom = null, shownRevision, latestRevision, mode, role, revisions }: TuneScreenProps) {
   const readOnly = mode !== 'edit';
   const bench = useBenchOverlay(designId); // Bench data overlay (Handoff, issue 6)
   const [input, setInput] = useState<AnalyzeRequest>(initialInput);
-  const [saved, setSaved] = useState({ json: stableJson(initialInput), revision: shownRevision });
+  const [saved, setSaved] = useState({ json: stableJson(savedInput ?? initialInput), revision: shownRevision });
+  const [from, setFrom] = useState(editFrom);
   const [stageValid, setStageValid] = useState(true);
   const [dragging, setDragging] = useState<string | null>(null);
   const [handleProblem, setHandleProblem] = useState<string | null>(null);
@@ -138,7 +144,14 @@ export function TuneScreen({ designId, initialInput, shownRevision, latestRevisi
     return poleZero ?? `The K factor could not place it (${kFactor}), so the pole-zero rules did: check the margins.`;
   };
 
-  const onSaved = (rev: SavedRevision, savedInput: AnalyzeRequest) => setSaved({ json: stableJson(savedInput), revision: rev.number });
+  const onSaved = (rev: SavedRevision, savedInput: AnalyzeRequest) => {
+    setSaved({ json: stableJson(savedInput), revision: rev.number });
+    if (from !== null) {
+      setFrom(null);
+      // The address no longer asks to load the earlier revision (before SaveBar refreshes the page).
+      window.history.replaceState(null, '', `/designs/${designId}`);
+    }
+  };
 
   const stageIssues = prepared.ok ? NO_ISSUES : prepared.issues;
   const blockedBy = !stageValid
@@ -157,19 +170,48 @@ export function TuneScreen({ designId, initialInput, shownRevision, latestRevisi
         <RevisionPicker designId={designId} shown={shownRevision} initial={revisions} />
         <div className="min-w-[20rem] flex-1">
           {mode === 'edit' ? (
-            <SaveBar designId={designId} input={input} baseRevision={saved.revision} dirty={dirty} blockedBy={blockedBy} onSaved={onSaved} />
+            <>
+              <SaveBar
+                designId={designId}
+                input={input}
+                baseRevision={saved.revision}
+                dirty={dirty}
+                blockedBy={blockedBy}
+                onSaved={onSaved}
+                initialNote={from !== null ? `From r${from}: ` : ''}
+              />
+              {from !== null && (
+                <p className="mt-2 text-sm text-slate-600" data-testid="edit-from-note">
+                  <strong>r{from}</strong>&apos;s input is loaded as unsaved changes on top of r{saved.revision}, the latest. Saving makes r
+                  {(saved.revision ?? 0) + 1}; r{from} stays as it was.{' '}
+                  <Link className="text-indigo-700 underline" href={`/designs/${designId}`}>
+                    Discard and go back to r{saved.revision}
+                  </Link>
+                </p>
+              )}
+            </>
           ) : mode === 'role-read-only' ? (
             <p className="text-sm text-slate-600" data-testid="read-only-note">
               Read-only: your role (<strong>{role}</strong>) may look at designs but not change them. Handles and fields are fixed.
             </p>
           ) : (
-            <p className="text-sm text-slate-600" data-testid="read-only-note">
-              r{shownRevision} is an earlier revision and opens read-only.{' '}
-              <Link className="text-indigo-700 underline" href={`/designs/${designId}`}>
-                Go to the latest (r{latestRevision})
-              </Link>{' '}
-              to make changes.
-            </p>
+            <div className="flex flex-wrap items-center justify-between gap-x-4 gap-y-2">
+              <p className="text-sm text-slate-600" data-testid="read-only-note">
+                r{shownRevision} is an earlier revision and opens read-only.{' '}
+                <Link className="text-indigo-700 underline" href={`/designs/${designId}`}>
+                  Go to the latest (r{latestRevision})
+                </Link>
+                , or start from this one.
+              </p>
+              <Link
+                className="btn-secondary"
+                href={`/designs/${designId}?from=${shownRevision}`}
+                title={`Load r${shownRevision}'s input into the editor as unsaved changes on top of r${latestRevision}; nothing is overwritten`}
+                data-testid="edit-from"
+              >
+                Edit from r{shownRevision}
+              </Link>
+            </div>
           )}
         </div>
       </div>

@@ -13,31 +13,43 @@ function startingInput(topology: Topology): AnalyzeRequest {
   return structuredClone(sample.request);
 }
 
+const revisionParam = (v: string | undefined) => (v !== undefined && v !== '' ? (/^\d+$/.test(v) ? Number(v) : NaN) : null);
+
 // Tune: the latest revision (editable for designers and admins), or ?r=N read-only.
-export default async function TunePage({ params, searchParams }: { params: Promise<{ id: string }>; searchParams: Promise<{ r?: string }> }) {
-  const [{ id }, { r }] = await Promise.all([params, searchParams]);
+// ?from=N (designers and admins): the latest revision with rN's input loaded as unsaved changes.
+export default async function TunePage({ params, searchParams }: { params: Promise<{ id: string }>; searchParams: Promise<{ r?: string; from?: string }> }) {
+  const [{ id }, q] = await Promise.all([params, searchParams]);
   const user = await requireUser();
   const db = getDb();
   const design = /^\d+$/.test(id) ? getDesign(db, user.teamId, Number(id)) : undefined;
   if (!design) notFound();
   const latest = getLatestRevision(db, design.id);
-  const requested = r !== undefined && r !== '' ? (/^\d+$/.test(r) ? getRevision(db, design.id, Number(r)) : undefined) : latest;
-  if (r !== undefined && r !== '' && !requested) notFound();
+  const r = revisionParam(q.r);
+  const requested = r !== null ? (Number.isNaN(r) ? undefined : getRevision(db, design.id, r)) : latest;
+  if (r !== null && !requested) notFound();
   const shown = requested ?? null;
-  const mode: TuneMode = !can.editDesigns(user.role) ? 'role-read-only' : shown && latest && shown.number !== latest.number ? 'earlier-revision' : 'edit';
+  const canEdit = can.editDesigns(user.role);
+  const mode: TuneMode = !canEdit ? 'role-read-only' : shown && latest && shown.number !== latest.number ? 'earlier-revision' : 'edit';
+  const fromNumber = r === null && mode === 'edit' && latest ? revisionParam(q.from) : null;
+  const from = fromNumber !== null ? (Number.isNaN(fromNumber) ? undefined : getRevision(db, design.id, fromNumber)) : null;
+  if (from === undefined) notFound();
   const revisions = listRevisions(db, design.id).map((x) => ({
     number: x.number,
     note: x.note,
     authorName: x.authorName,
     createdAt: new Date(x.createdAt).toISOString(),
   }));
+  const shownInput = shown ? (shown.input as AnalyzeRequest) : startingInput(design.topology);
   return (
     <div className="space-y-4">
       <CautionsPanel />
       <TuneScreen
-        key={r ?? 'latest'}
+        // ?from=N and the latest share a key: after a save the address drops ?from without a remount.
+        key={r !== null ? `r${r}` : 'latest'}
         designId={design.id}
-        initialInput={shown ? (shown.input as AnalyzeRequest) : startingInput(design.topology)}
+        initialInput={from ? (from.input as AnalyzeRequest) : shownInput}
+        savedInput={shownInput}
+        editFrom={from && from.number !== shown?.number ? from.number : null}
         shownRevision={shown?.number ?? null}
         latestRevision={latest?.number ?? null}
         mode={mode}
