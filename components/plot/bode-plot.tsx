@@ -19,8 +19,8 @@
  *   as a bar at the −180° crossing.
  * - `extraTraces`: raw Plotly traces appended as given (xaxis 'x' / yaxis 'y'
  *   for magnitude, 'x2' / 'y2' for phase).
- * - `labelObstacles`: points on the magnitude panel the text labels keep
- *   clear of ({ hz, magDb, sizePx }; Tune passes its handles).
+ * - `labelObstacles(geometry)`: boxes in px the text labels keep clear of
+ *   (Tune passes its handles, where the overlay draws them).
  * - `freezeRanges`: keep the current axis ranges and label places (Tune sets
  *   it while a handle is dragged so the plot does not jump under the pointer).
  * - `overlay(geometry)`: rendered above the plot with a PlotGeometry mapping
@@ -44,14 +44,14 @@ import {
   isMarginLabel,
   type BenchOverlay,
   type BodeSeries,
-  type LabelObstacle,
+  type LabelObstacles,
   type MarginMarks,
   type PlotMarker,
 } from './bode-traces';
 import type { Annotation, Data } from 'plotly.js-dist-min';
 
 export type { PlotGeometry } from './geometry';
-export type { BenchOverlay, BodeSeries, LabelObstacle, MarginMarks, PlotMarker } from './bode-traces';
+export type { BenchOverlay, BodeSeries, LabelObstacles, MarginMarks, PlotMarker } from './bode-traces';
 export { BENCH_GREY } from './bode-traces';
 
 export interface BodePlotProps {
@@ -61,7 +61,7 @@ export interface BodePlotProps {
   markers?: PlotMarker[];
   margins?: MarginMarks | MarginMarks[];
   extraTraces?: Data[];
-  labelObstacles?: LabelObstacle[];
+  labelObstacles?: LabelObstacles;
   freezeRanges?: boolean;
   overlay?: (geometry: PlotGeometry) => React.ReactNode;
   showLegend?: boolean;

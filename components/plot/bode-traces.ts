@@ -6,7 +6,7 @@
 import type { Annotation, Data, Layout } from 'plotly.js-dist-min';
 import { formatSi } from '@/lib/units/si';
 import { MAG_DOMAIN, PHASE_DOMAIN, plotMargin, type PlotGeometry, type Ranges } from './geometry';
-import { placeLabels, type Box, type LabelRequest, type LabelSide } from './label-placement';
+import { around, placeLabels, type Box, type LabelRequest, type LabelSide } from './label-placement';
 
 export interface BodeSeries {
   id: string;
@@ -253,12 +253,8 @@ export function buildBodeLayout(r: Ranges, height: number, showLegend: boolean, 
   };
 }
 
-/** A point a label must keep clear of, on the magnitude panel (e.g. a Tune handle), with its size in px. */
-export interface LabelObstacle {
-  hz: number;
-  magDb: number;
-  sizePx: number;
-}
+/** Boxes (px) the labels must keep clear of, beyond the plot's own markers: e.g. Tune's handles where the overlay draws them. */
+export type LabelObstacles = (g: PlotGeometry) => Box[];
 
 interface PlotLabel {
   id: string;
@@ -320,14 +316,12 @@ function plotLabels(c: BodeContent): PlotLabel[] {
 /** Whether an annotation from buildBodeLabels names a margin (fc, PM, GM) rather than a marker. */
 export const isMarginLabel = (a: Partial<Annotation>) => /^(fc|pm|gm)-/.test(a.name ?? '');
 
-const around = (x: number, y: number, half: number): Box => ({ x0: x - half, y0: y - half, x1: x + half, y1: y + half });
-
 /**
  * The labels as Plotly annotations, placed in pixels (label-placement.ts) so
  * they keep clear of each other, of the markers and bars, of `obstacles`
  * (Tune's handles) and, where they can, of the curves.
  */
-export function buildBodeLabels(c: BodeContent, g: PlotGeometry, obstacles: LabelObstacle[] = []): Partial<Annotation>[] {
+export function buildBodeLabels(c: BodeContent, g: PlotGeometry, obstacles?: LabelObstacles): Partial<Annotation>[] {
   if (!(g.right - g.left > 40)) return [];
   const labels = plotLabels(c);
   if (!labels.length) return [];
@@ -335,7 +329,7 @@ export function buildBodeLabels(c: BodeContent, g: PlotGeometry, obstacles: Labe
   const magBounds: Box = { x0: g.left, y0: g.magTop, x1: g.right, y1: g.magBottom };
   const phaseBounds: Box = { x0: g.left, y0: g.phaseTop, x1: g.right, y1: g.phaseBottom };
 
-  const boxes: Box[] = obstacles.map((o) => around(g.hzToX(o.hz), g.dbToY(o.magDb), o.sizePx / 2));
+  const boxes: Box[] = obstacles ? obstacles(g) : [];
   for (const m of c.markers ?? []) boxes.push(around(g.hzToX(m.hz), g.dbToY(m.magDb), 8));
   for (const m of c.margins ?? []) {
     if (m.crossoverHz !== null) {

@@ -62,6 +62,9 @@ export function estimateLabelWidth(text: string, fontSize = 11): number {
   return Math.ceil(w * fontSize) + 6;
 }
 
+/** A square box of half-size `half` around a point. */
+export const around = (x: number, y: number, half: number): Box => ({ x0: x - half, y0: y - half, x1: x + half, y1: y + half });
+
 /** Space kept between two labels, px. */
 const SPACING = 3;
 

@@ -30,7 +30,8 @@ interface Props {
   onStep: (id: string, move: HandleMove) => void;
 }
 
-const SIZE = 24;
+export const HANDLE_SIZE = 24;
+const SIZE = HANDLE_SIZE;
 /** Keyboard steps: 1/48 decade (Shift: 1/8), 0.5 dB (Shift: 3 dB). */
 const STEP_DECADE = 1 / 48;
 const STEP_DECADE_BIG = 1 / 8;
@@ -58,7 +59,7 @@ function Glyph({ kind, color }: { kind: HandleSpec['kind']; color: string }) {
  * Pixel positions: on the curve, pinned to the plot edge when the frequency
  * lies outside the sweep, and stepped down when two handles would cover each other.
  */
-function placeHandles(handles: PlacedHandle[], g: PlotGeometry) {
+export function placeHandles(handles: PlacedHandle[], g: PlotGeometry) {
   const out = new Map<string, { x: number; y: number; outside: 'left' | 'right' | null }>();
   const taken: { x: number; y: number }[] = [];
   for (const h of handles) {

@@ -1,10 +1,11 @@
 'use client';
 
-import { useMemo, useState } from 'react';
-import { BodePlot, type BenchOverlay, type BodeSeries, type PlotMarker } from '@/components/plot/bode-plot';
+import { useCallback, useMemo, useState } from 'react';
+import { BodePlot, type BenchOverlay, type BodeSeries, type PlotGeometry, type PlotMarker } from '@/components/plot/bode-plot';
+import { around } from '@/components/plot/label-placement';
 import { interpolateLogF } from '@/lib/engine/margins';
 import type { BodeData, Margins, TransferSummary } from '@/lib/engine/types';
-import { HandleOverlay, type HandleMove, type PlacedHandle } from './handle-overlay';
+import { HANDLE_SIZE, HandleOverlay, placeHandles, type HandleMove, type PlacedHandle } from './handle-overlay';
 import type { HandleSpec } from './handles';
 import { LiveCurves, type LiveCurve } from './live-curves';
 
@@ -66,7 +67,12 @@ export function TunePlot({ bode, margins, plant, handles, midbandGainDb, draggin
     [handles, bode.f, handleCurve],
   );
 
-  const obstacles = useMemo(() => placed.map((h) => ({ hz: h.hz, magDb: h.magDb, sizePx: 22 })), [placed]);
+  // The labels keep clear of the handles where the overlay draws them (pinned to an edge, stepped
+  // apart), with 2 px more for a handle's index digit.
+  const obstacles = useCallback(
+    (g: PlotGeometry) => [...placeHandles(placed, g).values()].map((p) => around(p.x, p.y, HANDLE_SIZE / 2 + 2)),
+    [placed],
+  );
 
   const markerCurve = shown.plant ? bode.plant : bode.loop;
   const markers = useMemo<PlotMarker[]>(() => {

@@ -3,7 +3,9 @@
  * mouse, changes a value in the handle table by keyboard, sees the phase
  * margin move, saves with a note and finds the new revision after a reload;
  * a save that races another one offers "save anyway"; leaving with unsaved
- * changes asks first. A viewer sees the plot, cannot edit, and the server
+ * changes asks first (a link, and the browser's back button). An earlier
+ * revision opens read-only until "Edit from rN" loads it as unsaved changes
+ * on top of the latest. A viewer sees the plot, cannot edit, and the server
  * answers 403 to a save. Screenshots go to $SCREENSHOT_DIR.
  */
 import { chromium, type Browser, type Page } from 'playwright-core';
@@ -11,7 +13,7 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { CHROMIUM, CHROMIUM_ARGS, chromiumAvailable } from '../support/chromium';
 import { screenshot, signInThroughForm } from '../support/browser';
 import { signedInAs, type Client } from '../support/http';
-import { savedDesign, type AnalyzeInput } from '../support/saved-design';
+import { savedDesign, tweak, type AnalyzeInput } from '../support/saved-design';
 
 const run = chromiumAvailable();
 const baseUrl = inject('baseUrl');
@@ -136,6 +138,85 @@ describe.runIf(run)('Tune', () => {
     await screenshot(page, 'tune-designer-conflict');
     await page.getByTestId('save-anyway').click();
     await expect.poll(() => page.getByTestId('save-state').textContent(), { timeout: 20_000 }).toContain(`Saved as r${latest + 2}`);
+    await page.context().close();
+  });
+
+  it('asks before the back button leaves unsaved changes: stay keeps them, leave goes back', async () => {
+    const page = await pageAs('designer@demo.test');
+    await page.goto(`${baseUrl}/designs`);
+    await openTune(page);
+    await page.locator('[data-handle="gain"]').focus();
+    await page.keyboard.press('ArrowUp');
+    await expect.poll(() => page.getByTestId('save-state').textContent()).toContain('Unsaved changes');
+    const gain = await page.getByTestId('value-gain').inputValue();
+
+    const asked: string[] = [];
+    page.once('dialog', (d) => {
+      asked.push(d.message());
+      void d.dismiss();
+    });
+    await page.evaluate(() => window.history.back());
+    await expect.poll(() => asked.length).toBe(1);
+    expect(asked[0]).toContain('unsaved changes');
+    expect(new URL(page.url()).pathname).toBe(`/designs/${designId}`);
+    expect(await page.getByTestId('save-state').textContent()).toContain('Unsaved changes');
+    expect(await page.getByTestId('value-gain').inputValue()).toBe(gain);
+
+    // Asked again on the next press (the guard is back in place); this time leave.
+    page.once('dialog', (d) => {
+      asked.push(d.message());
+      void d.accept();
+    });
+    await page.evaluate(() => window.history.back());
+    await expect.poll(() => asked.length).toBe(2);
+    await expect.poll(() => new URL(page.url()).pathname).toBe('/designs');
+    await page.context().close();
+  });
+
+  it('opens an earlier revision read-only until "Edit from rN" loads it as unsaved changes on top of the latest', async () => {
+    const own = await savedDesign(designer, 'Browser edit-from rail');
+    const r2Input = tweak(own.input, 'r1', 0.8);
+    const r2 = await designer.json(`/api/designs/${own.designId}/revisions`, 'POST', { baseRevision: 1, note: 'smaller R1', input: r2Input });
+    expect(r2.status).toBe(201);
+
+    const viewer = await pageAs('viewer@demo.test');
+    await viewer.goto(`${baseUrl}/designs/${own.designId}?r=1`);
+    await viewer.getByTestId('read-only-note').waitFor();
+    expect(await viewer.getByTestId('edit-from').count()).toBe(0);
+    await viewer.context().close();
+
+    const page = await pageAs('designer@demo.test');
+    await page.goto(`${baseUrl}/designs/${own.designId}?r=1`);
+    await page.locator('[data-plot-ready="true"]').waitFor({ timeout: 60_000 });
+    await page.getByTestId('read-only-note').waitFor();
+    expect(await page.locator('#stage-vin').isDisabled()).toBe(true);
+    expect(await page.getByTestId('save-revision').count()).toBe(0);
+    const r1Value = await page.getByTestId('value-z0').inputValue();
+    await screenshot(page, 'tune-earlier-revision');
+
+    await page.getByTestId('edit-from').click();
+    await page.getByTestId('edit-from-note').waitFor();
+    expect(new URL(page.url()).searchParams.get('from')).toBe('1');
+    await expect.poll(() => page.getByTestId('save-state').textContent()).toContain('Unsaved changes');
+    expect(await page.locator('#stage-vin').isDisabled()).toBe(false);
+    expect(await page.getByTestId('value-z0').inputValue()).toBe(r1Value);
+    expect(await page.getByTestId('revision-note').inputValue()).toBe('From r1: ');
+    expect(await page.getByTestId('save-revision').textContent()).toBe('Save as r3');
+    await screenshot(page, 'tune-edit-from-r1');
+
+    await page.getByTestId('revision-note').fill('From r1: back to the first R1');
+    await page.getByTestId('save-revision').click();
+    await expect.poll(() => page.getByTestId('save-state').textContent(), { timeout: 20_000 }).toContain('Saved as r3');
+    expect(new URL(page.url()).search).toBe('');
+    expect(await page.getByTestId('edit-from-note').count()).toBe(0);
+
+    // r3 was saved on top of r2 (no conflict), with r1's input; r1 and r2 are unchanged.
+    const saved = await (await designer.fetch(`/api/designs/${own.designId}/revisions/3`)).json();
+    expect(saved.baseNumber).toBe(2);
+    expect(saved.note).toBe('From r1: back to the first R1');
+    expect(saved.input).toEqual(own.input);
+    const first = await (await designer.fetch(`/api/designs/${own.designId}/revisions/1`)).json();
+    expect(first.input).toEqual(own.input);
     await page.context().close();
   });
 
