@@ -171,7 +171,12 @@ export function HandleOverlay({ geometry: g, handles, color, disabled, midbandGa
               <Glyph kind={h.kind} color={color} />
             </svg>
             {index && (
-              <span className="pointer-events-none absolute -right-1.5 -top-1.5 text-[10px] font-bold leading-none" style={{ color }} aria-hidden>
+              // Pinned to the right edge, the index moves to the left so it does not crowd the › beside it.
+              <span
+                className={`pointer-events-none absolute -top-1.5 text-[10px] font-bold leading-none ${outside === 'right' ? '-left-1.5' : '-right-1.5'}`}
+                style={{ color }}
+                aria-hidden
+              >
                 {index}
               </span>
             )}
