@@ -101,7 +101,10 @@ export function RevisionTable({ designId, rows, selected }: { designId: number; 
                   <td>
                     <SignoffBadge state={r.state} />
                   </td>
-                  <td className="whitespace-nowrap text-right">
+                  <td className="space-x-3 whitespace-nowrap text-right">
+                    <Link href={`${base}?r=${r.number}`} className="text-xs text-indigo-700 hover:underline" title={`Open r${r.number} on Tune`}>
+                      Open
+                    </Link>
                     {prev && (
                       <Link href={`${base}/compare?a=${prev}&b=${r.number}`} className="text-xs text-indigo-700 hover:underline" title={`What changed from r${prev} to r${r.number}`}>
                         vs r{prev}
