@@ -12,8 +12,8 @@ import { loopChecks, partChecks, stageChecks } from './checks';
 import { snapToSeries } from './eseries';
 import { computeMargins, computeMarginsFromComplex, type LoopPointEvaluator } from './margins';
 import { buildPlantModel, modulatedPlant, summarizePlant, type PlantModel } from './plant';
-import { defaultSweep, logSweep, makeGrid, sweepComplex, sweepTransfer, type Grid } from './sweep';
-import { dbFromMagSq, phaseOffsetDeg, transferPointRaw, transferPolys, type SectionedTransfer } from './transfer';
+import { defaultSweep, logSweep, makeGrid, sweepComplex, sweepTransfer, transferEvaluator, type Grid } from './sweep';
+import { multiplyTransfers, phaseOffsetDeg, type SectionedTransfer } from './transfer';
 import { compensatorIssues, stageIssues } from './validate';
 import {
   EngineInputError,
@@ -55,11 +55,6 @@ export interface PreparedPlant {
   /** Multiple of 360° added to the plant's raw phase in plantTrace. */
   plantOffsetDeg: number;
   stageChecks: Check[];
-  /**
-   * Made on first use by marginsForCompensator: Gvd/Vramp as complex samples on the grid, and
-   * work buffers of grid size reused by later calls (single-threaded use).
-   */
-  complexCache?: { plant: { re: Float64Array; im: Float64Array }; work: { re: Float64Array; im: Float64Array } };
 }
 
 /** What the drag loop needs back after each compensator change. */
@@ -110,27 +105,17 @@ export const preparePlant = (req: StageRequest): PreparedPlant => {
 
 /**
  * The loop T(j2πf) = Gc·Gvd/Vramp as an analytic function, magnitude in dB and phase in
- * degrees on the branch of the Bode plot (offset = the multiple of 360° that puts the phase
- * at its principal value at the sweep start). For hover read-outs and crossing refinement.
+ * degrees on the branch of the Bode plot: the phase at the sweep start is its principal value
+ * (or the multiple of 360° nearest `startDeg`, to follow a given trace). For hover read-outs
+ * and crossing refinement.
  */
 export const evaluateLoopGain = (
   prepared: PreparedPlant,
   comp: SectionedTransfer | CompensatorInput,
-  offsetDeg?: number,
+  startDeg?: number,
 ): LoopPointEvaluator => {
   const gc = 'type' in comp ? compensatorTransfer(comp) : comp;
-  const plantTf = prepared.plantTransfer;
-  const raw = (hz: number) => {
-    const p = transferPointRaw(plantTf, hz);
-    const c = transferPointRaw(gc, hz);
-    return { magDb: dbFromMagSq(p.magSq * c.magSq), phaseDeg: p.phaseRawDeg + c.phaseRawDeg };
-  };
-  const offset = offsetDeg ?? phaseOffsetDeg(raw(prepared.grid.f[0]).phaseDeg);
-  return (hz) => {
-    const r = raw(hz);
-    r.phaseDeg += offset;
-    return r;
-  };
+  return transferEvaluator(multiplyTransfers(prepared.plantTransfer, gc), prepared.grid.f[0], startDeg);
 };
 
 /** Loop gain on the grid (plant sweep reused) and its analytic evaluator on the same branch. */
@@ -141,10 +126,8 @@ const sweepLoop = (prepared: PreparedPlant, comp: SectionedTransfer) => {
   const pp = prepared.plantTrace.phaseDeg;
   const cm = compSweep.trace.magDb;
   const cp = compSweep.trace.phaseDeg;
-  // Raw phases are traces minus their offsets; the loop gets its own offset.
-  const raw0 = pp[0] - prepared.plantOffsetDeg + cp[0] - compSweep.offsetDeg;
-  const offset = phaseOffsetDeg(raw0);
-  const shift = offset - prepared.plantOffsetDeg - compSweep.offsetDeg;
+  // The sum of two traces, moved by a multiple of 360° to start at its principal value.
+  const shift = phaseOffsetDeg(pp[0] + cp[0]);
   const magDb = new Array<number>(n);
   const phaseDeg = new Array<number>(n);
   for (let i = 0; i < n; i++) {
@@ -152,7 +135,7 @@ const sweepLoop = (prepared: PreparedPlant, comp: SectionedTransfer) => {
     phaseDeg[i] = pp[i] + cp[i] + shift;
   }
   const loop = { f: prepared.grid.f, magDb, phaseDeg };
-  return { compTrace: compSweep.trace, loop, evaluate: evaluateLoopGain(prepared, comp, offset) };
+  return { compTrace: compSweep.trace, loop, evaluate: evaluateLoopGain(prepared, comp, phaseDeg[0]) };
 };
 
 const checkCompensator = (comp: CompensatorInput) => {
@@ -160,25 +143,19 @@ const checkCompensator = (comp: CompensatorInput) => {
   if (issues.length > 0) throw new EngineInputError(issues);
 };
 
+/** Work buffers for the loop samples of marginsForCompensator (synchronous use only). */
+const loopWork = { re: [] as number[], im: [] as number[] };
+
 /**
- * Loop margins only, no traces (snapped parts, corner sweeps): the loop is formed from
- * complex samples, so the grid needs no arctangent or logarithm; crossings are refined on the
- * analytic loop exactly as in analyzeLoop.
+ * Loop margins only, no traces (snapped parts, corner sweeps): T = Gc·Gvd/Vramp on the grid
+ * as complex samples (section products, no arctangent or logarithm per point); only the
+ * crossings are then refined on the analytic loop, as in analyzeLoop, so the margins are
+ * those a full sweep would give.
  */
 export const marginsForCompensator = (prepared: PreparedPlant, comp: CompensatorInput): Margins => {
   checkCompensator(comp);
   const gc = compensatorTransfer(comp);
-  const polys = transferPolys(gc);
-  if (!prepared.complexCache) {
-    const n = prepared.grid.f.length;
-    const pp = transferPolys(prepared.plantTransfer);
-    prepared.complexCache = {
-      plant: sweepComplex(pp.num, pp.den, prepared.grid),
-      work: { re: new Float64Array(n), im: new Float64Array(n) },
-    };
-  }
-  const { plant, work } = prepared.complexCache;
-  const t = sweepComplex(polys.num, polys.den, prepared.grid, work, plant);
+  const t = sweepComplex(multiplyTransfers(prepared.plantTransfer, gc), prepared.grid, loopWork);
   return computeMarginsFromComplex(prepared.grid.f, t.re, t.im, evaluateLoopGain(prepared, gc));
 };
 

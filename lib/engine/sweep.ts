@@ -6,7 +6,7 @@
  * Phase is the continuous raw phase of transfer.ts shifted by one multiple of 360° so the
  * trace starts at its principal value (see phaseOffsetDeg).
  */
-import { dbFromMagSq, phaseOffsetDeg, transferPointRaw, type SectionedTransfer } from './transfer';
+import { phaseOffsetDeg, type SectionedTransfer } from './transfer';
 import type { LoopPointEvaluator, SampledResponse } from './margins';
 import type { BodeTrace, SweepOptions } from './types';
 
@@ -52,24 +52,47 @@ export const makeGrid = (f: readonly number[]): Grid => {
 };
 
 /**
- * Phase plan of a transfer: terms N_k/D_k, each a numerator and a denominator section
- * (either may be the constant 1), stored flat as [n1, n2, d1, d2] per term. One atan2 of
- * N·conj(D) per term gives ∠N − ∠D exactly when both angles lie on the same side: a numerator
- * with a1 > 0 (angle in (0°, 180°)) pairs with a denominator with a1 ≥ 0 ([0°, 180°]), and
- * a1 < 0 with a1 < 0; the difference then stays inside (−180°, 180°), so the principal value
- * is the continuous one. Unpaired sections form terms of their own.
+ * A sectioned transfer prepared for evaluation at many frequencies: terms N_k/D_k, each a
+ * numerator and a denominator section (either may be the constant 1), stored flat as
+ * [n1, n2, d1, d2] per term (section 1 + a1·s + a2·s²). One atan2 of N·conj(D) per term
+ * gives ∠N − ∠D exactly when both angles lie on the same side: a numerator with a1 > 0
+ * (angle in (0°, 180°)) pairs with a denominator with a1 ≥ 0 ([0°, 180°]), and a1 < 0 with
+ * a1 < 0; the difference then stays inside (−180°, 180°), so the principal value is the
+ * continuous one. Unpaired sections form terms of their own.
  */
-const phasePlan = (h: SectionedTransfer): Float64Array => {
-  const coef = (p: readonly number[] | undefined): [number, number] => (p ? [p[1] ?? 0, p[2] ?? 0] : [0, 0]);
-  const dens = [...h.den];
+interface TransferPlan {
+  gain: number;
+  /** Power of s (originOrder). */
+  order: number;
+  /** Constant phase, rad: 180° for a negative gain plus 90° per origin order. */
+  ph0: number;
+  terms: number[];
+}
+
+const planTransfer = (h: SectionedTransfer): TransferPlan => {
   const terms: number[] = [];
+  const push = (p: readonly number[] | undefined) => {
+    if (p) terms.push(p[1], p.length > 2 ? p[2] : 0);
+    else terms.push(0, 0);
+  };
+  const dens = [...h.den];
   for (const n of h.num) {
     const k = dens.findIndex((d) => (n[1] > 0 && d[1] >= 0) || (n[1] < 0 && d[1] < 0));
-    const d = k >= 0 ? dens.splice(k, 1)[0] : undefined;
-    terms.push(...coef(n), ...coef(d));
+    push(n);
+    push(k >= 0 ? dens.splice(k, 1)[0] : undefined);
   }
-  for (const d of dens) terms.push(0, 0, ...coef(d));
-  return Float64Array.from(terms);
+  for (const d of dens) {
+    push(undefined);
+    push(d);
+  }
+  return { gain: h.gain, order: h.originOrder, ph0: (h.gain < 0 ? Math.PI : 0) + (h.originOrder * Math.PI) / 2, terms };
+};
+
+/** gain²·ω^(2n), the factor of |H|² outside the sections. */
+const originMagSq = (p: TransferPlan, w2: number): number => {
+  const m = p.gain * p.gain;
+  if (p.order === 0) return m;
+  return p.order === -1 ? m / w2 : m * Math.pow(w2, p.order);
 };
 
 /** A transfer swept on a grid. */
@@ -78,134 +101,133 @@ export interface TransferSweep {
   trace: BodeTrace;
   /** The multiple of 360° added to the raw section phase (see phaseOffsetDeg). */
   offsetDeg: number;
-  /** H(jω) as complex samples, when asked for. */
-  re?: Float64Array;
-  im?: Float64Array;
 }
 
 /**
  * Evaluate a sectioned transfer on a grid (hot path: plain numbers, one atan2 per term, one
  * logarithm per point; output arrays are allocated once at their final size).
- * magDb = 10·log10(gain²·ω^(2n)·Π|num|²/Π|den|²); phase = Σ term angles + 90°·n (+180° for a
- * negative gain) + offset, the offset chosen at the first point.
- * With `withComplex`, H(jω) = gain·(jω)^n·Π N·conj(D)/|D|² is accumulated from the same terms.
+ * magDb = 10·log10(gain²·ω^(2n)·Π|N_k|²/|D_k|²); phase = ph0 + Σ ∠(N_k·conj(D_k)) + offset,
+ * the offset chosen at the first point (see phaseOffsetDeg). The loop body repeats
+ * {@link transferEvaluator}'s arithmetic instead of calling it: a call per point costs a
+ * quarter more here, and the same operations keep the two equal to the last bit.
  */
-export const sweepTransfer = (h: SectionedTransfer, grid: Grid, withComplex = false): TransferSweep => {
+export const sweepTransfer = (h: SectionedTransfer, grid: Grid): TransferSweep => {
   const n = grid.f.length;
   const magDb = new Array<number>(n);
   const phaseDeg = new Array<number>(n);
-  const re = withComplex ? new Float64Array(n) : undefined;
-  const im = withComplex ? new Float64Array(n) : undefined;
-  const g2 = h.gain * h.gain;
-  const ph0 = (h.gain < 0 ? Math.PI : 0) + (h.originOrder * Math.PI) / 2;
-  const order = h.originOrder;
-  const plan = phasePlan(h);
-  const nt = plan.length;
-  // The first term in locals: most transfers (plant, every compensator type) have one.
-  const n1 = nt > 0 ? plan[0] : 0;
-  const n2 = nt > 0 ? plan[1] : 0;
-  const d1 = nt > 0 ? plan[2] : 0;
-  const d2 = nt > 0 ? plan[3] : 0;
+  const plan = planTransfer(h);
+  const t = plan.terms;
   const w = grid.w;
   let offsetDeg = 0;
   for (let i = 0; i < n; i++) {
     const wi = w[i];
     const wi2 = wi * wi;
-    let m = g2;
-    if (order === -1) m /= wi2;
-    else if (order !== 0) m *= Math.pow(wi2, order);
-    // First term: N·conj(D), whose angle is ∠N − ∠D.
+    // Term by term as in transferEvaluator (the same operations in the same order).
+    let m = originMagSq(plan, wi2);
+    let ph = plan.ph0;
+    for (let k = 0; k < t.length; k += 4) {
+      const nre = 1 - t[k + 1] * wi2;
+      const nim = t[k] * wi;
+      const dre = 1 - t[k + 3] * wi2;
+      const dim = t[k + 2] * wi;
+      m *= (nre * nre + nim * nim) / (dre * dre + dim * dim);
+      ph += Math.atan2(nim * dre - nre * dim, nre * dre + nim * dim);
+    }
+    ph *= RAD2DEG;
+    if (i === 0) offsetDeg = phaseOffsetDeg(ph);
+    magDb[i] = DB_PER_LN_MAGSQ * Math.log(m);
+    phaseDeg[i] = ph + offsetDeg;
+  }
+  return { trace: { magDb, phaseDeg }, offsetDeg };
+};
+
+/**
+ * The transfer as an analytic function: magnitude in dB and phase in degrees on the branch
+ * that starts at `startHz` at its principal value, or at the multiple of 360° nearest
+ * `startDeg` when given (e.g. a trace's first sample, to follow that trace). The arithmetic is
+ * that of {@link sweepTransfer}: on a sweep's grid and branch it reproduces the trace exactly.
+ * For crossing refinement and read-outs.
+ */
+export const transferEvaluator = (h: SectionedTransfer, startHz: number, startDeg?: number): LoopPointEvaluator => {
+  const plan = planTransfer(h);
+  const t = plan.terms;
+  let offsetDeg = 0;
+  const evaluate: LoopPointEvaluator = (hz) => {
+    const w = TWO_PI * hz;
+    const w2 = w * w;
+    let m = originMagSq(plan, w2);
+    let ph = plan.ph0;
+    for (let k = 0; k < t.length; k += 4) {
+      const nre = 1 - t[k + 1] * w2;
+      const nim = t[k] * w;
+      const dre = 1 - t[k + 3] * w2;
+      const dim = t[k + 2] * w;
+      m *= (nre * nre + nim * nim) / (dre * dre + dim * dim);
+      ph += Math.atan2(nim * dre - nre * dim, nre * dre + nim * dim);
+    }
+    return { magDb: DB_PER_LN_MAGSQ * Math.log(m), phaseDeg: ph * RAD2DEG + offsetDeg };
+  };
+  const raw0 = evaluate(startHz).phaseDeg;
+  offsetDeg = startDeg === undefined ? phaseOffsetDeg(raw0) : 360 * Math.round((startDeg - raw0) / 360);
+  return evaluate;
+};
+
+/**
+ * Complex samples H(jω) of a sectioned transfer on a grid with no transcendental call (for
+ * margins from complex samples): P = Π N_k·conj(D_k) over the terms, then
+ * H = gain·(jω)^n·P / Π|D_k|², one division per point.
+ * `out` is filled (and grown to the grid size) instead of allocating, for repeated calls.
+ */
+export const sweepComplex = (
+  h: SectionedTransfer,
+  grid: Grid,
+  out?: { re: number[]; im: number[] },
+): { re: number[]; im: number[] } => {
+  const n = grid.f.length;
+  const re = out?.re ?? new Array<number>(n);
+  const im = out?.im ?? new Array<number>(n);
+  const plan = planTransfer(h);
+  const t = plan.terms;
+  const nt = t.length;
+  // The first term in locals (a loop has two terms: plant and compensator).
+  const n1 = nt > 0 ? t[0] : 0;
+  const n2 = nt > 0 ? t[1] : 0;
+  const d1 = nt > 0 ? t[2] : 0;
+  const d2 = nt > 0 ? t[3] : 0;
+  const order = plan.order;
+  // j^order as a quarter-turn count 0…3.
+  const turns = ((order % 4) + 4) % 4;
+  const { w } = grid;
+  for (let i = 0; i < n; i++) {
+    const wi = w[i];
+    const wi2 = wi * wi;
     const nre = 1 - n2 * wi2;
     const nim = n1 * wi;
     const dre = 1 - d2 * wi2;
     const dim = d1 * wi;
-    const dd = dre * dre + dim * dim;
     let pr = nre * dre + nim * dim;
     let pi = nim * dre - nre * dim;
-    m *= (nre * nre + nim * nim) / dd;
-    let ph = ph0 + Math.atan2(pi, pr);
-    pr /= dd;
-    pi /= dd;
+    let dd = dre * dre + dim * dim;
     for (let k = 4; k < nt; k += 4) {
-      const kre = 1 - plan[k + 1] * wi2;
-      const kim = plan[k] * wi;
-      const lre = 1 - plan[k + 3] * wi2;
-      const lim = plan[k + 2] * wi;
-      const l2 = lre * lre + lim * lim;
-      m *= (kre * kre + kim * kim) / l2;
+      const kre = 1 - t[k + 1] * wi2;
+      const kim = t[k] * wi;
+      const lre = 1 - t[k + 3] * wi2;
+      const lim = t[k + 2] * wi;
       const tr = kre * lre + kim * lim;
       const ti = kim * lre - kre * lim;
-      ph += Math.atan2(ti, tr);
-      const qr = (pr * tr - pi * ti) / l2;
-      pi = (pr * ti + pi * tr) / l2;
+      const qr = pr * tr - pi * ti;
+      pi = pr * ti + pi * tr;
       pr = qr;
+      dd *= lre * lre + lim * lim;
     }
-    if (i === 0) offsetDeg = phaseOffsetDeg(ph * RAD2DEG);
-    magDb[i] = DB_PER_LN_MAGSQ * Math.log(m);
-    phaseDeg[i] = ph * RAD2DEG + offsetDeg;
-    if (re && im) {
-      // × gain·(jω)^order
-      for (let k = 0; k < order; k++) {
-        const t = -pi * wi;
-        pi = pr * wi;
-        pr = t;
-      }
-      for (let k = 0; k > order; k--) {
-        const t = pi / wi;
-        pi = -pr / wi;
-        pr = t;
-      }
-      re[i] = h.gain * pr;
-      im[i] = h.gain * pi;
-    }
-  }
-  return { trace: { magDb, phaseDeg }, offsetDeg, re, im };
-};
-
-/**
- * Complex response on a grid: re and im of N(jω)/D(jω) for ascending polynomials (Horner),
- * multiplied sample by sample by `times` when given (e.g. the plant, to form the loop).
- * `out` (length ≥ grid size) is filled instead of allocating, for repeated calls.
- */
-export const sweepComplex = (
-  num: readonly number[],
-  den: readonly number[],
-  grid: Grid,
-  out?: { re: Float64Array; im: Float64Array },
-  times?: { re: ArrayLike<number>; im: ArrayLike<number> },
-): { re: Float64Array; im: Float64Array } => {
-  const n = grid.f.length;
-  const re = out?.re ?? new Float64Array(n);
-  const im = out?.im ?? new Float64Array(n);
-  const { w } = grid;
-  for (let i = 0; i < n; i++) {
-    const wi = w[i];
-    let nr = 0;
-    let ni = 0;
-    for (let k = num.length - 1; k >= 0; k--) {
-      const t = -ni * wi + num[k];
-      ni = nr * wi;
-      nr = t;
-    }
-    let dr = 0;
-    let di = 0;
-    for (let k = den.length - 1; k >= 0; k--) {
-      const t = -di * wi + den[k];
-      di = dr * wi;
-      dr = t;
-    }
-    const d2 = dr * dr + di * di;
-    const hr = (nr * dr + ni * di) / d2;
-    const hi = (ni * dr - nr * di) / d2;
-    if (times) {
-      const tr = times.re[i];
-      const ti = times.im[i];
-      re[i] = hr * tr - hi * ti;
-      im[i] = hr * ti + hi * tr;
-    } else {
-      re[i] = hr;
-      im[i] = hi;
-    }
+    // gain·ω^n/Π|D|² as one scale, then the quarter turns of j^n.
+    let scale = plan.gain / dd;
+    if (order === -1) scale /= wi;
+    else if (order !== 0) scale *= Math.pow(wi, order);
+    const sr = scale * pr;
+    const si = scale * pi;
+    re[i] = turns === 0 ? sr : turns === 1 ? -si : turns === 2 ? -sr : si;
+    im[i] = turns === 0 ? si : turns === 1 ? sr : turns === 2 ? -si : -sr;
   }
   return { re, im };
 };
@@ -221,10 +243,6 @@ export const transferResponse = (
   h: SectionedTransfer,
   f: readonly number[],
 ): { sampled: SampledResponse; evaluate: LoopPointEvaluator } => {
-  const { trace, offsetDeg } = sweepTransfer(h, makeGrid(f));
-  const evaluate: LoopPointEvaluator = (hz) => {
-    const p = transferPointRaw(h, hz);
-    return { magDb: dbFromMagSq(p.magSq), phaseDeg: p.phaseRawDeg + offsetDeg };
-  };
-  return { sampled: { f, ...trace }, evaluate };
+  const { trace } = sweepTransfer(h, makeGrid(f));
+  return { sampled: { f, ...trace }, evaluate: transferEvaluator(h, f[0], trace.phaseDeg[0]) };
 };

@@ -54,12 +54,19 @@ export const transferFromPolys = (num: Poly, den: Poly): SectionedTransfer => {
 };
 
 /** Product of transfers: gains multiply, origin orders add, sections concatenate. */
-export const multiplyTransfers = (...parts: SectionedTransfer[]): SectionedTransfer => ({
-  gain: parts.reduce((g, p) => g * p.gain, 1),
-  originOrder: parts.reduce((o, p) => o + p.originOrder, 0),
-  num: parts.flatMap((p) => p.num),
-  den: parts.flatMap((p) => p.den),
-});
+export const multiplyTransfers = (...parts: SectionedTransfer[]): SectionedTransfer => {
+  let gain = 1;
+  let originOrder = 0;
+  const num: Poly[] = [];
+  const den: Poly[] = [];
+  for (const p of parts) {
+    gain *= p.gain;
+    originOrder += p.originOrder;
+    num.push(...p.num);
+    den.push(...p.den);
+  }
+  return { gain, originOrder, num, den };
+};
 
 /** Multiply a transfer by a real constant. */
 export const scaleTransfer = (h: SectionedTransfer, k: number): SectionedTransfer => ({ ...h, gain: h.gain * k });
