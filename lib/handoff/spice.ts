@@ -10,11 +10,8 @@ export function spiceNetlistFile(args: { designName: string; revision: number; i
   // The title line is the first line SPICE reads; keep it to one printable line.
   const name = args.designName.replace(/[\r\n]+/g, ' ').replace(/[^\x20-\x7e]/g, '-');
   const netlist = buildSpiceNetlist(args.input, { title: `Phasewright ${name} r${args.revision}: loop gain check` });
+  // The engine's control block ends with `quit`, so `ngspice -b` exits 0 when done.
   const [title, ...rest] = netlist.split('\n');
-  // `quit` ends the control block so `ngspice -b` and plain `ngspice` both exit 0 when done
-  // (without it batch mode reports "no simulations run" and exits 1).
-  const endc = rest.lastIndexOf('.endc');
-  if (endc > 0 && !rest.slice(0, endc).some((l) => /^\s*(quit|exit)\b/.test(l))) rest.splice(endc, 0, 'quit');
   return [
     title,
     '* Small-signal averaged model at one operating point: an estimate. Verify the loop on the bench.',

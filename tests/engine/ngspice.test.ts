@@ -7,20 +7,14 @@
  * Designs are invented for this test (not the samples).
  */
 import { describe, expect, it } from 'vitest';
-import { spawnSync } from 'node:child_process';
-import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import path from 'node:path';
 import { evaluateLoopGain, preparePlant } from '@/lib/engine/analyze';
 import { buildSpiceNetlist } from '@/lib/engine/spice-netlist';
 import { wrapDeg } from '@/lib/engine/transfer';
 import type { AnalyzeRequest } from '@/lib/engine/types';
+import { ngspiceAvailable, readNgspiceTable, readNgspiceValue, runNgspice } from '../support/ngspice';
 
-// PW_NGSPICE only lets the skip/fail behaviour itself be tried; the check runs Debian's ngspice.
-const NGSPICE = process.env.PW_NGSPICE ?? '/usr/bin/ngspice';
-const HAVE_NGSPICE = existsSync(NGSPICE);
-const IN_CI = process.env.CI === 'true';
-if (!HAVE_NGSPICE && !IN_CI) console.warn(`ngspice not found at ${NGSPICE}: the ngspice agreement tests are skipped`);
+// Skipped with a message when ngspice is missing; a failure under CI=true (tests/support/ngspice.ts).
+const haveNgspice = ngspiceAvailable();
 
 const DESIGNS: [string, AnalyzeRequest][] = [
   [
@@ -70,43 +64,21 @@ const DESIGNS: [string, AnalyzeRequest][] = [
   ],
 ];
 
-const runNgspice = (netlist: string) => {
-  const dir = mkdtempSync(path.join(tmpdir(), 'pw-spice-'));
-  try {
-    const file = path.join(dir, 'loop.cir');
-    writeFileSync(file, netlist);
-    const out = spawnSync(NGSPICE, ['-b', file], { encoding: 'utf8', timeout: 60_000 });
-    if (out.status !== 0) throw new Error(`ngspice failed (${out.status}): ${out.stderr}\n${out.stdout}`);
-    const text = out.stdout;
-    const duty = Number(/v\(duty\)\s*=\s*(\S+)/i.exec(text)?.[1]);
-    const rows = [...text.matchAll(/^\d+\s+(\S+)\s+(\S+)\s+(\S+)\s*$/gm)].map((m) => ({
-      hz: Number(m[1]),
-      magDb: Number(m[2]),
-      phaseDeg: Number(m[3]),
-    }));
-    return { duty, rows };
-  } finally {
-    rmSync(dir, { recursive: true, force: true });
-  }
-};
-
-describe.skipIf(!HAVE_NGSPICE && !IN_CI)('engine vs ngspice AC analysis of the averaged model', () => {
-  it('ngspice is installed (required in CI)', () => {
-    expect(HAVE_NGSPICE, `${NGSPICE} is missing`).toBe(true);
-  });
-
+describe.skipIf(!haveNgspice)('engine vs ngspice AC analysis of the averaged model', () => {
   it.each(DESIGNS)('%s: loop gain within 0.1 dB and 1°, duty within 1e-5', (_, req) => {
     const prepared = preparePlant(req);
-    const { duty, rows } = runNgspice(buildSpiceNetlist(req, { pointsPerDecade: 20 }));
+    const out = runNgspice(buildSpiceNetlist(req, { pointsPerDecade: 20 }), 'loop.cir');
+    const duty = readNgspiceValue(out, 'v(duty)');
+    const rows = readNgspiceTable(out, ['frequency', 'loopdb', 'loopdeg']);
     expect(Math.abs(duty - prepared.operatingPoint.duty) / prepared.operatingPoint.duty).toBeLessThan(1e-5);
     expect(rows.length).toBeGreaterThanOrEqual(10);
     const loop = evaluateLoopGain(prepared, req.compensator);
     let worstDb = 0;
     let worstDeg = 0;
-    for (const row of rows) {
-      const e = loop(row.hz);
-      worstDb = Math.max(worstDb, Math.abs(e.magDb - row.magDb));
-      worstDeg = Math.max(worstDeg, Math.abs(wrapDeg(e.phaseDeg - row.phaseDeg)));
+    for (const [hz, magDb, phaseDeg] of rows) {
+      const e = loop(hz);
+      worstDb = Math.max(worstDb, Math.abs(e.magDb - magDb));
+      worstDeg = Math.max(worstDeg, Math.abs(wrapDeg(e.phaseDeg - phaseDeg)));
     }
     if (process.env.PW_SPICE_VERBOSE) console.log(`${rows.length} points, worst ${worstDb.toExponential(2)} dB, ${worstDeg.toExponential(2)}°`);
     expect(worstDb, 'worst magnitude difference, dB').toBeLessThan(0.1);
@@ -124,6 +96,8 @@ describe('buildSpiceNetlist (text, no simulator needed)', () => {
     }
     expect(text).toMatch(/^Esense sense 0 out 0 1$/m);
     expect(text).toMatch(/^\.end$/m);
+    // `quit` closes the control block, so `ngspice -b` exits 0 (batch mode without it exits 1).
+    expect(text).toMatch(/^quit\n\.endc$/m);
     const [, inverting] = DESIGNS[2];
     const inv = buildSpiceNetlist(inverting);
     expect(inv).toMatch(/^Esense sense 0 0 out 1$/m);

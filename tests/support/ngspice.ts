@@ -3,6 +3,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 
+/** Debian's ngspice; NGSPICE_PATH points elsewhere (e.g. at a missing file to try the skip/fail rule). */
 export const NGSPICE = process.env.NGSPICE_PATH ?? '/usr/bin/ngspice';
 
 /**
@@ -48,4 +49,11 @@ export function readNgspiceTable(stdout: string, columns: string[]): number[][] 
     rows.push(fields.slice(1, columns.length + 1).map(Number));
   }
   return rows;
+}
+
+/** A scalar printed by `print name` (e.g. 'v(duty)' from "v(duty) = 4.1e-01"); NaN when absent. */
+export function readNgspiceValue(stdout: string, name: string): number {
+  const escaped = name.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
+  const m = new RegExp(`^\\s*${escaped}\\s*=\\s*(\\S+)`, 'im').exec(stdout);
+  return m ? Number(m[1]) : NaN;
 }
