@@ -14,7 +14,8 @@ import { computeMargins, computeMarginsFromComplex, type LoopPointEvaluator } fr
 import { buildPlantModel, modulatedPlant, summarizePlant, type PlantModel } from './plant';
 import { defaultSweep, logSweep, makeGrid, sweepComplex, sweepTransfer, transferEvaluator, type Grid } from './sweep';
 import { multiplyTransfers, phaseOffsetDeg, type SectionedTransfer } from './transfer';
-import { compensatorIssues, stageIssues } from './validate';
+import { withLossDefaults } from './steady-state';
+import { compensatorIssues, stageIssues, validateRequest } from './validate';
 import {
   EngineInputError,
   type AnalyzeRequest,
@@ -52,8 +53,6 @@ export interface PreparedPlant {
   outputImpedance: TransferSummary;
   grid: Grid;
   plantTrace: BodeTrace;
-  /** Multiple of 360° added to the plant's raw phase in plantTrace. */
-  plantOffsetDeg: number;
   stageChecks: Check[];
 }
 
@@ -69,9 +68,6 @@ export interface LoopResult {
 
 const DEFAULT_PARTS: PartsOptions = { resistorSeries: 'E96', capacitorSeries: 'E12' };
 
-/** Defaults rl, rc, vd = 0 (the schema applies them too; the engine may be called directly). */
-const withDefaults = (c: ConverterInput): ConverterInput => ({ ...c, rl: c.rl ?? 0, rc: c.rc ?? 0, vd: c.vd ?? 0 });
-
 /**
  * Validate and analyse the power stage: operating point, averaged model, Gvd/Vramp on the
  * sweep grid. @throws EngineInputError for physically impossible input.
@@ -79,13 +75,12 @@ const withDefaults = (c: ConverterInput): ConverterInput => ({ ...c, rl: c.rl ??
 export const preparePlant = (req: StageRequest): PreparedPlant => {
   const issues = stageIssues(req);
   if (issues.length > 0) throw new EngineInputError(issues);
-  const converter = withDefaults(req.converter);
+  const converter = withLossDefaults(req.converter);
   const model = buildPlantModel(converter);
   const vramp = req.modulator.vramp;
   const plantTransfer = modulatedPlant(model, vramp);
   const sweep = req.sweep ?? defaultSweep(converter.fsw);
   const grid = makeGrid(logSweep(sweep.fStart, sweep.fStop, sweep.points));
-  const plantSweep = sweepTransfer(plantTransfer, grid);
   const summaries = summarizePlant(model, converter, vramp);
   return {
     converter,
@@ -97,8 +92,7 @@ export const preparePlant = (req: StageRequest): PreparedPlant => {
     plantTransfer,
     ...summaries,
     grid,
-    plantTrace: plantSweep.trace,
-    plantOffsetDeg: plantSweep.offsetDeg,
+    plantTrace: sweepTransfer(plantTransfer, grid),
     stageChecks: stageChecks(model.operatingPoint),
   };
 };
@@ -120,12 +114,12 @@ export const evaluateLoopGain = (
 
 /** Loop gain on the grid (plant sweep reused) and its analytic evaluator on the same branch. */
 const sweepLoop = (prepared: PreparedPlant, comp: SectionedTransfer) => {
-  const compSweep = sweepTransfer(comp, prepared.grid);
+  const compTrace = sweepTransfer(comp, prepared.grid);
   const n = prepared.grid.f.length;
   const pm = prepared.plantTrace.magDb;
   const pp = prepared.plantTrace.phaseDeg;
-  const cm = compSweep.trace.magDb;
-  const cp = compSweep.trace.phaseDeg;
+  const cm = compTrace.magDb;
+  const cp = compTrace.phaseDeg;
   // The sum of two traces, moved by a multiple of 360° to start at its principal value.
   const shift = phaseOffsetDeg(pp[0] + cp[0]);
   const magDb = new Array<number>(n);
@@ -135,7 +129,7 @@ const sweepLoop = (prepared: PreparedPlant, comp: SectionedTransfer) => {
     phaseDeg[i] = pp[i] + cp[i] + shift;
   }
   const loop = { f: prepared.grid.f, magDb, phaseDeg };
-  return { compTrace: compSweep.trace, loop, evaluate: evaluateLoopGain(prepared, comp, phaseDeg[0]) };
+  return { compTrace, loop, evaluate: evaluateLoopGain(prepared, comp, phaseDeg[0]) };
 };
 
 const checkCompensator = (comp: CompensatorInput) => {
@@ -154,9 +148,10 @@ const loopWork = { re: [] as number[], im: [] as number[] };
  */
 export const marginsForCompensator = (prepared: PreparedPlant, comp: CompensatorInput): Margins => {
   checkCompensator(comp);
-  const gc = compensatorTransfer(comp);
-  const t = sweepComplex(multiplyTransfers(prepared.plantTransfer, gc), prepared.grid, loopWork);
-  return computeMarginsFromComplex(prepared.grid.f, t.re, t.im, evaluateLoopGain(prepared, gc));
+  const loop = multiplyTransfers(prepared.plantTransfer, compensatorTransfer(comp));
+  const { f } = prepared.grid;
+  const t = sweepComplex(loop, prepared.grid, loopWork);
+  return computeMarginsFromComplex(f, t.re, t.im, transferEvaluator(loop, f[0]));
 };
 
 /**
@@ -237,9 +232,7 @@ export const analyzeParts = (
  * @throws EngineInputError (→ 422) for physically impossible input, naming each field.
  */
 export const analyze = (request: AnalyzeRequest): AnalyzeResult => {
-  const stage = stageIssues(request);
-  const comp = compensatorIssues(request.compensator);
-  if (stage.length + comp.length > 0) throw new EngineInputError([...stage, ...comp]);
+  validateRequest(request);
   const prepared = preparePlant(request);
   const loop = analyzeLoop(prepared, request.compensator);
   return {

@@ -52,9 +52,6 @@ export const polyTrim = (p: Poly): number[] => {
   return p.slice(0, n);
 };
 
-/** Degree after trimming; the zero polynomial has degree 0. */
-export const polyDegree = (p: Poly): number => polyTrim(p).length - 1;
-
 /**
  * Roots of c0 + c1·x + c2·x² (c2 ≠ 0), computed without cancellation
  * (q = −(c1 + sign(c1)·√Δ)/2, x1 = q/c2, x2 = c0/q).

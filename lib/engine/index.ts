@@ -31,7 +31,7 @@ export type { SpiceNetlistOptions } from './spice-netlist';
 export { kFactorParts, proposeCompensator, proposeForPlant } from './starting-point';
 export type { KFactorInput, StartingPointMethod, StartingPointTarget } from './starting-point';
 export { computeDuty, computeOperatingPoint } from './steady-state';
-export { bodeTrace, defaultSweep, logSweep, transferResponse } from './sweep';
+export { defaultSweep, logSweep, sweepTransfer, transferEvaluator, transferResponse } from './sweep';
 export {
   dbFromMag,
   dbFromMagSq,
@@ -40,7 +40,6 @@ export {
   scaleTransfer,
   transferFromPolys,
   summarizeTransfer,
-  transferPointRaw,
   transferPolys,
   wrapDeg,
 } from './transfer';

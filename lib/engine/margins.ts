@@ -12,6 +12,7 @@
  * Without an analytic function (e.g. measured bench data), crossings are interpolated
  * linearly in log f.
  */
+import { dbFromMagSq } from './transfer';
 import type { Crossing, Margins } from './types';
 
 /** A sampled response: frequencies (Hz, ascending), magnitude (dB), unwrapped phase (deg). */
@@ -68,8 +69,6 @@ const refineRoot = (g: (x: number) => number, xa: number, xb: number, ga: number
 };
 
 type FoundCrossing = { hz: number; direction: 'down' | 'up' };
-
-const dbOfMagSq = (m: number) => (10 / Math.LN10) * Math.log(m);
 
 /** One crossing of `level` between fa and fb, where y − level is ga at fa and gb at fb. */
 const crossingBetween = (
@@ -180,7 +179,7 @@ export const computeMarginsFromComplex = (
   let m0 = re[0] * re[0] + im[0] * im[0];
   for (let i = 0; i + 1 < f.length; i++) {
     const m1 = re[i + 1] * re[i + 1] + im[i + 1] * im[i + 1];
-    if (m0 >= 1 !== m1 >= 1) gain.push(crossingBetween(f[i], f[i + 1], dbOfMagSq(m0), dbOfMagSq(m1), 0, magOf));
+    if (m0 >= 1 !== m1 >= 1) gain.push(crossingBetween(f[i], f[i + 1], dbFromMagSq(m0), dbFromMagSq(m1), 0, magOf));
     if (im[i] >= 0 !== im[i + 1] >= 0) {
       const pa = phaseOf(f[i]) + 180;
       const pb = phaseOf(f[i + 1]) + 180;

@@ -12,7 +12,7 @@
  * For the inverting buck-boost the output node is negative and the controller is taken as
  * referenced to the negative output: it senses |Vout| = V(0) − V(out).
  */
-import { computeOperatingPoint } from './steady-state';
+import { computeOperatingPoint, withLossDefaults } from './steady-state';
 import { dividerRb } from './compensator';
 import type { AnalyzeRequest } from './types';
 
@@ -36,7 +36,7 @@ const v = (x: number): string => String(Number(x.toPrecision(12)));
  * continuous phase in degrees (loopdeg), and quits (exit status 0).
  */
 export const buildSpiceNetlist = (req: AnalyzeRequest, options: SpiceNetlistOptions = {}): string => {
-  const cv = { ...req.converter, rl: req.converter.rl ?? 0, rc: req.converter.rc ?? 0, vd: req.converter.vd ?? 0 };
+  const cv = withLossDefaults(req.converter);
   const op = computeOperatingPoint(cv);
   const r = op.loadResistance;
   const kR = r / (r + cv.rc);

@@ -17,7 +17,8 @@
  */
 import { compensatorTransfer, partsFromShape } from './compensator';
 import { preparePlant, type PreparedPlant, type StageRequest } from './analyze';
-import { phaseOffsetDeg, transferPointRaw } from './transfer';
+import { transferEvaluator } from './sweep';
+import type { SectionedTransfer } from './transfer';
 import { EngineInputError, type CompensatorInput, type CompensatorShape, type CompensatorType } from './types';
 
 const TWO_PI = 2 * Math.PI;
@@ -86,12 +87,13 @@ export const kFactorParts = (x: KFactorInput): { k: number; compensator: Compens
   return { k, compensator: { type, r1, r2, r3, c1, c2, c3 } };
 };
 
+/** |H(j2πf)| as an absolute magnitude. */
+const magAt = (h: SectionedTransfer, hz: number) => Math.pow(10, transferEvaluator(h, hz)(hz).magDb / 20);
+
 /** Plant magnitude (absolute) and phase (deg, on the Bode branch) at one frequency. */
 const plantAt = (prepared: PreparedPlant, hz: number) => {
-  const tf = prepared.plantTransfer;
-  const offset = phaseOffsetDeg(transferPointRaw(tf, prepared.sweep.fStart).phaseRawDeg);
-  const p = transferPointRaw(tf, hz);
-  return { mag: Math.sqrt(p.magSq), phaseDeg: p.phaseRawDeg + offset };
+  const p = transferEvaluator(prepared.plantTransfer, prepared.sweep.fStart)(hz);
+  return { mag: Math.pow(10, p.magDb / 20), phaseDeg: p.phaseDeg };
 };
 
 /** Pole-zero placement by the rules in the module header. */
@@ -126,7 +128,7 @@ export const proposeForPlant = (prepared: PreparedPlant, target: StartingPointTa
   }
   // Gc is proportional to the integrator frequency for fixed poles and zeros.
   const unit = poleZeroShape(prepared, target);
-  const gcUnit = Math.sqrt(transferPointRaw(compensatorTransfer(partsFromShape(unit)), fc).magSq);
+  const gcUnit = magAt(compensatorTransfer(partsFromShape(unit)), fc);
   return partsFromShape({ ...unit, integratorHz: 1 / (gcUnit * p.mag) });
 };
 

@@ -17,6 +17,9 @@
  */
 import { EngineInputError, type ConverterInput, type OperatingPoint } from './types';
 
+/** The stage with rl, rc, vd defaulted to 0 (the schema applies them too; the engine may be called directly). */
+export const withLossDefaults = (c: ConverterInput): ConverterInput => ({ ...c, rl: c.rl ?? 0, rc: c.rc ?? 0, vd: c.vd ?? 0 });
+
 /**
  * Duty cycle D (0…1) of the averaged DC model.
  * @throws EngineInputError when the output cannot be reached (duty ≥ 1, no real root).

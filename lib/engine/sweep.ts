@@ -1,19 +1,18 @@
 /**
  * Logarithmic frequency sweeps and Bode traces of sectioned transfers.
  *
- * The hot loop works on plain numbers (no complex objects): for each section [1, a1, a2]
- * at ω it forms re = 1 − a2·ω², im = a1·ω, multiplies |·|² and adds atan2(im, re).
- * Phase is the continuous raw phase of transfer.ts shifted by one multiple of 360° so the
- * trace starts at its principal value (see phaseOffsetDeg).
+ * The hot loops work on plain numbers (no complex objects): each section [1, a1, a2] at ω is
+ * re = 1 − a2·ω², im = a1·ω; sections are paired into terms N/D (see planTransfer), whose
+ * angle is one arctangent of N·conj(D). Magnitudes collect Π|N|² and Π|D|² and take one
+ * division and one logarithm per point. The phase is the continuous raw phase shifted by one
+ * multiple of 360° so the trace starts at its principal value (see phaseOffsetDeg).
  */
-import { phaseOffsetDeg, type SectionedTransfer } from './transfer';
+import { dbFromMagSq, phaseOffsetDeg, type SectionedTransfer } from './transfer';
 import type { LoopPointEvaluator, SampledResponse } from './margins';
 import type { BodeTrace, SweepOptions } from './types';
 
 const TWO_PI = 2 * Math.PI;
 const RAD2DEG = 180 / Math.PI;
-/** 10·log10(x) = DB_PER_LN_MAGSQ·ln(x); Math.log is markedly faster than Math.log10 in V8. */
-const DB_PER_LN_MAGSQ = 10 / Math.LN10;
 
 /** Default sweep: 10 Hz to fsw/2, 400 points, logarithmic. */
 export const defaultSweep = (fsw: number): SweepOptions => ({ fStart: 10, fStop: fsw / 2, points: 400 });
@@ -88,30 +87,31 @@ const planTransfer = (h: SectionedTransfer): TransferPlan => {
   return { gain: h.gain, order: h.originOrder, ph0: (h.gain < 0 ? Math.PI : 0) + (h.originOrder * Math.PI) / 2, terms };
 };
 
-/** gain²·ω^(2n), the factor of |H|² outside the sections. */
-const originMagSq = (p: TransferPlan, w2: number): number => {
-  const m = p.gain * p.gain;
-  if (p.order === 0) return m;
-  return p.order === -1 ? m / w2 : m * Math.pow(w2, p.order);
-};
+/** The factor gain²·ω^(2n) of |H|², as a numerator part (n > 0) … */
+const originNum = (p: TransferPlan, w2: number): number => (p.order > 0 ? p.gain * p.gain * Math.pow(w2, p.order) : p.gain * p.gain);
+/** … and a denominator part (n < 0; an integrator gives ω²). */
+const originDen = (p: TransferPlan, w2: number): number => (p.order >= 0 ? 1 : p.order === -1 ? w2 : Math.pow(w2, -p.order));
 
-/** A transfer swept on a grid. */
-export interface TransferSweep {
-  /** Magnitude (dB) and phase (deg), the phase starting at its principal value. */
-  trace: BodeTrace;
-  /** The multiple of 360° added to the raw section phase (see phaseOffsetDeg). */
-  offsetDeg: number;
-}
+/**
+ * atan2(y, x) as Math.atan(y/x), plus a half turn for x < 0: the same principal value (to an
+ * ulp), about a third cheaper than Math.atan2 in V8 (measured on the sweep's arguments).
+ */
+const angleOf = (y: number, x: number): number => {
+  if (x > 0) return Math.atan(y / x);
+  if (x < 0) return Math.atan(y / x) + (y >= 0 ? Math.PI : -Math.PI);
+  return y > 0 ? Math.PI / 2 : y < 0 ? -Math.PI / 2 : 0;
+};
 
 /**
  * Evaluate a sectioned transfer on a grid (hot path: plain numbers, one atan2 per term, one
  * logarithm per point; output arrays are allocated once at their final size).
- * magDb = 10·log10(gain²·ω^(2n)·Π|N_k|²/|D_k|²); phase = ph0 + Σ ∠(N_k·conj(D_k)) + offset,
+ * magDb = 10·log10(gain²·ω^(2n)·Π|N_k|² / Π|D_k|²) (one division, one logarithm);
+ * phase = ph0 + Σ ∠(N_k·conj(D_k)) + offset,
  * the offset chosen at the first point (see phaseOffsetDeg). The loop body repeats
  * {@link transferEvaluator}'s arithmetic instead of calling it: a call per point costs a
  * quarter more here, and the same operations keep the two equal to the last bit.
  */
-export const sweepTransfer = (h: SectionedTransfer, grid: Grid): TransferSweep => {
+export const sweepTransfer = (h: SectionedTransfer, grid: Grid): BodeTrace => {
   const n = grid.f.length;
   const magDb = new Array<number>(n);
   const phaseDeg = new Array<number>(n);
@@ -123,22 +123,24 @@ export const sweepTransfer = (h: SectionedTransfer, grid: Grid): TransferSweep =
     const wi = w[i];
     const wi2 = wi * wi;
     // Term by term as in transferEvaluator (the same operations in the same order).
-    let m = originMagSq(plan, wi2);
+    let num = originNum(plan, wi2);
+    let den = originDen(plan, wi2);
     let ph = plan.ph0;
     for (let k = 0; k < t.length; k += 4) {
       const nre = 1 - t[k + 1] * wi2;
       const nim = t[k] * wi;
       const dre = 1 - t[k + 3] * wi2;
       const dim = t[k + 2] * wi;
-      m *= (nre * nre + nim * nim) / (dre * dre + dim * dim);
-      ph += Math.atan2(nim * dre - nre * dim, nre * dre + nim * dim);
+      num *= nre * nre + nim * nim;
+      den *= dre * dre + dim * dim;
+      ph += angleOf(nim * dre - nre * dim, nre * dre + nim * dim);
     }
     ph *= RAD2DEG;
     if (i === 0) offsetDeg = phaseOffsetDeg(ph);
-    magDb[i] = DB_PER_LN_MAGSQ * Math.log(m);
+    magDb[i] = dbFromMagSq(num / den);
     phaseDeg[i] = ph + offsetDeg;
   }
-  return { trace: { magDb, phaseDeg }, offsetDeg };
+  return { magDb, phaseDeg };
 };
 
 /**
@@ -155,17 +157,19 @@ export const transferEvaluator = (h: SectionedTransfer, startHz: number, startDe
   const evaluate: LoopPointEvaluator = (hz) => {
     const w = TWO_PI * hz;
     const w2 = w * w;
-    let m = originMagSq(plan, w2);
+    let num = originNum(plan, w2);
+    let den = originDen(plan, w2);
     let ph = plan.ph0;
     for (let k = 0; k < t.length; k += 4) {
       const nre = 1 - t[k + 1] * w2;
       const nim = t[k] * w;
       const dre = 1 - t[k + 3] * w2;
       const dim = t[k + 2] * w;
-      m *= (nre * nre + nim * nim) / (dre * dre + dim * dim);
-      ph += Math.atan2(nim * dre - nre * dim, nre * dre + nim * dim);
+      num *= nre * nre + nim * nim;
+      den *= dre * dre + dim * dim;
+      ph += angleOf(nim * dre - nre * dim, nre * dre + nim * dim);
     }
-    return { magDb: DB_PER_LN_MAGSQ * Math.log(m), phaseDeg: ph * RAD2DEG + offsetDeg };
+    return { magDb: dbFromMagSq(num / den), phaseDeg: ph * RAD2DEG + offsetDeg };
   };
   const raw0 = evaluate(startHz).phaseDeg;
   offsetDeg = startDeg === undefined ? phaseOffsetDeg(raw0) : 360 * Math.round((startDeg - raw0) / 360);
@@ -232,9 +236,6 @@ export const sweepComplex = (
   return { re, im };
 };
 
-/** Trace of one transfer on a grid, phase starting at its principal value. */
-export const bodeTrace = (h: SectionedTransfer, grid: Grid): BodeTrace => sweepTransfer(h, grid).trace;
-
 /**
  * Any transfer (e.g. a loop built by hand) as a sampled response on `f` plus its analytic
  * evaluator on the same phase branch, ready for computeMargins.
@@ -243,6 +244,6 @@ export const transferResponse = (
   h: SectionedTransfer,
   f: readonly number[],
 ): { sampled: SampledResponse; evaluate: LoopPointEvaluator } => {
-  const { trace } = sweepTransfer(h, makeGrid(f));
+  const trace = sweepTransfer(h, makeGrid(f));
   return { sampled: { f, ...trace }, evaluate: transferEvaluator(h, f[0], trace.phaseDeg[0]) };
 };

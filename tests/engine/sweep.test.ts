@@ -35,14 +35,14 @@ describe('sweepTransfer', () => {
     const c = sweepComplex(h, makeGrid(f));
     for (let i = 0; i < f.length; i++) {
       const ref = evaluateTransfer(h, new Complex(0, TWO_PI * f[i]));
-      expectAbs(s.trace.magDb[i], 20 * Math.log10(ref.abs()), 1e-9);
-      expectAbs(wrapDeg(s.trace.phaseDeg[i] - (ref.arg() * 180) / Math.PI), 0, 1e-9);
+      expectAbs(s.magDb[i], 20 * Math.log10(ref.abs()), 1e-9);
+      expectAbs(wrapDeg(s.phaseDeg[i] - (ref.arg() * 180) / Math.PI), 0, 1e-9);
       expect(Math.hypot(c.re[i] - ref.re, c.im[i] - ref.im) / ref.abs()).toBeLessThan(1e-12);
     }
     // Continuous phase: no jump of 180° or more between neighbouring samples.
-    for (let i = 1; i < f.length; i++) expect(Math.abs(s.trace.phaseDeg[i] - s.trace.phaseDeg[i - 1])).toBeLessThan(180);
+    for (let i = 1; i < f.length; i++) expect(Math.abs(s.phaseDeg[i] - s.phaseDeg[i - 1])).toBeLessThan(180);
     // Starts at the principal value.
-    expect(s.trace.phaseDeg[0]).toBeGreaterThan(-180);
-    expect(s.trace.phaseDeg[0]).toBeLessThanOrEqual(180);
+    expect(s.phaseDeg[0]).toBeGreaterThan(-180);
+    expect(s.phaseDeg[0]).toBeLessThanOrEqual(180);
   });
 });
