@@ -105,8 +105,6 @@ export interface PlantModel {
   gvg: SectionedTransfer;
   /** Output impedance v̂/î for a current injected into the output node, Ω. */
   zout: SectionedTransfer;
-  /** Raw polynomials (ascending) for tests and netlists. */
-  polys: { gvd: { num: number[]; den: number[] }; gvg: { num: number[]; den: number[] }; zout: { num: number[]; den: number[] } };
 }
 
 /**
@@ -146,7 +144,6 @@ export const buildPlantModel = (cv: ConverterInput): PlantModel => {
     gvd: transferFromPolys(gvdP.num, gvdP.den),
     gvg: transferFromPolys(gvgP.num, gvgP.den),
     zout: transferFromPolys(zoutP.num, zoutP.den),
-    polys: { gvd: gvdP, gvg: gvgP, zout: zoutP },
   };
 };
 
