@@ -6,8 +6,10 @@
  * angle is one arctangent of N·conj(D). Magnitudes collect Π|N|² and Π|D|² and take one
  * division and one logarithm per point. The phase is the continuous raw phase shifted by one
  * multiple of 360° so the trace starts at its principal value (see phaseOffsetDeg).
+ * Hot loops call only this module's functions and read imported constants into locals first:
+ * in CommonJS output (tsx, the benchmark) each use of an imported binding is an accessor call.
  */
-import { dbFromMagSq, phaseOffsetDeg, type SectionedTransfer } from './transfer';
+import { DB_PER_LN_MAGSQ, phaseOffsetDeg, type SectionedTransfer } from './transfer';
 import type { LoopPointEvaluator, SampledResponse } from './margins';
 import type { BodeTrace, SweepOptions } from './types';
 
@@ -68,22 +70,18 @@ interface TransferPlan {
   terms: number[];
 }
 
+/** a2 of a section [1, a1] or [1, a1, a2]. */
+const a2Of = (p: readonly number[]): number => (p.length > 2 ? p[2] : 0);
+
 const planTransfer = (h: SectionedTransfer): TransferPlan => {
   const terms: number[] = [];
-  const push = (p: readonly number[] | undefined) => {
-    if (p) terms.push(p[1], p.length > 2 ? p[2] : 0);
-    else terms.push(0, 0);
-  };
   const dens = [...h.den];
   for (const n of h.num) {
     const k = dens.findIndex((d) => (n[1] > 0 && d[1] >= 0) || (n[1] < 0 && d[1] < 0));
-    push(n);
-    push(k >= 0 ? dens.splice(k, 1)[0] : undefined);
+    const d = k >= 0 ? dens.splice(k, 1)[0] : undefined;
+    terms.push(n[1], a2Of(n), d ? d[1] : 0, d ? a2Of(d) : 0);
   }
-  for (const d of dens) {
-    push(undefined);
-    push(d);
-  }
+  for (const d of dens) terms.push(0, 0, d[1], a2Of(d));
   return { gain: h.gain, order: h.originOrder, ph0: (h.gain < 0 ? Math.PI : 0) + (h.originOrder * Math.PI) / 2, terms };
 };
 
@@ -118,6 +116,7 @@ export const sweepTransfer = (h: SectionedTransfer, grid: Grid): BodeTrace => {
   const plan = planTransfer(h);
   const t = plan.terms;
   const w = grid.w;
+  const dbPerLn = DB_PER_LN_MAGSQ;
   let offsetDeg = 0;
   for (let i = 0; i < n; i++) {
     const wi = w[i];
@@ -137,7 +136,7 @@ export const sweepTransfer = (h: SectionedTransfer, grid: Grid): BodeTrace => {
     }
     ph *= RAD2DEG;
     if (i === 0) offsetDeg = phaseOffsetDeg(ph);
-    magDb[i] = dbFromMagSq(num / den);
+    magDb[i] = dbPerLn * Math.log(num / den);
     phaseDeg[i] = ph + offsetDeg;
   }
   return { magDb, phaseDeg };
@@ -153,6 +152,7 @@ export const sweepTransfer = (h: SectionedTransfer, grid: Grid): BodeTrace => {
 export const transferEvaluator = (h: SectionedTransfer, startHz: number, startDeg?: number): LoopPointEvaluator => {
   const plan = planTransfer(h);
   const t = plan.terms;
+  const dbPerLn = DB_PER_LN_MAGSQ;
   let offsetDeg = 0;
   const evaluate: LoopPointEvaluator = (hz) => {
     const w = TWO_PI * hz;
@@ -169,7 +169,7 @@ export const transferEvaluator = (h: SectionedTransfer, startHz: number, startDe
       den *= dre * dre + dim * dim;
       ph += angleOf(nim * dre - nre * dim, nre * dre + nim * dim);
     }
-    return { magDb: dbFromMagSq(num / den), phaseDeg: ph * RAD2DEG + offsetDeg };
+    return { magDb: dbPerLn * Math.log(num / den), phaseDeg: ph * RAD2DEG + offsetDeg };
   };
   const raw0 = evaluate(startHz).phaseDeg;
   offsetDeg = startDeg === undefined ? phaseOffsetDeg(raw0) : 360 * Math.round((startDeg - raw0) / 360);

@@ -103,11 +103,11 @@ export const wrapDeg = (deg: number): number => {
 export const phaseOffsetDeg = (rawAtStartDeg: number): number =>
   360 * Math.round((wrapDeg(rawAtStartDeg) - rawAtStartDeg) / 360);
 
-/** 10·log10(x) = DB_PER_LN·ln(x); Math.log is markedly faster than Math.log10 in V8. */
-const DB_PER_LN = 10 / Math.LN10;
+/** 10·log10(x) = DB_PER_LN_MAGSQ·ln(x); Math.log is markedly faster than Math.log10 in V8. */
+export const DB_PER_LN_MAGSQ = 10 / Math.LN10;
 
-/** 20·log10|H| from |H|², as (10/ln 10)·ln|H|² (the sweeps' hot loops call it per point). */
-export const dbFromMagSq = (magSq: number): number => DB_PER_LN * Math.log(magSq);
+/** 20·log10|H| from |H|², as (10/ln 10)·ln|H|². */
+export const dbFromMagSq = (magSq: number): number => DB_PER_LN_MAGSQ * Math.log(magSq);
 
 /** 20·log10(x) for a magnitude x. */
 export const dbFromMag = (mag: number): number => 20 * Math.log10(mag);
