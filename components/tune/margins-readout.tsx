@@ -39,14 +39,16 @@ export function MarginsReadout({
   snapped: Margins | null;
 }) {
   const { crossoverHz: fc, phaseMarginDeg: pm, gainMarginDb: gm } = margins;
-  const deg = (v: number | null) => (v === null ? '—' : `${v.toFixed(1)}°`);
-  const db = (v: number | null) => (v === null ? '—' : `${v.toFixed(1)} dB`);
+  // A true minus sign: a hyphen before a margin is easy to miss.
+  const fixed = (v: number) => v.toFixed(1).replace(/^-/, '−');
+  const deg = (v: number | null) => (v === null ? '—' : `${fixed(v)}°`);
+  const db = (v: number | null) => (v === null ? '—' : `${fixed(v)} dB`);
   return (
     <section aria-label="Margins" className="space-y-2">
       <dl className="grid grid-cols-2 gap-x-4 gap-y-3">
         <Item label="Crossover fc" value={fc === null ? 'none' : formatSi(fc, 'Hz')} hint={fc === null ? undefined : `fsw/${(fsw / fc).toFixed(1)}`} testId="readout-fc" />
         <Item label="Phase margin" value={deg(pm)} tone={pmTone(pm)} testId="readout-pm" />
-        <Item label="Gain margin" value={gm === null ? 'no −180°' : db(gm)} tone={gmTone(gm)} hint={margins.phaseCrossoverHz ? `at ${formatSi(margins.phaseCrossoverHz, 'Hz')}` : 'in the sweep'} testId="readout-gm" />
+        <Item label="Gain margin" value={gm === null ? 'none' : db(gm)} tone={gmTone(gm)} hint={margins.phaseCrossoverHz ? `at ${formatSi(margins.phaseCrossoverHz, 'Hz')}` : 'no −180° crossing above fc'} testId="readout-gm" />
         <Item label="Phase at fsw/2" value={deg(phaseAtHalfFswDeg)} hint={formatSi(fsw / 2, 'Hz')} testId="readout-phase-half-fsw" />
       </dl>
       {snapped && (
