@@ -133,13 +133,13 @@ export function TunePlot({ bode, margins, plant, handles, midbandGainDb, draggin
           <>
             {dragging && <LiveCurves geometry={g} f={bode.f} curves={live} margins={margins} color={TRACE_COLORS.loop} />}
             <HandleOverlay
-            geometry={g}
-            handles={placed}
-            color={TRACE_COLORS.compensator}
-            disabled={readOnly}
-            midbandGainDb={midbandGainDb}
-            {...events}
-          />
+              geometry={g}
+              handles={placed}
+              color={TRACE_COLORS.compensator}
+              disabled={readOnly}
+              midbandGainDb={midbandGainDb}
+              {...events}
+            />
           </>
         )}
       />
