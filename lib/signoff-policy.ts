@@ -54,6 +54,11 @@ export function mayReview(role: Role, team: TeamSignoffSettings): boolean {
   return role === 'reviewer' || (role === 'admin' && team.adminsMayReview);
 }
 
+/** Whether some team could let this role decide (reviewers; admins when allowed): the route's first gate, before the revision is looked up. */
+export function mayEverReview(role: Role): boolean {
+  return role === 'reviewer' || role === 'admin';
+}
+
 /** Whether a member with this role may submit revisions for review at all. */
 export function maySubmit(role: Role): boolean {
   return role === 'designer' || role === 'admin';

@@ -5,8 +5,9 @@
  * an admin reviews only when the team allows it; only admins change that.
  */
 import { beforeAll, describe, expect, inject, it } from 'vitest';
+import { signedInAs } from '../support/http';
 import { ownTeam } from '../support/own-team';
-import { savedDesign, tweak, type AnalyzeInput } from '../support/saved-design';
+import { demoInput, tweak, type AnalyzeInput } from '../support/saved-design';
 
 const baseUrl = inject('baseUrl');
 const dbPath = inject('dbPath');
@@ -30,7 +31,10 @@ const setAdminsMayReview = (value: boolean) => team.clients.admin.json('/api/tea
 
 beforeAll(async () => {
   team = await ownTeam(baseUrl, dbPath, 'policy-crew', { admin: 'admin', designer: 'designer', rev1: 'reviewer', rev2: 'reviewer', viewer: 'viewer' });
-  ({ designId, input } = await savedDesign(team.clients.designer, 'Policy rail'));
+  input = await demoInput(await signedInAs(baseUrl, 'viewer'));
+  const created = await team.clients.designer.json('/api/designs', 'POST', { name: 'Policy rail', topology: input.converter.topology });
+  designId = (await created.json()).id;
+  expect((await team.clients.designer.json(`/api/designs/${designId}/revisions`, 'POST', { baseRevision: null, note: 'first', input })).status).toBe(201);
 });
 
 describe('sign-off policy', () => {

@@ -3,6 +3,7 @@ import { getDb } from '@/db/client';
 import { decideSignoff, getUserById } from '@/db/queries';
 import { parseJson, withUser } from '@/lib/api';
 import { notifyDecision } from '@/lib/notify';
+import { mayEverReview } from '@/lib/signoff-policy';
 import { requireRevision, runSignoff } from '@/lib/revision-access';
 import { decisionSchema } from '@/lib/validation/signoff';
 
@@ -35,4 +36,5 @@ export const POST = withUser<P>(
     );
     return NextResponse.json({ state: event.state, event, mailed: results.filter((r) => r.sent).length }, { status: 201 });
   },
+  { allow: mayEverReview, action: 'approve or request changes' },
 );
