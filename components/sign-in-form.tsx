@@ -18,6 +18,10 @@ export function SignInForm({ callbackUrl }: { callbackUrl: string }) {
       redirect: false,
     });
     setPending(false);
+    if (res?.status === 429 || res?.error === 'TooManyAttempts') {
+      setError('Too many failed sign-ins for this account or from this network. Wait a few minutes, then try again.');
+      return;
+    }
     if (!res || res.error) {
       setError('That email and password do not match an account.');
       return;

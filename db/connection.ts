@@ -29,7 +29,11 @@ export function migrationsFolder(): string {
 
 export function openDatabase(url?: string): Db {
   const file = resolveDatabasePath(url);
-  if (file !== ':memory:') fs.mkdirSync(path.dirname(file), { recursive: true });
+  if (file !== ':memory:') {
+    // Owner-only: the directory and the database (SQLite gives its -wal and -shm files the database file's mode).
+    fs.mkdirSync(path.dirname(file), { recursive: true, mode: 0o700 });
+    if (!fs.existsSync(file)) fs.closeSync(fs.openSync(file, 'a', 0o600));
+  }
   const sqlite = new Database(file);
   sqlite.pragma('journal_mode = WAL');
   sqlite.pragma('foreign_keys = ON');
@@ -37,5 +41,17 @@ export function openDatabase(url?: string): Db {
   sqlite.pragma('busy_timeout = 5000');
   const db = drizzle(sqlite, { schema }) as Db;
   migrate(db, { migrationsFolder: migrationsFolder() });
+  if (file !== ':memory:') restrictToOwner(file);
   return db;
+}
+
+/** chmod 600 the database and its WAL files (created before this fix, or by a lax umask). */
+function restrictToOwner(file: string) {
+  for (const f of [file, `${file}-wal`, `${file}-shm`]) {
+    try {
+      if ((fs.statSync(f).mode & 0o077) !== 0) fs.chmodSync(f, 0o600);
+    } catch {
+      /* not there (yet), or not ours to change */
+    }
+  }
 }

@@ -1,13 +1,15 @@
 import 'server-only';
-import { cookies } from 'next/headers';
+import { cookies, headers } from 'next/headers';
 import { redirect } from 'next/navigation';
 import { getServerSession, type NextAuthOptions } from 'next-auth';
 import { decode } from 'next-auth/jwt';
 import CredentialsProvider from 'next-auth/providers/credentials';
 import { getDb } from '@/db/client';
-import { getSessionUser, listTeamsForUser, verifyCredentials } from '@/db/queries';
+import { bumpSessionVersion, getSessionUser, getUserByEmail, getUserById, listTeamsForUser, userIdForApiToken } from '@/db/queries';
 import type { Role } from '@/db/schema';
 import { getAuthSecret } from './auth-secret';
+import { comparePassword } from './password-hash';
+import { safeCallbackUrl } from './safe-redirect';
 
 export const TEAM_COOKIE = 'pw-team';
 
@@ -19,21 +21,42 @@ export const authOptions: NextAuthOptions = {
   secret: getAuthSecret(),
   session: { strategy: 'jwt', maxAge: 60 * 60 * 12 },
   pages: { signIn: '/signin' },
+  events: {
+    // Sign-out ends the session on the server too: every token of this user issued before now is refused.
+    signOut({ token }) {
+      const userId = Number(token?.userId);
+      if (Number.isInteger(userId) && userId > 0) bumpSessionVersion(getDb(), userId);
+    },
+  },
   providers: [
     CredentialsProvider({
       name: 'Email and password',
       credentials: { email: { label: 'Email', type: 'email' }, password: { label: 'Password', type: 'password' } },
       async authorize(credentials) {
         if (!credentials?.email || !credentials.password) return null;
-        const user = verifyCredentials(getDb(), credentials.email, credentials.password);
-        return user ? { id: String(user.id), email: user.email, name: user.name } : null;
+        // An unknown e-mail is compared against a dummy hash: the same work and time as a wrong password.
+        const user = getUserByEmail(getDb(), credentials.email);
+        const ok = await comparePassword(credentials.password, user?.passwordHash);
+        return user && ok ? { id: String(user.id), email: user.email, name: user.name, sessionVersion: user.sessionVersion } : null;
       },
     }),
   ],
   callbacks: {
     jwt({ token, user }) {
-      if (user) token.userId = Number(user.id);
+      if (user) {
+        token.userId = Number(user.id);
+        token.sv = 'sessionVersion' in user && typeof user.sessionVersion === 'number' ? user.sessionVersion : 0;
+        return token;
+      }
+      // A token from before a sign-out, a password change or a removal carries an older version: drop its user.
+      const current = token.userId ? getUserById(getDb(), Number(token.userId)) : undefined;
+      if (!current || current.sessionVersion !== (token.sv ?? 0)) return {};
       return token;
+    },
+    // Only same-origin relative paths (lib/safe-redirect.ts), never another site.
+    redirect({ url, baseUrl }) {
+      const path = safeCallbackUrl(url.startsWith(baseUrl) ? url.slice(baseUrl.length) || '/' : url);
+      return `${baseUrl}${path}`;
     },
     async session({ session, token }) {
       const userId = Number(token.userId);
@@ -112,12 +135,12 @@ async function readSessionToken(): Promise<string | null> {
  */
 const TOKEN_CACHE_MS = 5 * 60_000;
 const TOKEN_CACHE_MAX = 1000;
-const tokenCache = new Map<string, { userId: number; keepUntilMs: number }>();
+const tokenCache = new Map<string, { userId: number; sv: number; keepUntilMs: number }>();
 
-async function userIdFromToken(token: string): Promise<number | null> {
+async function userIdFromToken(token: string): Promise<{ userId: number; sv: number } | null> {
   const now = Date.now();
   const hit = tokenCache.get(token);
-  if (hit && hit.keepUntilMs > now) return hit.userId;
+  if (hit && hit.keepUntilMs > now) return hit;
   if (hit) tokenCache.delete(token);
   let payload;
   try {
@@ -128,9 +151,11 @@ async function userIdFromToken(token: string): Promise<number | null> {
   const userId = Number(payload?.userId);
   const expMs = typeof payload?.exp === 'number' ? payload.exp * 1000 : now;
   if (!Number.isInteger(userId) || userId <= 0 || expMs <= now) return null;
+  const sv = typeof payload?.sv === 'number' ? payload.sv : 0;
   if (tokenCache.size >= TOKEN_CACHE_MAX) tokenCache.clear();
-  tokenCache.set(token, { userId, keepUntilMs: Math.min(expMs, now + TOKEN_CACHE_MS) });
-  return userId;
+  const entry = { userId, sv, keepUntilMs: Math.min(expMs, now + TOKEN_CACHE_MS) };
+  tokenCache.set(token, entry);
+  return entry;
 }
 
 /**
@@ -139,12 +164,26 @@ async function userIdFromToken(token: string): Promise<number | null> {
  * Costs one indexed query per request (user + memberships); the token's decryption is cached.
  */
 export async function getCurrentUser(): Promise<CurrentUser | null> {
-  const token = await readSessionToken();
-  if (!token) return null;
-  const id = await userIdFromToken(token);
-  if (id === null) return null;
+  const bearer = await readBearerToken();
+  let id: number;
+  let sessionVersion: number | null = null;
+  if (bearer !== null) {
+    // A personal API token acts as its user, with that user's role in the current team.
+    const owner = userIdForApiToken(getDb(), bearer);
+    if (owner === null) return null;
+    id = owner;
+  } else {
+    const token = await readSessionToken();
+    if (!token) return null;
+    const claims = await userIdFromToken(token);
+    if (claims === null) return null;
+    id = claims.userId;
+    sessionVersion = claims.sv;
+  }
   const found = getSessionUser(getDb(), id);
   if (!found || found.teams.length === 0) return null;
+  // Sign-out, a password change or a removal from a team bump the version: older tokens stop working at once.
+  if (sessionVersion !== null && found.sessionVersion !== sessionVersion) return null;
   const wanted = await readTeamCookie();
   const current = found.teams.find((t) => t.teamId === wanted) ?? found.teams[0];
   return {
@@ -156,6 +195,17 @@ export async function getCurrentUser(): Promise<CurrentUser | null> {
     role: current.role,
     teams: found.teams.map((t) => ({ teamId: t.teamId, teamName: t.teamName, role: t.role })),
   };
+}
+
+/** `Authorization: Bearer <token>`, when the request carries one. */
+async function readBearerToken(): Promise<string | null> {
+  try {
+    const auth = (await headers()).get('authorization');
+    const m = auth?.match(/^Bearer\s+(\S+)$/i);
+    return m ? m[1] : null;
+  } catch {
+    return null; // outside a request scope
+  }
 }
 
 /** What each role may do; checked on the server in every handler and action. */

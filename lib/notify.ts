@@ -69,3 +69,14 @@ export async function notifyAddedToTeam(m: { to: string; name: string; teamId: n
     link: { label: 'Open Phasewright', url: `${await appBaseUrl()}/designs` },
   });
 }
+
+/** An invitation to a team; the link accepts it (sign in, or create the account). */
+export async function notifyInvitation(m: { to: string; teamId: number; teamName: string; role: string; by: string; token: string }) {
+  return sendMail({
+    to: m.to,
+    teamId: m.teamId,
+    subject: `Invitation to ${m.teamName} on Phasewright`,
+    paragraphs: [`Hello,`, `${m.by} invites you to the team ${m.teamName} as ${m.role}. The link is valid for 7 days.`],
+    link: { label: 'Accept the invitation', url: `${await appBaseUrl()}/invitations/accept?token=${encodeURIComponent(m.token)}` },
+  });
+}

@@ -10,5 +10,7 @@ declare module 'next-auth' {
 declare module 'next-auth/jwt' {
   interface JWT {
     userId?: number;
+    /** The user's session version when the token was issued (lib/auth.ts). */
+    sv?: number;
   }
 }

@@ -22,6 +22,7 @@ export default async function AppLayout({ children }: { children: React.ReactNod
             <NavLink href="/cautions">Limits and cautions</NavLink>
             {user.role === 'admin' && <NavLink href="/admin">Team</NavLink>}
             {demo && <NavLink href="/mailbox">Mailbox</NavLink>}
+            <NavLink href="/settings">Settings</NavLink>
           </nav>
           <div className="ml-auto flex items-center gap-3">
             <TeamSwitcher current={user.teamId} teams={user.teams} />

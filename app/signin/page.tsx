@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import { redirect } from 'next/navigation';
 import { getCurrentUser } from '@/lib/auth';
+import { safeCallbackUrl } from '@/lib/safe-redirect';
 import { SignInForm } from '@/components/sign-in-form';
 import { Logo } from '@/components/ui/logo';
 
@@ -8,8 +9,8 @@ export const metadata: Metadata = { title: 'Sign in' };
 
 export default async function SignInPage({ searchParams }: { searchParams: Promise<{ callbackUrl?: string }> }) {
   const { callbackUrl } = await searchParams;
-  // Only same-site paths: never bounce a user to another origin after sign-in.
-  const next = callbackUrl && callbackUrl.startsWith('/') && !callbackUrl.startsWith('//') ? callbackUrl : '/designs';
+  // Only same-origin paths: never bounce a user to another origin after sign-in.
+  const next = safeCallbackUrl(callbackUrl);
   if (await getCurrentUser()) redirect(next);
   const demo = process.env.PHASEWRIGHT_DEMO === '1';
   return (

@@ -35,9 +35,9 @@ export function AddMemberForm() {
   const err = state.fieldErrors ?? {};
   return (
     <form action={action} className="card space-y-3 p-4" noValidate>
-      <h2 className="font-semibold">Add a member</h2>
+      <h2 className="font-semibold">Invite a member</h2>
       <p className="text-xs text-slate-500">
-        An existing account is added to this team. For a new address, also give a name and an initial password (8 characters or more).
+        We e-mail an invitation link; the person joins when they accept it (signing in, or choosing a name and password if they are new).
       </p>
       <div className="grid gap-3 sm:grid-cols-2">
         <Field label="Email" name="email" type="email" error={err.email} />
@@ -54,12 +54,10 @@ export function AddMemberForm() {
           </select>
           {err.role && <p className="field-error">{err.role}</p>}
         </div>
-        <Field label="Name (new account)" name="name" error={err.name} />
-        <Field label="Initial password (new account)" name="password" type="password" error={err.password} />
       </div>
       <div className="flex items-center gap-3">
         <button type="submit" className="btn-primary" disabled={pending}>
-          {pending ? 'Adding…' : 'Add member'}
+          {pending ? 'Sending…' : 'Send invitation'}
         </button>
         {state.message && (
           <span role="status" className={`text-sm ${state.ok ? 'text-emerald-700' : 'text-red-600'}`}>

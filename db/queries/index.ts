@@ -7,3 +7,5 @@ export * from './remarks';
 export * from './mailbox';
 export * from './bench';
 export * from './design-import';
+export * from './api-tokens';
+export * from './invitations';

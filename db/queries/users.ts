@@ -1,5 +1,5 @@
 import bcrypt from 'bcryptjs';
-import { and, asc, eq } from 'drizzle-orm';
+import { and, asc, eq, sql } from 'drizzle-orm';
 import type { Db } from '../connection';
 import { memberships, teams, users, type Role } from '../schema';
 import { writeAudit } from './audit';
@@ -35,6 +35,11 @@ export function createUser(db: Db, u: { email: string; name: string; password: s
     .get();
 }
 
+/** A new account from a hash computed elsewhere (off the event loop). */
+export function createUserWithHash(db: Db, u: { email: string; name: string; passwordHash: string }) {
+  return db.insert(users).values({ email: normalizeEmail(u.email), name: u.name.trim(), passwordHash: u.passwordHash }).returning().get();
+}
+
 export function createTeam(db: Db, t: { name: string; slug: string }) {
   return db.insert(teams).values(t).returning().get();
 }
@@ -57,7 +62,7 @@ export function listTeamsForUser(db: Db, userId: number) {
  */
 export function getSessionUser(db: Db, userId: number) {
   const rows = db
-    .select({ email: users.email, name: users.name, teamId: teams.id, teamName: teams.name, role: memberships.role })
+    .select({ email: users.email, name: users.name, sessionVersion: users.sessionVersion, teamId: teams.id, teamName: teams.name, role: memberships.role })
     .from(users)
     .leftJoin(memberships, eq(memberships.userId, users.id))
     .leftJoin(teams, eq(teams.id, memberships.teamId))
@@ -67,7 +72,7 @@ export function getSessionUser(db: Db, userId: number) {
   if (rows.length === 0) return null;
   const teamsOf: { teamId: number; teamName: string; role: Role }[] = [];
   for (const r of rows) if (r.teamId !== null && r.teamName !== null && r.role !== null) teamsOf.push({ teamId: r.teamId, teamName: r.teamName, role: r.role });
-  return { email: rows[0].email, name: rows[0].name, teams: teamsOf };
+  return { email: rows[0].email, name: rows[0].name, sessionVersion: rows[0].sessionVersion, teams: teamsOf };
 }
 
 export function getMembership(db: Db, userId: number, teamId: number) {
@@ -131,6 +136,38 @@ export function addTeamMember(
       detail: { email: user.email, role: m.role, accountCreated: created },
     });
     return { user: { id: user.id, email: user.email, name: user.name }, created };
+  });
+}
+
+/** End every session of a user: tokens carrying an older session version are refused (lib/auth.ts). */
+export function bumpSessionVersion(db: Db, userId: number) {
+  db.update(users)
+    .set({ sessionVersion: sql`${users.sessionVersion} + 1` })
+    .where(eq(users.id, userId))
+    .run();
+}
+
+/** A new password hash (computed by the caller, off the event loop); ends every session of the user. */
+export function setPasswordHash(db: Db, userId: number, passwordHash: string) {
+  db.transaction((tx) => {
+    const txDb = tx as unknown as Db;
+    txDb.update(users).set({ passwordHash }).where(eq(users.id, userId)).run();
+    bumpSessionVersion(txDb, userId);
+    writeAudit(txDb, { teamId: null, userId, action: 'user.password-changed', entityType: 'user', entityId: userId, detail: {} });
+  });
+}
+
+/** Remove a member from a team and end their sessions; the last admin cannot be removed. */
+export function removeTeamMember(db: Db, actorId: number, teamId: number, userId: number) {
+  return db.transaction((tx) => {
+    const txDb = tx as unknown as Db;
+    const current = getMembership(txDb, userId, teamId);
+    if (!current) throw new MembershipError('userId', 'That user is not a member of this team');
+    if (current.role === 'admin' && listTeamMembers(txDb, teamId).filter((m) => m.role === 'admin').length <= 1)
+      throw new MembershipError('userId', 'A team needs at least one admin');
+    txDb.delete(memberships).where(eq(memberships.id, current.id)).run();
+    bumpSessionVersion(txDb, userId);
+    writeAudit(txDb, { teamId, userId: actorId, action: 'member.removed', entityType: 'user', entityId: userId, detail: { role: current.role } });
   });
 }
 

@@ -11,8 +11,9 @@ import { Client, signedInAs } from '../support/http';
 const baseUrl = inject('baseUrl');
 const API = path.resolve(import.meta.dirname, '../../app/api');
 
-// Writes nothing on the server's data, or only the caller's own session.
-const READ_ONLY = new Set(['/api/analyze', '/api/session/team']);
+// Writes nothing on the server's data, or only the caller's own session or account
+// (password, personal API tokens, accepting an invitation addressed to them).
+const READ_ONLY = new Set(['/api/analyze', '/api/session/team', '/api/account/password', '/api/account/tokens', '/api/account/tokens/[id]', '/api/invitations/accept']);
 
 function routeFiles(dir: string): string[] {
   return fs.readdirSync(dir, { withFileTypes: true }).flatMap((e) => {

@@ -54,12 +54,15 @@ export interface RunningApp {
   baseUrl: string;
   dbPath: string;
   smtpPort: number;
+  /** The server process (for memory readings in /proc). */
+  pid: number;
   stop: () => Promise<void>;
 }
 
 /** Start `next start` on a fresh seeded database; resolves when it answers. */
-export async function startApp(extraEnv: Record<string, string> = {}): Promise<RunningApp> {
+export async function startApp(extraEnv: Record<string, string> = {}, beforeStart?: (dir: string) => void): Promise<RunningApp> {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'phasewright-test-'));
+  beforeStart?.(dir);
   const dbPath = path.join(dir, 'test.db');
   const port = await freePort();
   const smtpPort = Number(extraEnv.SMTP_PORT ?? (await freePort()));
@@ -72,6 +75,12 @@ export async function startApp(extraEnv: Record<string, string> = {}): Promise<R
     NEXTAUTH_SECRET: 'test-secret-not-for-production',
     SMTP_PORT: String(smtpPort),
     PORT: String(port),
+    // Links in mail point here (never at a request's Host header).
+    PHASEWRIGHT_PUBLIC_URL: `http://127.0.0.1:${port}`,
+    // Test-only allowance: every test file signs in from 127.0.0.1, and some fail on purpose;
+    // the limits themselves are tried on a server of their own (tests/api/signin-limits.test.ts).
+    PHASEWRIGHT_SIGNIN_MAX_FAILS_PER_IP: '100000',
+    PHASEWRIGHT_SIGNIN_MAX_FAILS_PER_ACCOUNT: '100000',
     ...extraEnv,
   };
   const child: ChildProcess = spawn(path.join(ROOT, 'node_modules/.bin/next'), ['start', '-p', String(port), '-H', '127.0.0.1'], {
@@ -99,6 +108,7 @@ export async function startApp(extraEnv: Record<string, string> = {}): Promise<R
     baseUrl,
     dbPath,
     smtpPort,
+    pid: child.pid ?? 0,
     stop: async () => {
       child.kill('SIGTERM');
       await new Promise((r) => setTimeout(r, 200));

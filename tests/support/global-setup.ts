@@ -17,6 +17,7 @@ export default async function setup(project: TestProject) {
   project.provide('baseUrl', app.baseUrl);
   project.provide('dbPath', app.dbPath);
   project.provide('smtpPort', app.smtpPort);
+  project.provide('appPid', app.pid);
   return async () => {
     await smtp.close();
     await app.stop();
@@ -28,5 +29,6 @@ declare module 'vitest' {
     baseUrl: string;
     dbPath: string;
     smtpPort: number;
+    appPid: number;
   }
 }

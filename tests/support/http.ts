@@ -14,7 +14,8 @@ export class Client {
     }
   }
 
-  private cookieHeader() {
+  /** The Cookie header this client sends (to replay a saved session). */
+  cookieHeader() {
     return [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
   }
 

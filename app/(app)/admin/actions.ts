@@ -2,10 +2,11 @@
 
 import { revalidatePath } from 'next/cache';
 import { getDb } from '@/db/client';
-import { addTeamMember, MembershipError, setMemberRole } from '@/db/queries';
+import { createInvitation, MembershipError, setMemberRole } from '@/db/queries';
 import { can, getCurrentUser } from '@/lib/auth';
-import { notifyAddedToTeam } from '@/lib/notify';
-import { addMemberSchema, setRoleSchema } from '@/lib/validation/team';
+import { notifyInvitation } from '@/lib/notify';
+import { invitationSchema } from '@/lib/validation/account';
+import { setRoleSchema } from '@/lib/validation/team';
 
 export interface ActionState {
   ok?: boolean;
@@ -25,29 +26,27 @@ function blankToUndefined(v: FormDataEntryValue | null) {
   return s === '' ? undefined : s;
 }
 
+/**
+ * Invite an address to the team. The same happens, and the same answer comes
+ * back, whether or not the address has an account: the admin never learns which.
+ */
 export async function addMemberAction(_prev: ActionState, form: FormData): Promise<ActionState> {
   const auth = await requireAdmin();
   if ('error' in auth) return { message: auth.error };
-  const parsed = addMemberSchema.safeParse({
-    email: form.get('email'),
-    name: blankToUndefined(form.get('name')),
-    role: form.get('role'),
-    password: blankToUndefined(form.get('password')),
-  });
+  const parsed = invitationSchema.safeParse({ email: form.get('email'), role: form.get('role') });
   if (!parsed.success) {
     const fieldErrors: Record<string, string> = {};
     for (const i of parsed.error.issues) fieldErrors[String(i.path[0])] ??= i.message;
     return { fieldErrors, message: 'Check the highlighted fields' };
   }
   try {
-    const { user, created } = addTeamMember(getDb(), auth.user.id, auth.user.teamId, parsed.data);
-    await notifyAddedToTeam({ to: user.email, name: user.name, teamId: auth.user.teamId, teamName: auth.user.teamName, role: parsed.data.role, by: auth.user.name });
+    const { token } = createInvitation(getDb(), auth.user.id, auth.user.teamId, parsed.data);
+    await notifyInvitation({ to: parsed.data.email, teamId: auth.user.teamId, teamName: auth.user.teamName, role: parsed.data.role, by: auth.user.name, token });
     revalidatePath('/admin');
-    return { ok: true, message: `${user.email} added as ${parsed.data.role}${created ? ' (new account)' : ''}` };
+    return { ok: true, message: `Invitation sent to ${parsed.data.email} as ${parsed.data.role}` };
   } catch (err) {
-    if (err instanceof MembershipError) return { fieldErrors: { [err.field]: err.message }, message: err.message };
     console.error(err);
-    return { message: 'Could not add the member; nothing was changed' };
+    return { message: 'Could not send the invitation; nothing was changed' };
   }
 }
 

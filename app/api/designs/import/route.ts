@@ -17,7 +17,7 @@ const MAX_BYTES = 1024 * 1024;
 export const POST = withUser(
   async (req, { user }) => {
     const text = await req.text();
-    if (Buffer.byteLength(text) > MAX_BYTES) throw new HttpError(413, 'A design file is at most 1 MB');
+    if (Buffer.byteLength(text) > MAX_BYTES) throw new HttpError(413, 'A design file is at most 1 MB', [{ path: 'file', message: 'at most 1 MB' }]);
     let body: unknown;
     try {
       body = JSON.parse(text);
@@ -49,5 +49,5 @@ export const POST = withUser(
       { status: 201 },
     );
   },
-  { allow: can.editDesigns, action: 'import designs' },
+  { allow: can.editDesigns, action: 'import designs', maxBytes: MAX_BYTES },
 );

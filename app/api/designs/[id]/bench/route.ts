@@ -117,5 +117,5 @@ export const POST = withUser<P>(
       { status: 201 },
     );
   },
-  { allow: can.editDesigns, action: 'upload bench data' },
+  { body: 'upload', maxBytes: BENCH_MAX_BYTES + MULTIPART_SLACK, allow: can.editDesigns, action: 'upload bench data' },
 );

@@ -1,0 +1,39 @@
+/**
+ * Security headers on every page (frame-ancestors none, X-Frame-Options, a
+ * content security policy that keeps scripts, styles and fonts to this origin)
+ * and the database files readable by their owner only.
+ */
+import fs from 'node:fs';
+import path from 'node:path';
+import { beforeAll, describe, expect, inject, it } from 'vitest';
+import { signedInAs, type Client } from '../support/http';
+
+const baseUrl = inject('baseUrl');
+const dbPath = inject('dbPath');
+let designer: Client;
+
+beforeAll(async () => {
+  designer = await signedInAs(baseUrl, 'designer');
+});
+
+describe('security headers', () => {
+  it.each(['/signin', '/designs', '/api/designs', '/cautions'])('%s', async (page) => {
+    const res = await designer.fetch(page);
+    const csp = res.headers.get('content-security-policy') ?? '';
+    expect(csp).toContain("frame-ancestors 'none'");
+    expect(csp).toContain("default-src 'self'");
+    expect(csp).toContain("object-src 'none'");
+    expect(csp).not.toContain('unsafe-eval');
+    expect(csp).toMatch(/font-src 'self'/);
+    expect(res.headers.get('x-frame-options')).toBe('DENY');
+    expect(res.headers.get('x-content-type-options')).toBe('nosniff');
+  });
+});
+
+describe('files', () => {
+  it('the database and its WAL files are owner-only (0600)', () => {
+    for (const f of [dbPath, `${dbPath}-wal`, `${dbPath}-shm`].filter((x) => fs.existsSync(x))) {
+      expect((fs.statSync(f).mode & 0o777).toString(8), path.basename(f)).toBe('600');
+    }
+  });
+});
