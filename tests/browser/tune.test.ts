@@ -40,6 +40,8 @@ async function openTune(page: Page) {
 const pm = (page: Page) => page.getByTestId('readout-pm').textContent();
 
 async function dragBy(page: Page, handle: string, dx: number, dy: number) {
+  // A field lower down may have scrolled the plot away: the mouse only reaches what is in view.
+  await page.locator(`[data-handle="${handle}"]`).scrollIntoViewIfNeeded();
   const box = (await page.locator(`[data-handle="${handle}"]`).boundingBox())!;
   const x = box.x + box.width / 2;
   const y = box.y + box.height / 2;
