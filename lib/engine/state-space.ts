@@ -91,3 +91,31 @@ export const balance = (a: Float64Array, n: number): Float64Array => {
   }
   return d;
 };
+
+/** The same system in balanced coordinates x = D·x̃: (D⁻¹AD, D⁻¹B, C·D, d); `scale` is D. */
+export const balanceRealization = (ss: StateSpace): StateSpace & { scale: Float64Array } => {
+  const a = Float64Array.from(ss.a);
+  const scale = balance(a, ss.n);
+  return {
+    n: ss.n,
+    a: Array.from(a),
+    b: ss.b.map((v, i) => v / scale[i]),
+    c: ss.c.map((v, i) => v * scale[i]),
+    d: ss.d,
+    scale,
+  };
+};
+
+/**
+ * Equilibrium of an observable canonical realization whose denominator has a_0 = 0 (an
+ * integrator), with zero input and output y: x_{k−1} = a_k·y (k = 1…n−1), x_{n−1} = y.
+ * Returns null without an integrator (the equilibrium is then x = 0 only).
+ */
+export const integratorEquilibrium = (ss: StateSpace, y: number): number[] | null => {
+  const n = ss.n;
+  if (n === 0 || ss.a[n - 1] !== 0) return null; // −a_0 sits in row 0, column n−1
+  const x = new Array<number>(n).fill(0);
+  for (let k = 1; k < n; k++) x[k - 1] = -ss.a[k * n + (n - 1)] * y;
+  x[n - 1] = y;
+  return x;
+};
