@@ -67,3 +67,4 @@ export {
   switchingStep,
 } from './switching-check';
 export type { ModelCheckPoint, ModelCheckResult, ProgressFn, SteadyStateSummary, SwitchingStepResult, Waveform } from './switching-check';
+export { BODE_SIGNIFICANT_DIGITS, roundBode, roundSignificant } from './precision';
