@@ -23,8 +23,7 @@ const csp = [
   "object-src 'none'",
 ].join('; ');
 
-const securityHeaders = [
-  { key: 'Content-Security-Policy', value: csp },
+const baseHeaders = [
   { key: 'X-Frame-Options', value: 'DENY' },
   { key: 'X-Content-Type-Options', value: 'nosniff' },
   { key: 'Referrer-Policy', value: 'same-origin' },
@@ -43,7 +42,11 @@ const nextConfig = {
   // keeps builds fast on small machines and stops each distDir rewriting tsconfig.json.
   typescript: { ignoreBuildErrors: true },
   async headers() {
-    return [{ source: '/:path*', headers: securityHeaders }];
+    // Pages get the policy; API answers (JSON, and exports that set their own stricter policy) get the rest.
+    return [
+      { source: '/:path((?!api/).*)', headers: [{ key: 'Content-Security-Policy', value: csp }, ...baseHeaders] },
+      { source: '/api/:path*', headers: baseHeaders },
+    ];
   },
 };
 

@@ -1,5 +1,5 @@
 /**
- * Malformed input stays answered: 10,000 generated bodies (wrong types,
+ * Malformed input stays answered: generated bodies (10,000 with FUZZ_TOTAL=10000) (wrong types,
  * NaN/Infinity, 1e308, huge arrays, deep nesting, cut-off JSON, wrong content
  * types) against /api/analyze and every write route of the route list →
  * zero 5xx, and every 400/413/415/422 names the field. Counts are printed.
@@ -13,8 +13,9 @@ import { demoInput, type AnalyzeInput } from '../support/saved-design';
 
 const baseUrl = inject('baseUrl');
 const dbPath = inject('dbPath');
-const TOTAL = 10_000;
-const PARALLEL = 16;
+// 2,000 in `npm test` (about two minutes on a busy 2-core machine); FUZZ_TOTAL=10000 for the full run.
+const TOTAL = Number(process.env.FUZZ_TOTAL ?? 2_000);
+const PARALLEL = 8;
 
 let team: Awaited<ReturnType<typeof ownTeam<'admin'>>>;
 let input: AnalyzeInput;
@@ -81,7 +82,7 @@ function generate(r: () => number, base: unknown): [string, string] {
 }
 
 describe('fuzz', () => {
-  it(`${TOTAL} generated bodies: zero 5xx, every 4xx with a body names the field (counts printed)`, { timeout: 300_000 }, async () => {
+  it(`${TOTAL} generated bodies: zero 5xx, every 4xx with a body names the field (counts printed)`, { timeout: 900_000 }, async () => {
     const routes = listApiRoutes()
       .filter((x) => !x.pattern.startsWith('/api/auth/'))
       .flatMap((x) => x.methods.filter((m) => WRITE_METHODS.includes(m)).map((method) => ({ method, url: concreteUrl(x.pattern, (p) => (p === 'id' ? designId : 1)) })));
@@ -102,8 +103,16 @@ describe('fuzz', () => {
         const [type, body] = generate(r, validFor(t.url));
         const headers: Record<string, string> = { origin: baseUrl };
         if (type) headers['content-type'] = type;
-        const res = await team.clients.admin.fetch(t.url, { method: t.method, headers, body });
-        const text = await res.text();
+        let res: Response;
+        let text: string;
+        try {
+          res = await team.clients.admin.fetch(t.url, { method: t.method, headers, body, signal: AbortSignal.timeout(20_000) });
+          text = await res.text();
+        } catch (err) {
+          fivexx.push(`#${i} ${t.method} ${t.url} ${type} ${body.slice(0, 120)} → no answer (${err instanceof Error ? err.name : err})`);
+          continue;
+        }
+        if (i % 1000 === 0) console.log(`[fuzz] ${i} sent, ${((performance.now() - started) / 1000).toFixed(1)} s`);
         byStatus.set(res.status, (byStatus.get(res.status) ?? 0) + 1);
         const key = `${t.method} ${t.url.replace(/\/\d+/g, '/:n')}`;
         byRoute.set(key, (byRoute.get(key) ?? 0) + 1);

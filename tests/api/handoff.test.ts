@@ -142,12 +142,12 @@ describe('POST /api/designs/import', () => {
   it('viewer and reviewer may not import (403); 401 without a session', async () => {
     const file = await (await clients.viewer.fetch(exportUrl('json'))).text();
     for (const role of ['viewer', 'reviewer'] as const)
-      expect((await clients[role].fetch('/api/designs/import', { method: 'POST', body: file })).status).toBe(403);
-    expect((await new Client(baseUrl).fetch('/api/designs/import', { method: 'POST', body: file })).status).toBe(401);
+      expect((await clients[role].fetch('/api/designs/import', { method: 'POST', headers: { 'content-type': 'application/json' }, body: file })).status).toBe(403);
+    expect((await new Client(baseUrl).fetch('/api/designs/import', { method: 'POST', headers: { 'content-type': 'application/json' }, body: file })).status).toBe(401);
   });
 
   it('400 for broken JSON or another format, naming the field', async () => {
-    const broken = await clients.designer.fetch('/api/designs/import', { method: 'POST', body: '{"format":' });
+    const broken = await clients.designer.fetch('/api/designs/import', { method: 'POST', headers: { 'content-type': 'application/json' }, body: '{"format":' });
     expect(broken.status).toBe(400);
     const other = await clients.designer.json('/api/designs/import', 'POST', { format: 'something', version: 1 });
     expect(other.status).toBe(400);

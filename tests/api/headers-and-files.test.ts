@@ -17,7 +17,13 @@ beforeAll(async () => {
 });
 
 describe('security headers', () => {
-  it.each(['/signin', '/designs', '/api/designs', '/cautions'])('%s', async (page) => {
+  it('API answers: no framing, no sniffing', async () => {
+    const res = await designer.fetch('/api/designs');
+    expect(res.headers.get('x-frame-options')).toBe('DENY');
+    expect(res.headers.get('x-content-type-options')).toBe('nosniff');
+  });
+
+  it.each(['/signin', '/designs', '/cautions'])('%s', async (page) => {
     const res = await designer.fetch(page);
     const csp = res.headers.get('content-security-policy') ?? '';
     expect(csp).toContain("frame-ancestors 'none'");

@@ -123,22 +123,33 @@ describe.runIf(run)('Compare and Sign-off', () => {
     await viewer.context().close();
   });
 
-  it('an admin adds a member and reads the welcome mail in the mailbox', async () => {
+  it('an admin invites a member; the mail carries the link to accept', async () => {
     const admin = await pageAs('admin@demo.test');
     await admin.goto(`${baseUrl}/admin`);
     await admin.getByLabel('Email').fill('nia@demo.test');
     await admin.locator('#member-role').selectOption('reviewer');
-    await admin.getByLabel('Name (new account)').fill('Nia Newcomer');
-    await admin.getByLabel('Initial password (new account)').fill('a long enough password');
-    await admin.getByRole('button', { name: 'Add member' }).click();
-    await expect.poll(() => admin.getByRole('status').textContent()).toMatch(/nia@demo.test added/);
-    expect(mailTo('nia@demo.test')[0]?.subject).toMatch(/^You were added to .+ on Phasewright$/);
-
-    await admin.goto(`${baseUrl}/mailbox`);
-    const list = admin.getByTestId('mail-list');
-    await list.getByText(/You were added to/).first().click();
-    await expect.poll(() => admin.getByTestId('mail-open').textContent()).toMatch(/to nia@demo.test/);
-    await screenshot(admin, 'mailbox');
+    await admin.getByRole('button', { name: 'Send invitation' }).click();
+    await expect.poll(() => admin.getByRole('status').textContent()).toMatch(/Invitation sent to nia@demo.test/);
+    const mail = mailTo('nia@demo.test')[0];
+    expect(mail?.subject).toMatch(/^Invitation to .+ on Phasewright$/);
+    const link = mail?.text.match(/https?:\/\/\S+invitations\/accept\?token=\S+/)?.[0] ?? '';
+    const nia = await (await admin.context().browser()!.newContext()).newPage();
+    await nia.goto(link.replace(/^https?:\/\/[^/]+/, baseUrl));
+    await nia.getByLabel('Your name').fill('Nia Newcomer');
+    await nia.getByLabel(/Choose a password/).fill('a long enough password');
+    await nia.getByRole('button', { name: 'Accept and join' }).click();
+    await nia.waitForURL(/\/signin/);
+    await screenshot(admin, 'admin-invited');
     await admin.context().close();
+  });
+
+  it('the mailbox shows the signed-in member their own mail only', async () => {
+    const reviewer = await pageAs('reviewer@demo.test');
+    await reviewer.goto(`${baseUrl}/mailbox`);
+    const text = (await reviewer.locator('main').textContent()) ?? '';
+    expect(text).toContain('reviewer@demo.test');
+    expect(text).not.toContain('to nia@demo.test');
+    await screenshot(reviewer, 'mailbox');
+    await reviewer.context().close();
   });
 });
