@@ -53,6 +53,31 @@ function marginRows(m: Margins): [string, string][] {
   ];
 }
 
+/** Modulator inputs: voltage mode Vramp; peak current mode Ri and Se. */
+const modulatorRows = (m: AnalyzeRequest['modulator']): [string, string][] =>
+  m.mode === 'peak-current'
+    ? [
+        ['Modulator', 'Peak current mode'],
+        ['Current-sense gain Ri', si(m.ri, 'V/A')],
+        ['External ramp Se', m.se ? si(m.se, 'V/s') : '0 (none)'],
+      ]
+    : [
+        ['Modulator', 'Voltage mode'],
+        ['PWM ramp Vramp', si(m.vramp, 'V')],
+      ];
+
+/** Error amplifier: op-amp (ideal or a0/GBW) or transconductance (gm, ro). */
+const amplifierRows = (c: AnalyzeRequest['compensator']): [string, string][] => {
+  if (c.amplifier === 'transconductance') {
+    return [
+      ['Error amplifier', 'Transconductance (gm)'],
+      ['Transconductance gm', si(c.gm ?? null, 'S')],
+      ['Output resistance ro', c.ro ? si(c.ro, 'Ω') : 'infinite'],
+    ];
+  }
+  return [['Error amplifier', c.opamp ? `Op-amp, a0 ${c.opamp.a0.toPrecision(3)}, GBW ${si(c.opamp.gbw, 'Hz')}` : 'Op-amp (ideal)']];
+};
+
 /** The report as a complete HTML document. */
 export function buildReportHtml(r: ReportInput): string {
   const { input, result } = r;
@@ -74,9 +99,10 @@ export function buildReportHtml(r: ReportInput): string {
     ['Output capacitor C', si(cv.c, 'F')],
     ['Capacitor ESR', si(cv.rc, 'Ω')],
     ['Diode drop', cv.vd ? si(cv.vd, 'V') : '0 (synchronous)'],
-    ['PWM ramp Vramp', si(input.modulator.vramp, 'V')],
+    ...modulatorRows(input.modulator),
     ['Reference Vref', si(input.feedback.vref, 'V')],
     ['Compensator', COMPENSATOR_LABEL[comp.type]],
+    ...amplifierRows(comp),
     ['Resistor / capacitor series', `${result.parts.resistorSeries} / ${result.parts.capacitorSeries}`],
   ]);
 

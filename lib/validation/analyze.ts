@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { COMPENSATOR_TYPES, E_SERIES_NAMES, TOPOLOGIES } from '@/lib/engine/types';
+import { AMPLIFIER_KINDS, COMPENSATOR_TYPES, MODULATOR_MODES, E_SERIES_NAMES, TOPOLOGIES } from '@/lib/engine/types';
 import type { AnalyzeRequest } from '@/lib/engine/types';
 
 /**
@@ -35,7 +35,33 @@ export const compensatorSchema = z.object({
   c1: finite('c1'),
   c2: finite('c2').optional(),
   c3: finite('c3').optional(),
+  /** Absent = "opamp" (designs saved before amplifiers existed). */
+  amplifier: z.enum(AMPLIFIER_KINDS, { error: 'amplifier must be "opamp" or "transconductance"' }).optional(),
+  gm: finite('gm').optional(),
+  ro: finite('ro').optional(),
+  rb: finite('rb').optional(),
+  opamp: z.object({ a0: finite('a0'), gbw: finite('gbw') }).optional(),
 });
+
+/**
+ * A modulator without `mode` is voltage mode (designs saved before modes existed).
+ * Voltage mode needs vramp; peak current mode needs ri (se defaults to 0).
+ */
+export const modulatorSchema = z
+  .object({
+    mode: z.enum(MODULATOR_MODES, { error: 'mode must be "voltage" or "peak-current"' }).optional(),
+    vramp: finite('vramp').optional(),
+    ri: finite('ri').optional(),
+    se: finite('se').optional(),
+  })
+  .superRefine((m, ctx) => {
+    if (m.mode === 'peak-current') {
+      if (m.ri === undefined) ctx.addIssue({ code: 'custom', path: ['ri'], message: 'ri (current-sense gain, V/A) is required in peak current mode' });
+    } else if (m.vramp === undefined) {
+      ctx.addIssue({ code: 'custom', path: ['vramp'], message: 'vramp (PWM ramp, V) is required in voltage mode' });
+    }
+  })
+  .transform((m) => (m.mode === 'peak-current' ? { mode: m.mode, ri: m.ri!, se: m.se ?? 0 } : { ...(m.mode ? { mode: m.mode } : {}), vramp: m.vramp! }));
 
 const seriesSchema = z.enum(E_SERIES_NAMES as [string, ...string[]], {
   error: 'series must be one of E6, E12, E24, E48, E96, E192',
@@ -43,7 +69,7 @@ const seriesSchema = z.enum(E_SERIES_NAMES as [string, ...string[]], {
 
 export const analyzeRequestSchema = z.object({
   converter: converterSchema,
-  modulator: z.object({ vramp: finite('vramp') }),
+  modulator: modulatorSchema,
   feedback: z.object({ vref: finite('vref') }),
   compensator: compensatorSchema,
   parts: z
