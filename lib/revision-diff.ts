@@ -3,7 +3,7 @@
  * operating-point figures, side by side, each row marked when it differs.
  * Pure data; Compare formats it.
  */
-import type { AmplifierKind, AnalyzeRequest, ModulatorMode } from '@/lib/engine/types';
+import type { Amplifier, AnalyzeRequest, ModulatorMode } from '@/lib/engine/types';
 import type { RevisionSummary } from './revision-summary';
 
 /** How a value is shown: SI-prefixed with a unit, degrees, decibels, a ratio as %, or plain text. */
@@ -34,7 +34,7 @@ const partUnit = (p: string) => (p.startsWith('r') ? 'Ω' : 'F');
 const partLabel = (p: string) => p.toUpperCase();
 
 const MODE_LABEL: Record<ModulatorMode, string> = { voltage: 'Voltage mode', 'peak-current': 'Peak current mode' };
-const AMPLIFIER_LABEL: Record<AmplifierKind, string> = { opamp: 'Op-amp', transconductance: 'Transconductance (gm)' };
+const AMPLIFIER_LABEL: Record<Amplifier, string> = { opamp: 'Op-amp', transconductance: 'Transconductance (gm)' };
 
 const SPECS: Spec[] = [
   { group: 'Power stage', key: 'topology', label: 'Topology', kind: 'text', get: (s) => s.input.converter.topology },

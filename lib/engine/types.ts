@@ -15,8 +15,8 @@ export const TOPOLOGIES: readonly Topology[] = ['buck', 'boost', 'buck-boost'];
 export const MODULATOR_MODES = ['voltage', 'peak-current'] as const;
 export type ModulatorMode = (typeof MODULATOR_MODES)[number];
 /** Error amplifiers: inverting op-amp stage or transconductance (gm) amplifier at a COMP pin. */
-export const AMPLIFIER_KINDS = ['opamp', 'transconductance'] as const;
-export type AmplifierKind = (typeof AMPLIFIER_KINDS)[number];
+export const AMPLIFIERS = ['opamp', 'transconductance'] as const;
+export type Amplifier = (typeof AMPLIFIERS)[number];
 export const COMPENSATOR_TYPES: readonly CompensatorType[] = ['type1', 'type2', 'type3'];
 export const E_SERIES_NAMES: readonly ESeriesName[] = ['E6', 'E12', 'E24', 'E48', 'E96', 'E192'];
 
@@ -84,7 +84,7 @@ export interface OpAmpModel {
  */
 export interface CompensatorInput {
   type: CompensatorType;
-  amplifier?: AmplifierKind;
+  amplifier?: Amplifier;
   r1: number;
   r2?: number;
   r3?: number;
@@ -163,7 +163,7 @@ export interface TransferSummary {
 
 export interface CompensatorSummary {
   type: CompensatorType;
-  amplifier: AmplifierKind;
+  amplifier: Amplifier;
   /** Origin pole listed as 0. */
   polesHz: number[];
   zerosHz: number[];

@@ -78,6 +78,19 @@ const amplifierRows = (c: AnalyzeRequest['compensator']): [string, string][] => 
   return [['Error amplifier', c.opamp ? `Op-amp, a0 ${c.opamp.a0.toPrecision(3)}, GBW ${si(c.opamp.gbw, 'Hz')}` : 'Op-amp (ideal)']];
 };
 
+/** Landmarks of the control mode: the current-mode sampling pair (Ridley 1991) and the DCM pole. */
+const modeLandmarkRows = (result: AnalyzeResult): [string, string][] => {
+  const rows: [string, string][] = [];
+  const m = result.modulator;
+  if (m?.mode === 'peak-current') {
+    if (m.samplingPoleHz !== null) rows.push(['Current-mode double pole (fsw/2)', si(m.samplingPoleHz, 'Hz')]);
+    rows.push(['Qp', m.qp === null ? '—' : m.qp.toFixed(2)], ['mc = 1 + Se/Sn', m.mc.toFixed(3)]);
+    if (m.samplingPoleHz !== null) rows.push(['External ramp for Qp = 1', si(m.seForQp1, 'V/s')], ['External ramp for stability', si(m.seMinStable, 'V/s')]);
+  }
+  if (result.dcmPoleHz !== null && result.dcmPoleHz !== undefined) rows.push(['DCM low-frequency pole', si(result.dcmPoleHz, 'Hz')]);
+  return rows;
+};
+
 /** The report as a complete HTML document. */
 export function buildReportHtml(r: ReportInput): string {
   const { input, result } = r;
@@ -118,6 +131,7 @@ export function buildReportHtml(r: ReportInput): string {
     ['Q', result.plant.q === null ? '—' : result.plant.q.toFixed(2)],
     ['ESR zero', si(result.plant.esrZeroHz, 'Hz')],
     ['RHP zero', si(result.plant.rhpZeroHz, 'Hz')],
+    ...modeLandmarkRows(result),
   ]);
 
   const snapped = marginRows(result.parts.snappedMargins);

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { AMPLIFIER_KINDS, COMPENSATOR_TYPES, MODULATOR_MODES, E_SERIES_NAMES, TOPOLOGIES } from '@/lib/engine/types';
+import { AMPLIFIERS, COMPENSATOR_TYPES, MODULATOR_MODES, E_SERIES_NAMES, TOPOLOGIES } from '@/lib/engine/types';
 import type { AnalyzeRequest } from '@/lib/engine/types';
 
 /**
@@ -36,7 +36,7 @@ export const compensatorSchema = z.object({
   c2: finite('c2').optional(),
   c3: finite('c3').optional(),
   /** Absent = "opamp" (designs saved before amplifiers existed). */
-  amplifier: z.enum(AMPLIFIER_KINDS, { error: 'amplifier must be "opamp" or "transconductance"' }).optional(),
+  amplifier: z.enum(AMPLIFIERS, { error: 'amplifier must be "opamp" or "transconductance"' }).optional(),
   gm: finite('gm').optional(),
   ro: finite('ro').optional(),
   rb: finite('rb').optional(),
