@@ -63,7 +63,7 @@ function Card({ title, children, className = '', aside }: { title: string; child
 
 export function TuneScreen({ designId, initialInput, savedInput, editFrom = null, shownRevision, latestRevision, mode, role, revisions }: TuneScreenProps) {
   const readOnly = mode !== 'edit';
-  const bench = useBenchOverlay(designId); // Bench data overlay (Handoff, issue 6)
+  const bench = useBenchOverlay(designId); // Bench data overlay
   const [input, setInput] = useState<AnalyzeRequest>(initialInput);
   const [saved, setSaved] = useState({ json: stableJson(savedInput ?? initialInput), revision: shownRevision });
   const [from, setFrom] = useState(editFrom);
@@ -74,7 +74,7 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
 
   const { converter, modulator, feedback, sweep } = input;
   const stage = useMemo(() => ({ converter, modulator, feedback, sweep }), [converter, modulator, feedback, sweep]);
-  const prepared = useMemo(() => prepareStage(stage as AnalyzeRequest), [stage]);
+  const prepared = useMemo(() => prepareStage(stage), [stage]);
   // Stable callbacks keep the memoised stage form and parts table still while a handle is dragged.
   const onStageChange = useCallback((next: Pick<AnalyzeRequest, 'converter' | 'modulator' | 'feedback'>) => setInput((i) => ({ ...i, ...next })), []);
   const onSeriesChange = useCallback((options: PartsOptions) => setInput((i) => ({ ...i, parts: options })), []);

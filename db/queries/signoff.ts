@@ -1,5 +1,5 @@
 import { alias } from 'drizzle-orm/sqlite-core';
-import { and, asc, desc, eq } from 'drizzle-orm';
+import { and, asc, desc, eq, sql } from 'drizzle-orm';
 import type { Db } from '../connection';
 import { revisions, signoffEvents, users, type SignoffState } from '../schema';
 import { writeAudit } from './audit';
@@ -53,13 +53,11 @@ export function getSignoffState(db: Db, revisionId: number): SignoffState {
 
 /** State of every revision of a design, keyed by revision number. */
 export function listSignoffStates(db: Db, designId: number): Map<number, SignoffState> {
-  const rows = db.$client
-    .prepare(
-      `SELECT r.number AS number,
-              (SELECT e.state FROM signoff_events e WHERE e.revision_id = r.id ORDER BY e.id DESC LIMIT 1) AS state
-         FROM revisions r WHERE r.design_id = ?`,
-    )
-    .all(designId) as { number: number; state: SignoffState | null }[];
+  const rows = db.all<{ number: number; state: SignoffState | null }>(
+    sql`SELECT r.number AS number,
+               (SELECT e.state FROM signoff_events e WHERE e.revision_id = r.id ORDER BY e.id DESC LIMIT 1) AS state
+          FROM revisions r WHERE r.design_id = ${designId}`,
+  );
   return new Map(rows.map((r) => [r.number, r.state ?? 'draft']));
 }
 
@@ -144,16 +142,15 @@ export function submitForReview(
 ) {
   return db.transaction(
     (tx) => {
-      const txDb = tx as unknown as Db;
-      const from = getSignoffState(txDb, ref.revisionId);
+      const from = getSignoffState(tx, ref.revisionId);
       if (!SUBMITTABLE_FROM.includes(from))
         throw new SignoffRuleError('state', `r${ref.number} is ${from}; only a draft or a revision with changes requested can be submitted`);
       if (!s.isReviewer(s.reviewerId))
         throw new SignoffRuleError('reviewerId', 'Choose a reviewer or admin of this team');
-      if (s.reviewerId === revisionAuthor(txDb, ref.revisionId))
+      if (s.reviewerId === revisionAuthor(tx, ref.revisionId))
         throw new SignoffRuleError('reviewerId', `The reviewer cannot be the author of r${ref.number}`);
       if (s.reviewerId === s.actorId) throw new SignoffRuleError('reviewerId', 'Ask someone other than yourself');
-      return insertEvent(txDb, ref, { state: 'in-review', actorId: s.actorId, reviewerId: s.reviewerId, message: s.message, from });
+      return insertEvent(tx, ref, { state: 'in-review', actorId: s.actorId, reviewerId: s.reviewerId, message: s.message, from });
     },
     { behavior: 'immediate' },
   );
@@ -167,16 +164,15 @@ export function submitForReview(
 export function decideSignoff(db: Db, ref: RevisionRef, d: { actorId: number; decision: Decision; message: string }) {
   return db.transaction(
     (tx) => {
-      const txDb = tx as unknown as Db;
-      const from = getSignoffState(txDb, ref.revisionId);
-      const authorId = revisionAuthor(txDb, ref.revisionId);
+      const from = getSignoffState(tx, ref.revisionId);
+      const authorId = revisionAuthor(tx, ref.revisionId);
       if (authorId === d.actorId) throw new SignoffForbiddenError(`You wrote r${ref.number}; someone else must sign it off`);
       if (from !== 'in-review')
         throw new SignoffRuleError('state', `r${ref.number} is ${from}; only a revision in review can be approved or sent back`);
       if (d.decision === 'request-changes' && !d.message.trim())
         throw new SignoffRuleError('message', 'Say what should change');
-      const submitterId = latestSubmission(txDb, ref.revisionId)?.actorId ?? null;
-      const event = insertEvent(txDb, ref, { state: DECISION_STATE[d.decision], actorId: d.actorId, message: d.message, from });
+      const submitterId = latestSubmission(tx, ref.revisionId)?.actorId ?? null;
+      const event = insertEvent(tx, ref, { state: DECISION_STATE[d.decision], actorId: d.actorId, message: d.message, from });
       const notify = [...new Set([authorId, submitterId].filter((x): x is number => x != null && x !== d.actorId))];
       return { event, notifyUserIds: notify };
     },
