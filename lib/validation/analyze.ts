@@ -90,6 +90,27 @@ export const analyzeRequestSchema = z.object({
   sweep: sweepSchema.optional(),
 });
 
+/**
+ * What the answer to POST /api/analyze carries: `output: { arrays: false }` in the body or
+ * `?arrays=0` in the URL leaves the Bode arrays out (margins, landmarks, parts and checks only).
+ * Kept apart from the request schema so a revision's stored input never holds it.
+ */
+export const analyzeOutputSchema = z
+  .object({ arrays: z.boolean({ error: 'output.arrays must be true or false' }).default(true) })
+  .default({ arrays: true });
+
+/** The body of POST /api/analyze: a request plus what the answer should carry. */
+export const analyzeBodySchema = analyzeRequestSchema.extend({ output: analyzeOutputSchema });
+
+/** `?arrays=0|1|true|false` overrides `output.arrays`; anything else is a field issue. */
+export function arraysWanted(url: URL, fromBody: boolean): { ok: true; arrays: boolean } | { ok: false; issues: FieldIssue[] } {
+  const q = url.searchParams.get('arrays');
+  if (q === null) return { ok: true, arrays: fromBody };
+  if (!['0', '1', 'true', 'false'].includes(q))
+    return { ok: false, issues: [{ path: 'arrays', message: 'the arrays query parameter must be 0, 1, true or false' }] };
+  return { ok: true, arrays: q === '1' || q === 'true' };
+}
+
 export type AnalyzeRequestInput = z.input<typeof analyzeRequestSchema>;
 
 /** Parse into the engine's request type (defaults applied). */
