@@ -3,7 +3,8 @@
  * operating-point figures, side by side, each row marked when it differs.
  * Pure data; Compare formats it.
  */
-import type { Amplifier, AnalyzeRequest, ModulatorMode } from '@/lib/engine/types';
+import { AMPLIFIER_LABELS, MODULATOR_MODE_LABELS } from '@/lib/catalog';
+import type { AnalyzeRequest } from '@/lib/engine/types';
 import type { RevisionSummary } from './revision-summary';
 
 /** How a value is shown: SI-prefixed with a unit, degrees, decibels, a ratio as %, or plain text. */
@@ -33,8 +34,6 @@ const PARTS = ['r1', 'r2', 'r3', 'c1', 'c2', 'c3'] as const;
 const partUnit = (p: string) => (p.startsWith('r') ? 'Ω' : 'F');
 const partLabel = (p: string) => p.toUpperCase();
 
-const MODE_LABEL: Record<ModulatorMode, string> = { voltage: 'Voltage mode', 'peak-current': 'Peak current mode' };
-const AMPLIFIER_LABEL: Record<Amplifier, string> = { opamp: 'Op-amp', transconductance: 'Transconductance (gm)' };
 
 const SPECS: Spec[] = [
   { group: 'Power stage', key: 'topology', label: 'Topology', kind: 'text', get: (s) => s.input.converter.topology },
@@ -47,13 +46,13 @@ const SPECS: Spec[] = [
   { group: 'Power stage', key: 'c', label: 'Output capacitor C', kind: 'si', unit: 'F', get: (s) => s.input.converter.c },
   { group: 'Power stage', key: 'rc', label: 'Capacitor ESR', kind: 'si', unit: 'Ω', get: (s) => s.input.converter.rc },
   { group: 'Power stage', key: 'vd', label: 'Diode drop Vd', kind: 'si', unit: 'V', get: (s) => s.input.converter.vd },
-  { group: 'Modulator and feedback', key: 'mode', label: 'Modulator', kind: 'text', get: (s) => MODE_LABEL[s.input.modulator.mode ?? 'voltage'] },
+  { group: 'Modulator and feedback', key: 'mode', label: 'Modulator', kind: 'text', get: (s) => MODULATOR_MODE_LABELS[s.input.modulator.mode ?? 'voltage'] },
   { group: 'Modulator and feedback', key: 'vramp', label: 'PWM ramp Vramp', kind: 'si', unit: 'V', get: (s) => (s.input.modulator.mode === 'peak-current' ? null : s.input.modulator.vramp) },
   { group: 'Modulator and feedback', key: 'ri', label: 'Current-sense gain Ri', kind: 'si', unit: 'V/A', get: (s) => (s.input.modulator.mode === 'peak-current' ? s.input.modulator.ri : null) },
   { group: 'Modulator and feedback', key: 'se', label: 'External ramp Se', kind: 'si', unit: 'V/s', get: (s) => (s.input.modulator.mode === 'peak-current' ? s.input.modulator.se : null) },
   { group: 'Modulator and feedback', key: 'vref', label: 'Reference Vref', kind: 'si', unit: 'V', get: (s) => s.input.feedback.vref },
   { group: 'Compensator', key: 'type', label: 'Type', kind: 'text', get: (s) => typeLabel(s.input.compensator.type) },
-  { group: 'Compensator', key: 'amplifier', label: 'Error amplifier', kind: 'text', get: (s) => AMPLIFIER_LABEL[s.input.compensator.amplifier ?? 'opamp'] },
+  { group: 'Compensator', key: 'amplifier', label: 'Error amplifier', kind: 'text', get: (s) => AMPLIFIER_LABELS[s.input.compensator.amplifier ?? 'opamp'] },
   { group: 'Compensator', key: 'comp.gm', label: 'Transconductance gm', kind: 'si', unit: 'S', get: (s) => s.input.compensator.gm },
   { group: 'Compensator', key: 'comp.ro', label: 'Amplifier output resistance ro', kind: 'si', unit: 'Ω', get: (s) => s.input.compensator.ro },
   { group: 'Compensator', key: 'comp.rb', label: 'Rb as entered', kind: 'si', unit: 'Ω', get: (s) => s.input.compensator.rb },

@@ -6,19 +6,28 @@
  * `null`, never 0 or NaN. This module imports nothing.
  */
 
-export type Topology = 'buck' | 'boost' | 'buck-boost';
-export type CompensatorType = 'type1' | 'type2' | 'type3';
-export type ESeriesName = 'E6' | 'E12' | 'E24' | 'E48' | 'E96' | 'E192';
+/*
+ * The closed lists of the contract, as `as const` tuples: the zod schemas
+ * (lib/validation/analyze.ts), the database enums (db/schema.ts) and the
+ * catalogue (lib/catalog/) are all built from these, so adding a member here
+ * is the one place a list grows.
+ */
+export const TOPOLOGIES = ['buck', 'boost', 'buck-boost'] as const;
+export type Topology = (typeof TOPOLOGIES)[number];
 
-export const TOPOLOGIES: readonly Topology[] = ['buck', 'boost', 'buck-boost'];
-/** Modulator modes: voltage-mode PWM (ramp Vramp) or peak current mode (sense gain Ri, external ramp Se). */
-export const MODULATOR_MODES = ['voltage', 'peak-current'] as const;
-export type ModulatorMode = (typeof MODULATOR_MODES)[number];
+export const COMPENSATOR_TYPES = ['type1', 'type2', 'type3'] as const;
+export type CompensatorType = (typeof COMPENSATOR_TYPES)[number];
+
 /** Error amplifiers: inverting op-amp stage or transconductance (gm) amplifier at a COMP pin. */
 export const AMPLIFIERS = ['opamp', 'transconductance'] as const;
 export type Amplifier = (typeof AMPLIFIERS)[number];
-export const COMPENSATOR_TYPES: readonly CompensatorType[] = ['type1', 'type2', 'type3'];
-export const E_SERIES_NAMES: readonly ESeriesName[] = ['E6', 'E12', 'E24', 'E48', 'E96', 'E192'];
+
+/** Modulator modes: voltage-mode PWM (ramp Vramp) or peak current mode (sense gain Ri, external ramp Se). */
+export const MODULATOR_MODES = ['voltage', 'peak-current'] as const;
+export type ModulatorMode = (typeof MODULATOR_MODES)[number];
+
+export const E_SERIES_NAMES = ['E6', 'E12', 'E24', 'E48', 'E96', 'E192'] as const;
+export type ESeriesName = (typeof E_SERIES_NAMES)[number];
 
 /** Power stage. vin and vout are magnitudes; the buck-boost output is inverted. */
 export interface ConverterInput {
@@ -84,6 +93,7 @@ export interface OpAmpModel {
  */
 export interface CompensatorInput {
   type: CompensatorType;
+  /** Absent means 'opamp'. */
   amplifier?: Amplifier;
   r1: number;
   r2?: number;
