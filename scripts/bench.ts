@@ -8,6 +8,9 @@ import { partsFromShape, shapeFromParts } from '@/lib/engine/compensator';
 import { SAMPLE_DESIGNS } from '@/lib/engine/samples';
 import type { CompensatorShape } from '@/lib/engine/types';
 import { tuneDragCase } from '@/components/tune/drag-bench';
+import { defaultRange } from '@/lib/engine/range';
+import { runSpread } from '@/lib/engine/spread';
+import { analyzeCorners } from '@/lib/engine/corners';
 
 export interface BenchCase {
   name: string;
@@ -17,6 +20,9 @@ export interface BenchCase {
   batch: number;
   /** One call of the operation; `i` is the running call number. */
   run: (i: number) => unknown;
+  /** Timed batches and warm-up calls (defaults 400 and 3000; fewer for long cases). */
+  batches?: number;
+  warmup?: number;
 }
 
 let sink: unknown;
@@ -92,14 +98,31 @@ export const BENCH_CASES: BenchCase[] = [
   },
   dragCase(),
   tuneDragCase(),
+  {
+    name: 'corners: 32 corners of a sample design, each a full analyze()',
+    batch: 1,
+    batches: 30,
+    warmup: 6,
+    run: (i) => analyzeCorners(requests[i % requests.length], defaultRange(requests[i % requests.length].converter)),
+  },
+  {
+    name: 'spread: 10,000 samples of a sample design (margins only, one core)',
+    targetUs: 1_000_000,
+    batch: 1,
+    batches: 9,
+    warmup: 2,
+    run: (i) => runSpread(requests[i % requests.length], defaultRange(requests[i % requests.length].converter), { samples: 10_000, seed: i }),
+  },
 ];
 
 const main = () => {
   const load = os.loadavg()[0];
   console.log(`Phasewright engine benchmark — node ${process.version}, ${os.cpus().length} cores, load average ${load.toFixed(1)}`);
   if (load > os.cpus().length) console.log('  (the machine is busy: medians include other processes; "best" is closer to the engine alone)');
-  for (const c of BENCH_CASES) {
-    const { medianUs, p90Us, bestUs } = measure(c);
+  // `npm run bench -- spread` runs only the cases whose name contains "spread".
+  const only = process.argv[2];
+  for (const c of BENCH_CASES.filter((b) => !only || b.name.includes(only))) {
+    const { medianUs, p90Us, bestUs } = measure(c, c.batches, c.warmup);
     const verdict =
       c.targetUs === undefined ? 'reference' : `target ${c.targetUs} µs: ${medianUs <= c.targetUs ? 'within target' : 'ABOVE target'}`;
     console.log(`- ${c.name}\n    median ${medianUs.toFixed(1)} µs (best ${bestUs.toFixed(1)}, p90 ${p90Us.toFixed(1)}); ${verdict}`);
