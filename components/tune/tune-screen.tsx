@@ -19,6 +19,11 @@ import { analyzeCompensator, analyzeCompensatorParts, prepareStage } from './tun
 import { TunePlot } from './tune-plot';
 import { useBenchOverlay } from '@/lib/queries/bench';
 import { useLeaveGuard } from './use-leave-guard';
+import { withRange, type MarginTargets, type OperatingRange } from '@/lib/engine/range';
+import { cornerTraces } from '@/components/range/corner-traces';
+import { CornerViewToggle, RangePanel } from '@/components/range/range-panel';
+import { useRangeAnalysis, type DesignInput } from '@/components/range/use-range-analysis';
+import { WorstReadout } from '@/components/range/worst-readout';
 
 export type TuneMode = 'edit' | 'role-read-only' | 'earlier-revision';
 
@@ -64,8 +69,10 @@ function Card({ title, children, className = '', aside }: { title: string; child
 export function TuneScreen({ designId, initialInput, savedInput, editFrom = null, shownRevision, latestRevision, mode, role, revisions }: TuneScreenProps) {
   const readOnly = mode !== 'edit';
   const bench = useBenchOverlay(designId); // Bench data overlay (Handoff, issue 6)
-  const [input, setInput] = useState<AnalyzeRequest>(initialInput);
-  const [saved, setSaved] = useState({ json: stableJson(savedInput ?? initialInput), revision: shownRevision });
+  // The operating range is written out (defaults filled) so every save stores it; an older
+  // revision without one opens with the defaults and is not counted as changed.
+  const [input, setInput] = useState<DesignInput>(() => withRange(initialInput));
+  const [saved, setSaved] = useState(() => ({ json: stableJson(withRange(savedInput ?? initialInput)), revision: shownRevision }));
   const [from, setFrom] = useState(editFrom);
   const [stageValid, setStageValid] = useState(true);
   const [dragging, setDragging] = useState<string | null>(null);
@@ -88,6 +95,14 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
   const shape = useMemo(() => shapeFromParts(input.compensator), [input.compensator]);
   const crossoverHz = loop?.ok ? loop.value.margins.crossoverHz : null;
   const handles = useMemo(() => handlesOf(shape, crossoverHz), [shape, crossoverHz]);
+
+  const onRangeChange = useCallback((next: { range: OperatingRange; targets: MarginTargets }) => setInput((i) => ({ ...i, ...next })), []);
+  const across = useRangeAnalysis(input, dragging !== null || !prepared.ok);
+  const cornerResult = across.corners?.ok ? across.corners.value : null;
+  const rangeTraces = useMemo(
+    () => (cornerResult && prepared.ok ? cornerTraces(prepared.value.grid.f as number[], cornerResult.corners, across.view, cornerResult.worst.phaseMarginDeg.corner) : undefined),
+    [cornerResult, prepared, across.view],
+  );
 
   const dirty = !readOnly && (stableJson(input) !== saved.json || !stageValid);
   useLeaveGuard(dirty);
@@ -232,6 +247,8 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
               onDragEnd={onDragEnd}
               onStep={onStep}
               bench={bench}
+              rangeTraces={rangeTraces}
+              rangeToggle={cornerResult && <CornerViewToggle view={across.view} onChange={across.setView} count={cornerResult.corners.length} />}
             />
           ) : (
             <div className="grid h-[480px] place-items-center text-center text-sm text-slate-500" data-testid="plot-unavailable">
@@ -254,13 +271,18 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
         <div className="space-y-4">
           <Card title="Margins">
             {result ? (
-              <MarginsReadout margins={result.margins} phaseAtHalfFswDeg={result.phaseAtHalfFswDeg} fsw={input.converter.fsw} snapped={parts?.snappedMargins ?? null} />
+              <>
+                <MarginsReadout margins={result.margins} phaseAtHalfFswDeg={result.phaseAtHalfFswDeg} fsw={input.converter.fsw} snapped={parts?.snappedMargins ?? null} />
+                <div className="mt-3 border-t border-slate-200 pt-3">
+                  <WorstReadout nominal={result.margins} corners={cornerResult} spread={across.spread.status === 'done' && !across.stale ? across.spread.result : null} targets={input.targets} />
+                </div>
+              </>
             ) : (
               <p className="text-sm text-slate-500">—</p>
             )}
           </Card>
-          <Card title="Checks" aside={result && <span className="text-xs text-slate-500">{result.checks.length} raised</span>}>
-            {result ? <ChecksList checks={result.checks} /> : <p className="text-sm text-slate-500">Checks appear once the loop can be analysed.</p>}
+          <Card title="Checks" aside={result && <span className="text-xs text-slate-500">{result.checks.length + (across.corners?.ok ? across.corners.checks.length : 0)} raised</span>}>
+            {result ? <ChecksList checks={across.corners?.ok ? [...result.checks, ...across.corners.checks] : result.checks} /> : <p className="text-sm text-slate-500">Checks appear once the loop can be analysed.</p>}
           </Card>
         </div>
       </div>
@@ -301,6 +323,19 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
           )}
         </Card>
       </div>
+
+      <RangePanel
+        range={input.range}
+        targets={input.targets}
+        seriesTol={across.seriesTol}
+        readOnly={readOnly}
+        corners={across.corners}
+        spread={across.spread}
+        stale={across.stale}
+        onChange={onRangeChange}
+        onRun={across.runSpread}
+        onCancel={across.cancelSpread}
+      />
     </div>
   );
 }

@@ -6,7 +6,7 @@
  * single analysis with the same values.
  */
 import { analyze } from './analyze';
-import { describeCorner, enumerateCorners, rangeIssues, stageAtCorner, type CornerValues, type OperatingRange } from './range';
+import { DEFAULT_TARGETS, describeCorner, enumerateCorners, rangeIssues, stageAtCorner, type CornerValues, type MarginTargets, type OperatingRange } from './range';
 import { validateRequest } from './validate';
 import { EngineInputError, type AnalyzeRequest, type BodeTrace, type Check, type FieldIssue } from './types';
 
@@ -42,13 +42,7 @@ export interface CornersResult {
   };
 }
 
-export interface MarginTargets {
-  phaseMarginDeg: number;
-  gainMarginDb: number;
-}
-
-/** PM ≥ 45°, GM ≥ 10 dB (common practice). */
-export const DEFAULT_TARGETS: MarginTargets = { phaseMarginDeg: 45, gainMarginDb: 10 };
+export { DEFAULT_TARGETS, type MarginTargets } from './range';
 
 /** Paths of a stage problem at a corner, moved to the range field that made the corner. */
 const cornerPath = (path: string, k: CornerValues, range: OperatingRange): string => {

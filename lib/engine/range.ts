@@ -147,3 +147,33 @@ export const describeCorner = (cv: ConverterInput, range: OperatingRange, k: Cor
   if (rc) words.push(rc === 'lo' ? 'ESR low' : 'ESR high');
   return words.length > 0 ? words.join(', ') : 'nominal';
 };
+
+/** Margin targets a design is judged against (the spread's share, the worst-case checks). */
+export interface MarginTargets {
+  phaseMarginDeg: number;
+  gainMarginDb: number;
+}
+
+/** PM ≥ 45°, GM ≥ 10 dB (common practice). */
+export const DEFAULT_TARGETS: MarginTargets = { phaseMarginDeg: 45, gainMarginDb: 10 };
+
+/**
+ * What a revision stores beside the analysis request: its operating range and margin
+ * targets. Both optional, so revisions saved before ranges existed keep loading.
+ */
+export interface RangeFields {
+  range?: OperatingRange;
+  targets?: MarginTargets;
+}
+
+/** The stored range, or the defaults for the design's stage. */
+export const rangeOf = (input: { converter: ConverterInput } & RangeFields): OperatingRange => input.range ?? defaultRange(input.converter);
+
+export const targetsOf = (input: RangeFields): MarginTargets => input.targets ?? DEFAULT_TARGETS;
+
+/** The input with its range and targets written out (defaults filled), as a revision saves it. */
+export const withRange = <T extends { converter: ConverterInput } & RangeFields>(input: T): T & Required<RangeFields> => ({
+  ...input,
+  range: rangeOf(input),
+  targets: targetsOf(input),
+});

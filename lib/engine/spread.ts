@@ -13,9 +13,8 @@
  * whatever parts the compensator type uses.
  */
 import { loopMargins, loopPlant, loopPlantTransfer } from './analyze';
-import { DEFAULT_TARGETS, type MarginTargets } from './corners';
 import { createRandom, type Random } from './random';
-import { partsTolerances, rangeIssues, type OperatingRange } from './range';
+import { DEFAULT_TARGETS, partsTolerances, rangeIssues, type MarginTargets, type OperatingRange } from './range';
 import { withLossDefaults } from './steady-state';
 import { validateRequest } from './validate';
 import { EngineInputError, type AnalyzeRequest, type CompensatorInput } from './types';

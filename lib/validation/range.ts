@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { parseAnalyzeRequest, zodIssues } from '@/lib/validation/analyze';
+import { analyzeRequestSchema, parseAnalyzeRequest, zodIssues } from '@/lib/validation/analyze';
 import type { AnalyzeRequest, FieldIssue } from '@/lib/engine/types';
 
 /**
@@ -64,3 +64,9 @@ export function parseWithAnalyze<S extends z.ZodType>(
   if (a.ok && e.success) return { ok: true, request: a.data, extra: e.data };
   return { ok: false, issues: [...(a.ok ? [] : a.issues), ...(e.success ? [] : zodIssues(e.error))] };
 }
+
+/** A revision's input: the analysis request plus its operating range and margin targets (both optional). */
+export const designInputSchema = analyzeRequestSchema.extend({
+  range: rangeSchema.optional(),
+  targets: targetsSchema.optional(),
+});
