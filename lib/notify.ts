@@ -22,6 +22,7 @@ const label = (r: RevisionMailRef) => `${r.designName} r${r.number}`;
 export async function notifyReviewRequested(m: {
   to: { email: string; name: string };
   by: string;
+  teamId: number;
   revision: RevisionMailRef;
   message: string;
   /** The worst case across the operating range, one sentence. */
@@ -29,6 +30,7 @@ export async function notifyReviewRequested(m: {
 }) {
   return sendMail({
     to: m.to.email,
+    teamId: m.teamId,
     subject: `Review requested: ${label(m.revision)}`,
     paragraphs: [`Hello ${m.to.name},`, `${m.by} asks you to review ${label(m.revision)} and sign it off.`, ...(m.worstCase ? [m.worstCase] : [])],
     quote: m.message || undefined,
@@ -39,6 +41,7 @@ export async function notifyReviewRequested(m: {
 export async function notifyDecision(m: {
   to: { email: string; name: string };
   by: string;
+  teamId: number;
   revision: RevisionMailRef;
   decision: 'approve' | 'request-changes';
   message: string;
@@ -46,6 +49,7 @@ export async function notifyDecision(m: {
   const approved = m.decision === 'approve';
   return sendMail({
     to: m.to.email,
+    teamId: m.teamId,
     subject: `${approved ? 'Approved' : 'Changes requested'}: ${label(m.revision)}`,
     paragraphs: [
       `Hello ${m.to.name},`,
@@ -58,9 +62,10 @@ export async function notifyDecision(m: {
   });
 }
 
-export async function notifyAddedToTeam(m: { to: string; name: string; teamName: string; role: string; by: string }) {
+export async function notifyAddedToTeam(m: { to: string; name: string; teamId: number; teamName: string; role: string; by: string }) {
   return sendMail({
     to: m.to,
+    teamId: m.teamId,
     subject: `You were added to ${m.teamName} on Phasewright`,
     paragraphs: [`Hello ${m.name},`, `${m.by} added you to the team ${m.teamName} as ${m.role}.`],
     link: { label: 'Open Phasewright', url: `${await appBaseUrl()}/designs` },
