@@ -380,7 +380,13 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
         <div className="space-y-4">
           <Card title="Margins">
             {result ? (
-              <MarginsReadout margins={result.margins} phaseAtHalfFswDeg={result.phaseAtHalfFswDeg} fsw={input.converter.fsw} snapped={parts?.snappedMargins ?? null} />
+              <MarginsReadout
+                margins={result.margins}
+                phaseAtHalfFswDeg={result.phaseAtHalfFswDeg}
+                fsw={input.converter.fsw}
+                snapped={parts?.snappedMargins ?? null}
+                crossoverAboveHz={result.bode.loop.magDb[result.bode.loop.magDb.length - 1] > 0 ? result.bode.f[result.bode.f.length - 1] : null}
+              />
             ) : (
               <p className="text-sm text-slate-500">—</p>
             )}
