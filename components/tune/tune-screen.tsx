@@ -398,7 +398,13 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
           <Card title="Margins">
             {result ? (
               <>
-                <MarginsReadout margins={result.margins} phaseAtHalfFswDeg={result.phaseAtHalfFswDeg} fsw={input.converter.fsw} snapped={parts?.snappedMargins ?? null} />
+                <MarginsReadout
+                  margins={result.margins}
+                  phaseAtHalfFswDeg={result.phaseAtHalfFswDeg}
+                  fsw={input.converter.fsw}
+                  snapped={parts?.snappedMargins ?? null}
+                  crossoverAboveHz={result.bode.loop.magDb[result.bode.loop.magDb.length - 1] > 0 ? result.bode.f[result.bode.f.length - 1] : null}
+                />
                 <div className="mt-3 border-t border-slate-200 pt-3">
                   <WorstReadout nominal={result.margins} corners={cornerResult} spread={across.spread.status === 'done' && !across.stale ? across.spread.result : null} targets={input.targets} />
                 </div>
