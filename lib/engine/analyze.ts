@@ -135,7 +135,11 @@ export const evaluateLoopGain = (
  * (set by vref unless given), so Rb is filled in before the transfer is built.
  */
 export const loopCompensatorTransfer = (prepared: PreparedPlant, comp: CompensatorInput): SectionedTransfer =>
-  compensatorTransfer(comp.opamp && comp.amplifier !== 'transconductance' && comp.rb === undefined ? { ...comp, rb: divider(prepared, comp) } : comp);
+  compensatorTransfer(withLoopDivider(prepared, comp));
+
+/** The compensator with the divider's Rb filled in where the loop needs it (a finite op-amp). */
+export const withLoopDivider = (prepared: PreparedPlant, comp: CompensatorInput): CompensatorInput =>
+  comp.opamp && comp.amplifier !== 'transconductance' && comp.rb === undefined ? { ...comp, rb: divider(prepared, comp) } : comp;
 
 /** Loop gain on the grid (plant sweep reused) and its analytic evaluator on the same branch. */
 const sweepLoop = (prepared: PreparedPlant, comp: SectionedTransfer) => {
@@ -173,11 +177,38 @@ const loopWork = { re: [] as number[], im: [] as number[] };
  */
 export const marginsForCompensator = (prepared: PreparedPlant, comp: CompensatorInput): Margins => {
   checkCompensator(comp);
-  const loop = multiplyTransfers(prepared.plantTransfer, loopCompensatorTransfer(prepared, comp));
-  const { f } = prepared.grid;
-  const t = sweepComplex(loop, prepared.grid, loopWork);
+  return loopMargins(prepared.plantTransfer, prepared.grid, withLoopDivider(prepared, comp));
+};
+
+/**
+ * The margins of marginsForCompensator from the plant transfer alone (the tolerance spread's
+ * hot path: no operating-point summaries, no plant trace). Assumes validated parts; a finite
+ * op-amp's Rb is read from comp.rb (see withLoopDivider).
+ */
+export const loopMargins = (plantTransfer: SectionedTransfer, grid: Grid, comp: CompensatorInput): Margins => {
+  const loop = multiplyTransfers(plantTransfer, compensatorTransfer(comp));
+  const { f } = grid;
+  const t = sweepComplex(loop, grid, loopWork);
   return computeMarginsFromComplex(f, t.re, t.im, transferEvaluator(loop, f[0]));
 };
+
+/**
+ * The plant of the loop (the mode's control-to-output, control.ts) and the sweep grid, and
+ * nothing else: what loopMargins needs per sample of the spread. The same model preparePlant
+ * builds. Assumes a validated stage.
+ */
+export const loopPlant = (req: StageRequest): { plantTransfer: SectionedTransfer; grid: Grid } => {
+  const converter = withLossDefaults(req.converter);
+  const sweep = req.sweep ?? defaultSweep(converter.fsw);
+  return {
+    plantTransfer: buildControlPlant(converter, req.modulator).plantTransfer,
+    grid: makeGrid(logSweep(sweep.fStart, sweep.fStop, sweep.points)),
+  };
+};
+
+/** The plant transfer of a stage (validated) on a grid already made: one sample of the spread. */
+export const loopPlantTransfer = (req: StageRequest): SectionedTransfer =>
+  buildControlPlant(withLossDefaults(req.converter), req.modulator).plantTransfer;
 
 /**
  * Fast path for the Tune screen: loop, margins, Bode traces and checks for a compensator on
