@@ -13,7 +13,16 @@ const API = path.resolve(import.meta.dirname, '../../app/api');
 
 // Writes nothing on the server's data, or only the caller's own session or account
 // (password, personal API tokens, accepting an invitation addressed to them).
-const READ_ONLY = new Set(['/api/analyze', '/api/session/team', '/api/account/password', '/api/account/tokens', '/api/account/tokens/[id]', '/api/invitations/accept']);
+const READ_ONLY = new Set([
+  '/api/analyze',
+  '/api/analyze/corners',
+  '/api/analyze/spread',
+  '/api/session/team',
+  '/api/account/password',
+  '/api/account/tokens',
+  '/api/account/tokens/[id]',
+  '/api/invitations/accept',
+]);
 
 function routeFiles(dir: string): string[] {
   return fs.readdirSync(dir, { withFileTypes: true }).flatMap((e) => {
