@@ -130,7 +130,8 @@ describe('sign-in limits', () => {
     console.log(
       `[signin] GET ${url} p50/p99: idle ${percentile(idle, 50).toFixed(1)}/${idleP99.toFixed(1)} ms; during 16 parallel failed sign-ins ${percentile(busy, 50).toFixed(1)}/${busyP99.toFixed(1)} ms (${(busyP99 / idleP99).toFixed(2)}× idle; ${failed} failed sign-ins meanwhile)`,
     );
-    // Before: ~3.7 s under the same flood. The 3× target is for the bench; a shared test machine gets room.
-    expect(busyP99).toBeLessThan(1500);
+    // Before: ~3.7 s under the same flood (about 90× idle). The target is 3× idle; a shared, busy
+    // test machine gets a floor of 1.5 s so its own noise does not fail the test.
+    expect(busyP99).toBeLessThan(Math.max(3 * idleP99, 1500));
   });
 });

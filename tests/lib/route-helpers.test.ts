@@ -27,7 +27,8 @@ describe('route handlers use the shared helpers', () => {
     const handlers = [...src.matchAll(/export\s+(?:const|async function|function)\s+(GET|POST|PUT|PATCH|DELETE)\b\s*=?\s*([^\n]*)/g)];
     it(`${file}: every handler is wrapped in withUser`, () => {
       expect(handlers.length).toBeGreaterThan(0);
-      for (const h of handlers) expect(h[2], `${h[1]} in ${file}`).toMatch(/^withUser\b/);
+      // withOptionalUser: the same rules for a route open without a session (accepting an invitation).
+      for (const h of handlers) expect(h[2], `${h[1]} in ${file}`).toMatch(/^with(Optional)?User\b/);
     });
     it(`${file}: reads JSON only through parseJson`, () => {
       expect(src).not.toMatch(/\breq(?:uest)?\.json\(\)/);
