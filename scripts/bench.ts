@@ -1,6 +1,10 @@
 /**
- * Engine benchmark (`npm run bench`): median wall time of named cases, printed with targets.
- * Not a test: nothing fails on a slow machine. Add a case by pushing to BENCH_CASES.
+ * `npm run bench`: printed timings with their targets, in sections —
+ *   engine   median wall time of named engine cases (add one by pushing to BENCH_CASES);
+ *   load     autocannon against the production build (scripts/bench/load.ts);
+ *   browser  Chromium, cold cache: first drawn loop on Tune, JavaScript per page (scripts/bench/browser.ts).
+ * `npm run bench -- --only load` (or engine, browser; comma-separated) runs some sections.
+ * Not a test: nothing fails on a slow machine.
  */
 import os from 'node:os';
 import { analyze, analyzeLoop, preparePlant } from '@/lib/engine/analyze';
@@ -8,6 +12,8 @@ import { partsFromShape, shapeFromParts } from '@/lib/engine/compensator';
 import { SAMPLE_DESIGNS } from '@/lib/engine/samples';
 import type { CompensatorShape } from '@/lib/engine/types';
 import { tuneDragCase } from '@/components/tune/drag-bench';
+import { loadSection, printLoad } from './bench/load';
+import { browserSection, printBrowser } from './bench/browser';
 
 export interface BenchCase {
   name: string;
@@ -94,10 +100,21 @@ export const BENCH_CASES: BenchCase[] = [
   tuneDragCase(),
 ];
 
-const main = () => {
-  const load = os.loadavg()[0];
-  console.log(`Phasewright engine benchmark — node ${process.version}, ${os.cpus().length} cores, load average ${load.toFixed(1)}`);
-  if (load > os.cpus().length) console.log('  (the machine is busy: medians include other processes; "best" is closer to the engine alone)');
+const SECTIONS = ['engine', 'load', 'browser'] as const;
+type Section = (typeof SECTIONS)[number];
+
+function chosenSections(argv: string[]): Section[] {
+  const i = argv.indexOf('--only');
+  const raw = i >= 0 ? argv[i + 1] : argv.find((a) => a.startsWith('--only='))?.slice(7);
+  if (!raw) return [...SECTIONS];
+  const wanted = raw.split(',').map((s) => s.trim());
+  const bad = wanted.filter((w) => !SECTIONS.includes(w as Section));
+  if (bad.length) throw new Error(`unknown section ${bad.join(', ')}: choose from ${SECTIONS.join(', ')}`);
+  return SECTIONS.filter((s) => wanted.includes(s));
+}
+
+const engineSection = () => {
+  console.log('\nEngine');
   for (const c of BENCH_CASES) {
     const { medianUs, p90Us, bestUs } = measure(c);
     const verdict =
@@ -107,4 +124,19 @@ const main = () => {
   if (sink === undefined) console.log('(nothing computed)');
 };
 
-main();
+const main = async () => {
+  const sections = chosenSections(process.argv.slice(2));
+  const load = os.loadavg()[0];
+  console.log(`Phasewright benchmark (${sections.join(', ')}) — node ${process.version}, ${os.cpus().length} cores, load average ${load.toFixed(1)}`);
+  if (load > os.cpus().length) console.log('  (the machine is busy: medians include other processes; "best" is closer to the engine alone)');
+  const t0 = Date.now();
+  if (sections.includes('engine')) engineSection();
+  if (sections.includes('load')) printLoad(await loadSection());
+  if (sections.includes('browser')) printBrowser(await browserSection());
+  console.log(`\nBench took ${((Date.now() - t0) / 1000).toFixed(0)} s.`);
+};
+
+main().catch((err) => {
+  console.error(err);
+  process.exit(1);
+});

@@ -56,8 +56,8 @@ export interface BodeContent {
 }
 
 export const BENCH_GREY = '#6b7280';
-const GUIDE = '#94a3b8';
-const GRID = '#e2e8f0';
+export const GUIDE = '#94a3b8';
+export const GRID = '#e2e8f0';
 
 /** Range holding the values (and `must`), widened to whole `step`s plus `pad`, so no tick sits on an edge. */
 function niceRange(values: Iterable<number>, step: number, pad: number, fallback: [number, number], must: number): [number, number] {
@@ -97,7 +97,7 @@ export function computeRanges({ f, series, bench = [] }: BodeContent): Ranges {
 }
 
 /** Ticks at 1, 2, 5 × 10^k inside the range; only the decades carry a label (10 Hz, 1 kHz, …). */
-function frequencyTicks(r: Ranges): { tickvals: number[]; ticktext: string[] } {
+export function frequencyTicks(r: Ranges): { tickvals: number[]; ticktext: string[] } {
   const tickvals: number[] = [];
   const ticktext: string[] = [];
   for (let e = Math.floor(r.x[0]); e <= Math.ceil(r.x[1]); e++) {
