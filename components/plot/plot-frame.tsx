@@ -53,12 +53,12 @@ export function PlotFrame({ geometry: g }: { geometry: PlotGeometry }) {
       </g>
       {tickvals.map((v, i) =>
         ticktext[i] ? (
-          <text key={v} x={g.hzToX(v)} y={g.phaseBottom + 16} textAnchor="middle">
+          <text key={v} x={g.hzToX(v)} y={g.phaseBottom + 13} textAnchor="middle">
             {ticktext[i]}
           </text>
         ) : null,
       )}
-      <text fontSize={11} x={(g.left + g.right) / 2} y={g.height - 6} textAnchor="middle">
+      <text fontSize={11} x={(g.left + g.right) / 2} y={g.phaseBottom + 28} textAnchor="middle">
         Frequency
       </text>
     </svg>

@@ -42,8 +42,9 @@ async function measurePage(browser: Browser, url: string, cookies: Parameters<Br
       (async () => {
         const sizes = await req.sizes();
         const res = await req.response();
-        const text = res ? (await res.body()).toString('utf8', 0, 400) : '';
-        return { bytes: sizes.responseBodySize, plotly: /plotly\.js v\d/.test(text) || req.url().includes('plotly') };
+        // Only Plotly's chunk names the global it defines.
+        const body = res ? await res.body() : Buffer.alloc(0);
+        return { bytes: sizes.responseBodySize, plotly: body.includes('Plotly') };
       })(),
     );
   });
