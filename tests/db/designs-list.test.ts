@@ -64,7 +64,7 @@ describe('listDesignsPage', () => {
     const id = listDesignsPage(db, team, q({ q: 'Rail 007' })).designs[0].id;
     const r1 = createRevision(db, { teamId: team, designId: id, baseNumber: null, input: {}, summary: {}, authorId: designer, note: '' });
     expect(listDesignsPage(db, team, q({ status: 'draft' })).designs.map((d) => [d.id, d.latestRevision])).toEqual([[id, 1]]);
-    submitForReview(db, { teamId: team, designId: id, revisionId: r1.id, number: 1 }, { actorId: designer, reviewerId: reviewer, message: '', isReviewer: () => true });
+    submitForReview(db, { teamId: team, designId: id, revisionId: r1.id, number: 1 }, { actorId: designer, reviewerId: reviewer, message: '' });
     expect(listDesignsPage(db, team, q({ status: 'in-review' })).designs[0]).toMatchObject({ id, signoffState: 'in-review' });
     createRevision(db, { teamId: team, designId: id, baseNumber: 1, input: {}, summary: {}, authorId: designer, note: '' });
     expect(listDesignsPage(db, team, q({ status: 'draft' })).designs[0]).toMatchObject({ id, latestRevision: 2, signoffState: 'draft' });
