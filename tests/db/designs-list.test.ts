@@ -9,6 +9,7 @@ import { createDesign, createRevision, createTeam, createUser, listDesignsPage, 
 import type { Db } from '@/db/connection';
 import { designs, memberships } from '@/db/schema';
 import { DESIGN_SORTS, designListQuerySchema, type DesignListQuery } from '@/lib/validation/design';
+import { sampleRevisionBody } from '../support/sample-revision';
 import { tempDb } from '../support/temp-db';
 
 let db: Db;
@@ -62,11 +63,11 @@ describe('listDesignsPage', () => {
 
   it('mirrors the latest revision and its sign-off state', () => {
     const id = listDesignsPage(db, team, q({ q: 'Rail 007' })).designs[0].id;
-    const r1 = createRevision(db, { teamId: team, designId: id, baseNumber: null, input: {}, summary: {}, authorId: designer, note: '' });
+    const r1 = createRevision(db, { teamId: team, designId: id, baseNumber: null, ...sampleRevisionBody(), authorId: designer, note: '' });
     expect(listDesignsPage(db, team, q({ status: 'draft' })).designs.map((d) => [d.id, d.latestRevision])).toEqual([[id, 1]]);
     submitForReview(db, { teamId: team, designId: id, revisionId: r1.id, number: 1 }, { actorId: designer, reviewerId: reviewer, message: '' });
     expect(listDesignsPage(db, team, q({ status: 'in-review' })).designs[0]).toMatchObject({ id, signoffState: 'in-review' });
-    createRevision(db, { teamId: team, designId: id, baseNumber: 1, input: {}, summary: {}, authorId: designer, note: '' });
+    createRevision(db, { teamId: team, designId: id, baseNumber: 1, ...sampleRevisionBody(), authorId: designer, note: '' });
     expect(listDesignsPage(db, team, q({ status: 'draft' })).designs[0]).toMatchObject({ id, latestRevision: 2, signoffState: 'draft' });
     expect(listDesignsPage(db, team, q({ sort: 'latestRevision', dir: 'desc' })).designs[0].id).toBe(id);
   });
