@@ -14,7 +14,7 @@ import {
   readDesignListQuery,
   type DesignListQuery,
   type DesignSort,
-} from '@/lib/validation/design';
+} from '@/lib/designs-list-query';
 import { SignoffBadge } from './signoff-badge';
 
 const COLUMNS: { key: DesignSort; label: string }[] = [

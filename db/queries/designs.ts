@@ -2,7 +2,7 @@ import { and, eq, sql } from 'drizzle-orm';
 import type { Db } from '../connection';
 import { designs, type SignoffState } from '../schema';
 import { writeAudit } from './audit';
-import { DESIGN_PAGE_SIZE, defaultSortDir, type DesignListQuery, type DesignSort } from '@/lib/validation/design';
+import { DESIGN_PAGE_SIZE, defaultSortDir, type DesignListQuery, type DesignSort } from '@/lib/designs-list-query';
 
 export type Topology = 'buck' | 'boost' | 'buck-boost';
 

@@ -30,17 +30,14 @@ export const designUpdateSchema = designCreateSchema
 export type DesignCreate = z.infer<typeof designCreateSchema>;
 export type DesignUpdate = z.infer<typeof designUpdateSchema>;
 
-/** The designs list: 100 rows a page, filtered and sorted on the server. */
-export const DESIGN_PAGE_SIZE = 100;
-export const DESIGN_SORTS = ['name', 'topology', 'latestRevision', 'signoffState', 'updatedAt'] as const;
-export type DesignSort = (typeof DESIGN_SORTS)[number];
-/** Sign-off states (as db/schema's SIGNOFF_STATES) plus 'unsaved' for a design with no revision. */
-export const DESIGN_STATUSES = ['unsaved', 'draft', 'in-review', 'approved', 'changes-requested'] as const;
+import { DESIGN_SORTS, DESIGN_STATUSES, entriesOf, type DesignListParams } from '@/lib/designs-list-query';
+
+export { DESIGN_PAGE_SIZE, DESIGN_SORTS, DESIGN_STATUSES, defaultSortDir, designListSearch, readDesignListQuery } from '@/lib/designs-list-query';
+export type { DesignListQuery, DesignSort } from '@/lib/designs-list-query';
 
 /**
- * GET /api/designs and the /designs page's URL: `q` (name, description or owner contains),
- * `topology`, `status`, `sort`, `dir` (default: newest first for updatedAt, else ascending),
- * `page` (from 1). Absent or empty means "all" / the default.
+ * GET /api/designs's parameters, strictly (400 naming the parameter); the page reads the same
+ * parameters leniently with readDesignListQuery (lib/designs-list-query.ts, no zod on the client).
  */
 export const designListQuerySchema = z.object({
   q: z.string().trim().max(200, 'q must be at most 200 characters').default(''),
@@ -50,42 +47,7 @@ export const designListQuerySchema = z.object({
   dir: z.enum(['asc', 'desc'], { error: 'dir must be asc or desc' }).optional(),
   page: z.coerce.number({ error: 'page must be a number' }).int('page must be a whole number').min(1, 'page starts at 1').default(1),
 });
-export type DesignListQuery = z.infer<typeof designListQuerySchema>;
 
-const entries = (params: URLSearchParams | Record<string, string | string[] | undefined>) => {
-  const out: Record<string, string> = {};
-  const it = params instanceof URLSearchParams ? params.entries() : Object.entries(params);
-  for (const [k, v] of it) {
-    const one = Array.isArray(v) ? v[0] : v;
-    if (one !== undefined && one !== '') out[k] = one;
-  }
-  return out;
-};
-
-/** Strict parse for the API (400 naming the parameter). */
-export function parseDesignListQuery(params: URLSearchParams | Record<string, string | string[] | undefined>) {
-  return designListQuerySchema.safeParse(entries(params));
-}
-
-/** Lenient parse for the page: a parameter that does not fit falls back to its default. */
-export function readDesignListQuery(params: URLSearchParams | Record<string, string | string[] | undefined>): DesignListQuery {
-  const raw = entries(params);
-  const r = designListQuerySchema.safeParse(raw);
-  if (r.success) return r.data;
-  for (const issue of r.error.issues) delete raw[String(issue.path[0])];
-  return designListQuerySchema.parse(raw);
-}
-
-export const defaultSortDir = (sort: DesignSort): 'asc' | 'desc' => (sort === 'updatedAt' ? 'desc' : 'asc');
-
-/** The query as URL search params, leaving out defaults so the plain /designs URL stays plain. */
-export function designListSearch(q: DesignListQuery): string {
-  const p = new URLSearchParams();
-  if (q.q) p.set('q', q.q);
-  if (q.topology !== 'all') p.set('topology', q.topology);
-  if (q.status !== 'all') p.set('status', q.status);
-  if (q.sort !== 'updatedAt') p.set('sort', q.sort);
-  if (q.dir && q.dir !== defaultSortDir(q.sort)) p.set('dir', q.dir);
-  if (q.page > 1) p.set('page', String(q.page));
-  return p.toString();
+export function parseDesignListQuery(params: DesignListParams) {
+  return designListQuerySchema.safeParse(entriesOf(params));
 }

@@ -2,7 +2,7 @@ import type { Metadata } from 'next';
 import { getDb } from '@/db/client';
 import { countDesigns, listDesignsPage } from '@/db/queries';
 import { can, requireUser } from '@/lib/auth';
-import { designListSearch, readDesignListQuery } from '@/lib/validation/design';
+import { designListSearch, readDesignListQuery } from '@/lib/designs-list-query';
 import { DesignsTable } from '@/components/designs/designs-table';
 import { NewDesignButton } from '@/components/designs/new-design-button';
 
