@@ -1,9 +1,10 @@
 /**
  * `npm run bench`: printed timings with their targets, in sections —
  *   engine   median wall time of named engine cases (add one by pushing to BENCH_CASES);
+ *   list     the designs list's query on 10 vs 10,000 designs (scripts/bench/list.ts);
  *   load     autocannon against the production build (scripts/bench/load.ts);
  *   browser  Chromium, cold cache: first drawn loop on Tune, JavaScript per page (scripts/bench/browser.ts).
- * `npm run bench -- --only load` (or engine, browser; comma-separated) runs some sections.
+ * `npm run bench -- --only load` (or engine, list, browser; comma-separated) runs some sections.
  * Not a test: nothing fails on a slow machine.
  */
 import os from 'node:os';
@@ -16,6 +17,7 @@ import type { CompensatorShape } from '@/lib/engine/types';
 import { tuneDragCase } from '@/components/tune/drag-bench';
 import { loadSection, printLoad } from './bench/load';
 import { browserSection, printBrowser } from './bench/browser';
+import { listSection, printList } from './bench/list';
 
 export interface BenchCase {
   name: string;
@@ -137,7 +139,7 @@ export const BENCH_CASES: BenchCase[] = [
   switchingCase(),
 ];
 
-const SECTIONS = ['engine', 'load', 'browser'] as const;
+const SECTIONS = ['engine', 'list', 'load', 'browser'] as const;
 type Section = (typeof SECTIONS)[number];
 
 function chosenSections(argv: string[]): Section[] {
@@ -168,6 +170,7 @@ const main = async () => {
   if (load > os.cpus().length) console.log('  (the machine is busy: medians include other processes; "best" is closer to the engine alone)');
   const t0 = Date.now();
   if (sections.includes('engine')) engineSection();
+  if (sections.includes('list')) printList(listSection());
   if (sections.includes('load')) printLoad(await loadSection());
   if (sections.includes('browser')) printBrowser(await browserSection());
   console.log(`\nBench took ${((Date.now() - t0) / 1000).toFixed(0)} s.`);

@@ -33,12 +33,14 @@ const toListItem = (r: ListRow): DesignListItem => ({
 /** Every design of one team, newest change first (no paging: seed and tests). */
 export function listDesigns(db: Db, teamId: number): DesignListItem[] {
   return db
-    .all<ListRow>(sql`SELECT ${LIST_COLUMNS} FROM designs d JOIN users u ON u.id = d.owner_id
+    .all<ListRow>(sql`SELECT ${LIST_COLUMNS} FROM designs d CROSS JOIN users u ON u.id = d.owner_id
         WHERE d.team_id = ${teamId} ORDER BY d.updated_at DESC, d.id DESC`)
     .map(toListItem);
 }
 
 // Each sort reads one index of migration designs_list_columns; the row id breaks ties.
+// CROSS JOIN keeps designs as the outer loop (SQLite does not reorder it): with few users the
+// planner would otherwise start from users and sort the whole team for every page.
 const ORDER_COLUMN: Record<DesignSort, string> = {
   name: 'd.name COLLATE NOCASE',
   topology: 'd.topology',
@@ -70,11 +72,13 @@ export function listDesignsPage(db: Db, teamId: number, query: DesignListQuery, 
     where.push(sql`(d.name LIKE ${like} ESCAPE '\\' OR d.description LIKE ${like} ESCAPE '\\' OR u.name LIKE ${like} ESCAPE '\\')`);
   }
   const cond = sql.join(where, sql` AND `);
-  const total = db.get<{ n: number }>(sql`SELECT count(*) AS n FROM designs d JOIN users u ON u.id = d.owner_id WHERE ${cond}`)?.n ?? 0;
+  // Every design has an owner, so the count needs the users join only to match the owner's name.
+  const from = query.q ? sql`designs d CROSS JOIN users u ON u.id = d.owner_id` : sql`designs d`;
+  const total = db.get<{ n: number }>(sql`SELECT count(*) AS n FROM ${from} WHERE ${cond}`)?.n ?? 0;
   const lastPage = Math.max(1, Math.ceil(total / pageSize));
   const page = Math.min(query.page, lastPage);
   const dir = sql.raw((query.dir ?? defaultSortDir(query.sort)) === 'asc' ? 'ASC' : 'DESC');
-  const rows = db.all<ListRow>(sql`SELECT ${LIST_COLUMNS} FROM designs d JOIN users u ON u.id = d.owner_id
+  const rows = db.all<ListRow>(sql`SELECT ${LIST_COLUMNS} FROM designs d CROSS JOIN users u ON u.id = d.owner_id
       WHERE ${cond}
       ORDER BY ${sql.raw(ORDER_COLUMN[query.sort])} ${dir}, d.id ${dir}
       LIMIT ${pageSize} OFFSET ${(page - 1) * pageSize}`);
