@@ -18,6 +18,9 @@ import { tuneDragCase } from '@/components/tune/drag-bench';
 import { loadSection, printLoad } from './bench/load';
 import { browserSection, printBrowser } from './bench/browser';
 import { listSection, printList } from './bench/list';
+import { defaultRange } from '@/lib/engine/range';
+import { runSpread } from '@/lib/engine/spread';
+import { analyzeCorners } from '@/lib/engine/corners';
 
 export interface BenchCase {
   name: string;
@@ -137,6 +140,21 @@ export const BENCH_CASES: BenchCase[] = [
   tuneDragCase(),
   stepCase,
   switchingCase(),
+  {
+    name: 'corners: 32 corners of a sample design, each a full analyze()',
+    batch: 1,
+    batches: 30,
+    warmup: 6,
+    run: (i) => analyzeCorners(requests[i % requests.length], defaultRange(requests[i % requests.length].converter)),
+  },
+  {
+    name: 'spread: 10,000 samples of a sample design (margins only, one core)',
+    targetUs: 1_000_000,
+    batch: 1,
+    batches: 9,
+    warmup: 2,
+    run: (i) => runSpread(requests[i % requests.length], defaultRange(requests[i % requests.length].converter), { samples: 10_000, seed: i }),
+  },
 ];
 
 const SECTIONS = ['engine', 'list', 'load', 'browser'] as const;
@@ -145,16 +163,22 @@ type Section = (typeof SECTIONS)[number];
 function chosenSections(argv: string[]): Section[] {
   const i = argv.indexOf('--only');
   const raw = i >= 0 ? argv[i + 1] : argv.find((a) => a.startsWith('--only='))?.slice(7);
-  if (!raw) return [...SECTIONS];
+  if (!raw) return caseFilter(argv) ? ['engine'] : [...SECTIONS];
   const wanted = raw.split(',').map((s) => s.trim());
   const bad = wanted.filter((w) => !SECTIONS.includes(w as Section));
   if (bad.length) throw new Error(`unknown section ${bad.join(', ')}: choose from ${SECTIONS.join(', ')}`);
   return SECTIONS.filter((s) => wanted.includes(s));
 }
 
+/** `npm run bench -- spread` runs only the engine cases whose name contains "spread". */
+function caseFilter(argv: string[]): string | undefined {
+  return argv.find((a, k) => !a.startsWith('--') && argv[k - 1] !== '--only');
+}
+
 const engineSection = () => {
   console.log('\nEngine');
-  for (const c of BENCH_CASES) {
+  const only = caseFilter(process.argv.slice(2));
+  for (const c of BENCH_CASES.filter((b) => !only || b.name.includes(only))) {
     const { medianUs, p90Us, bestUs } = measure(c, c.batches, c.warmup);
     const verdict =
       c.targetUs === undefined ? 'reference' : `target ${c.targetUs} µs: ${medianUs <= c.targetUs ? 'within target' : 'ABOVE target'}`;
