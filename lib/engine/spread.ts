@@ -13,6 +13,7 @@
  * whatever parts the compensator type uses.
  */
 import { loopMargins, loopPlant, loopPlantTransfer } from './analyze';
+import { dividerRb } from './compensator';
 import { createRandom, type Random } from './random';
 import { DEFAULT_TARGETS, partsTolerances, rangeIssues, type MarginTargets, type OperatingRange } from './range';
 import { withLossDefaults } from './steady-state';
@@ -114,7 +115,9 @@ export const runSpread = (
   const n = options.samples;
   const cv = withLossDefaults(request.converter);
   const tol = partsTolerances(range, request.parts);
-  const comp = request.compensator;
+  // A finite op-amp's inverting input is loaded by the divider's Rb (as in analyze()).
+  const given = request.compensator;
+  const comp = given.opamp && given.amplifier !== 'transconductance' && given.rb === undefined ? { ...given, rb: dividerRb(given.r1, request.feedback.vref, cv.vout) } : given;
   const { plantTransfer, grid } = loopPlant(request);
   const nominal = loopMargins(plantTransfer, grid, comp);
 

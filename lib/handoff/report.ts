@@ -5,7 +5,7 @@
  * revision number, its sign-off state and the dates.
  */
 import { CAUTIONS } from '@/lib/cautions';
-import { compensatorTitle, inputApplies, inputLabel, readInput, signoffLabel, STAGE_INPUTS, topologyLabel, type SignoffState } from '@/lib/catalog';
+import { AMPLIFIER_LABELS, compensatorTitle, inputApplies, MODULATOR_MODE_LABELS, inputLabel, readInput, signoffLabel, STAGE_INPUTS, topologyLabel, type SignoffState } from '@/lib/catalog';
 import type { AnalyzeRequest, AnalyzeResult, Margins } from '@/lib/engine/types';
 import { formatSi } from '@/lib/units/si';
 import { formatTolerance, PART_NAME, TOLERANCE_CONVENTION, schematicValue, type PartRow } from './parts-list';
@@ -73,6 +73,31 @@ function marginRows(m: Margins): [string, string][] {
   ];
 }
 
+/** Error amplifier: op-amp (ideal or a0/GBW) or transconductance (gm, ro). */
+const amplifierRows = (c: AnalyzeRequest['compensator']): [string, string][] => {
+  if (c.amplifier === 'transconductance') {
+    return [
+      ['Error amplifier', AMPLIFIER_LABELS.transconductance],
+      ['Transconductance gm', si(c.gm ?? null, 'S')],
+      ['Output resistance ro', c.ro ? si(c.ro, 'Ω') : 'infinite'],
+    ];
+  }
+  return [['Error amplifier', c.opamp ? `Op-amp, a0 ${c.opamp.a0.toPrecision(3)}, GBW ${si(c.opamp.gbw, 'Hz')}` : 'Op-amp (ideal)']];
+};
+
+/** Landmarks of the control mode: the current-mode sampling pair (Ridley 1991) and the DCM pole. */
+const modeLandmarkRows = (result: AnalyzeResult): [string, string][] => {
+  const rows: [string, string][] = [];
+  const m = result.modulator;
+  if (m?.mode === 'peak-current') {
+    if (m.samplingPoleHz !== null) rows.push(['Current-mode double pole (fsw/2)', si(m.samplingPoleHz, 'Hz')]);
+    rows.push(['Qp', m.qp === null ? '—' : m.qp.toFixed(2)], ['mc = 1 + Se/Sn', m.mc.toFixed(3)]);
+    if (m.samplingPoleHz !== null) rows.push(['External ramp for Qp = 1', si(m.seForQp1, 'V/s')], ['External ramp for stability', si(m.seMinStable, 'V/s')]);
+  }
+  if (result.dcmPoleHz !== null && result.dcmPoleHz !== undefined) rows.push(['DCM low-frequency pole', si(result.dcmPoleHz, 'Hz')]);
+  return rows;
+};
+
 /** The report as a complete HTML document. */
 export function buildReportHtml(r: ReportInput): string {
   const { input, result } = r;
@@ -85,11 +110,13 @@ export function buildReportHtml(r: ReportInput): string {
 
   const inputs = table([
     ['Topology', topologyLabel(cv.topology)],
+    ['Modulator', MODULATOR_MODE_LABELS[input.modulator.mode ?? 'voltage']],
     ...STAGE_INPUTS.filter((spec) => inputApplies(spec, input)).map((spec): [string, string] => {
       const v = readInput(input, spec);
       return [inputLabel(spec), v === 0 && spec.zeroMeans ? `0 (${spec.zeroMeans})` : si(v, spec.unit)];
     }),
     ['Compensator', compensatorTitle(comp.type)],
+    ...amplifierRows(comp),
     ['Resistor / capacitor series', `${result.parts.resistorSeries} / ${result.parts.capacitorSeries}`],
   ]);
 
@@ -105,6 +132,7 @@ export function buildReportHtml(r: ReportInput): string {
     ['Q', result.plant.q === null ? '—' : result.plant.q.toFixed(2)],
     ['ESR zero', si(result.plant.esrZeroHz, 'Hz')],
     ['RHP zero', si(result.plant.rhpZeroHz, 'Hz')],
+    ...modeLandmarkRows(result),
   ]);
 
   const snapped = marginRows(result.parts.snappedMargins);
