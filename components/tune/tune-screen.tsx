@@ -19,6 +19,8 @@ import { analyzeCompensator, analyzeCompensatorParts, prepareStage } from './tun
 import { TunePlot } from './tune-plot';
 import { useBenchOverlay } from '@/lib/queries/bench';
 import { useLeaveGuard } from './use-leave-guard';
+import { TuneViewSwitch, type TuneView } from '@/components/time-domain/tune-view-switch';
+import { TimeDomainView } from '@/components/time-domain/time-domain-view';
 
 export type TuneMode = 'edit' | 'role-read-only' | 'earlier-revision';
 
@@ -71,6 +73,7 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
   const [dragging, setDragging] = useState<string | null>(null);
   const [handleProblem, setHandleProblem] = useState<string | null>(null);
   const dragBase = useRef<CompensatorShape | null>(null);
+  const [view, setView] = useState<TuneView>('loop');
 
   const { converter, modulator, feedback, sweep } = input;
   const stage = useMemo(() => ({ converter, modulator, feedback, sweep }), [converter, modulator, feedback, sweep]);
@@ -78,6 +81,7 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
   // Stable callbacks keep the memoised stage form and parts table still while a handle is dragged.
   const onStageChange = useCallback((next: Pick<AnalyzeRequest, 'converter' | 'modulator' | 'feedback'>) => setInput((i) => ({ ...i, ...next })), []);
   const onSeriesChange = useCallback((options: PartsOptions) => setInput((i) => ({ ...i, parts: options })), []);
+  const onStepChange = useCallback((step: NonNullable<AnalyzeRequest['step']>) => setInput((i) => ({ ...i, step })), []);
   const loop = useMemo(() => (prepared.ok ? analyzeCompensator(prepared.value, input.compensator) : null), [prepared, input.compensator]);
   // Snapped parts and their margins may lag a frame behind a drag.
   const deferredComp = useDeferredValue(input.compensator);
@@ -216,7 +220,9 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
         </div>
       </div>
 
-      <div className="grid items-start gap-4 xl:grid-cols-[minmax(0,1fr)_22rem]">
+      <TuneViewSwitch view={view} onView={setView} />
+      {view === 'time' && <TimeDomainView input={input} bode={result?.bode ?? null} readOnly={readOnly} onStepChange={onStepChange} />}
+      <div className={`grid items-start gap-4 xl:grid-cols-[minmax(0,1fr)_22rem] ${view === 'loop' ? '' : 'hidden'}`}>
         <section className="card p-3" aria-label="Bode plot">
           {result && prepared.ok ? (
             <TunePlot
