@@ -4,6 +4,7 @@ import { useCallback, useMemo, useState } from 'react';
 import { BodePlot, type BenchOverlay, type BodeSeries, type PlotGeometry, type PlotMarker } from '@/components/plot/bode-plot';
 import { around } from '@/components/plot/label-placement';
 import { interpolateLogF } from '@/lib/engine/margins';
+import { TRACE_COLORS } from '@/lib/catalog/traces';
 import { formatSi } from '@/lib/units/si';
 import type { BodeData, Margins, SweepOptions, TransferSummary } from '@/lib/engine/types';
 import { HANDLE_SIZE, HandleOverlay, placeHandles, type DragOffset, type HandleMove, type PlacedHandle } from './handle-overlay';
@@ -11,7 +12,6 @@ import type { HandleSpec } from './handles';
 import { clipBenchToSweep } from './sweep-range';
 import { LiveCurves, type LiveCurve } from './live-curves';
 
-export const TRACE_COLORS = { loop: '#4f46e5', plant: '#0d9488', compensator: '#d97706', rhp: '#dc2626' } as const;
 
 type TraceId = 'loop' | 'plant' | 'compensator';
 const TRACES: { id: TraceId; name: string }[] = [
@@ -37,7 +37,7 @@ interface Props {
   onDrag: (id: string, offset: DragOffset) => void;
   onDragEnd: (id: string) => void;
   onStep: (id: string, move: HandleMove) => void;
-  /** Bench data (Handoff, issue 6): the newest measured loop, drawn as grey dots. */
+  /** Bench data: the newest measured loop, drawn as grey dots. */
   bench?: BenchOverlay | null;
 }
 
@@ -55,7 +55,7 @@ const toSeries = (t: (typeof TRACES)[number], trace: { magDb: number[]; phaseDeg
 /** The Tune Bode plot: trace toggles, power-stage features marked, compensator handles on top. */
 export function TunePlot({ bode, margins, plant, handles, sweep, onWidenSweep, holdRangesKey, dragging, readOnly, bench, ...events }: Props) {
   const [shown, setShown] = useState<Record<TraceId, boolean>>({ loop: true, plant: true, compensator: true });
-  const [benchShown, setBenchShown] = useState(true); // Bench data toggle (Handoff, issue 6)
+  const [benchShown, setBenchShown] = useState(true); // Bench data toggle
 
   const all = useMemo(() => TRACES.map((t) => toSeries(t, bode[t.id], shown)), [bode, shown]);
   // While a handle is dragged Plotly keeps only the power stage, which does not move, and the
@@ -119,7 +119,7 @@ export function TunePlot({ bode, margins, plant, handles, sweep, onWidenSweep, h
         ))}
         {bench && (
           <label className="inline-flex cursor-pointer items-center gap-1.5" title="The newest bench data of this design (Handoff)">
-            <input type="checkbox" className="h-3.5 w-3.5 rounded border-slate-300" style={{ accentColor: '#6b7280' }} checked={benchShown} onChange={(e) => setBenchShown(e.target.checked)} data-testid="toggle-bench" />
+            <input type="checkbox" className="h-3.5 w-3.5 rounded border-slate-300" style={{ accentColor: TRACE_COLORS.bench }} checked={benchShown} onChange={(e) => setBenchShown(e.target.checked)} data-testid="toggle-bench" />
             <span className="inline-block h-1.5 w-1.5 rounded-full bg-trace-bench" aria-hidden />
             {bench.name ?? 'Bench data'}
           </label>

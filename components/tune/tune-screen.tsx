@@ -74,7 +74,7 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
   // Scratch: any reader (viewer, reviewer, an earlier revision) edits and sees margins; nothing is saved.
   const [scratch, setScratch] = useState(false);
   const readOnly = mode !== 'edit' && !scratch;
-  const bench = useBenchOverlay(designId); // Bench data overlay (Handoff, issue 6)
+  const bench = useBenchOverlay(designId); // Bench data overlay
   // Every edit on Tune goes through the history, so Ctrl+Z / Ctrl+Shift+Z undo and redo it.
   const [history, setHistory] = useState<History<AnalyzeRequest>>(() => startHistory(initialInput));
   const input = history.present;
@@ -95,7 +95,7 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
 
   const { converter, modulator, feedback, sweep } = input;
   const stage = useMemo(() => ({ converter, modulator, feedback, sweep }), [converter, modulator, feedback, sweep]);
-  const prepared = useMemo(() => prepareStage(stage as AnalyzeRequest), [stage]);
+  const prepared = useMemo(() => prepareStage(stage), [stage]);
   // Stable callbacks keep the memoised stage form and parts table still while a handle is dragged.
   const onStageChange = useCallback((next: Pick<AnalyzeRequest, 'converter' | 'modulator' | 'feedback'>) => setInput((i) => ({ ...i, ...next })), [setInput]);
   const onSeriesChange = useCallback((options: PartsOptions) => setInput((i) => ({ ...i, parts: options })), [setInput]);

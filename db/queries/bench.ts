@@ -1,5 +1,6 @@
 import { and, desc, eq } from 'drizzle-orm';
 import type { Db } from '../connection';
+import type { BenchPoints } from '../../lib/handoff/bench-parse';
 import { benchData, designs, users } from '../schema';
 import { writeAudit } from './audit';
 import { touchDesign } from './designs';
@@ -11,11 +12,6 @@ import { touchDesign } from './designs';
  * team through the design.
  */
 
-export interface BenchPointsJson {
-  f: number[];
-  gainDb: number[];
-  phaseDeg: number[];
-}
 
 const summaryColumns = {
   id: benchData.id,
@@ -48,22 +44,21 @@ export function getBenchData(db: Db, teamId: number, designId: number, benchId: 
     .innerJoin(users, eq(users.id, benchData.uploadedBy))
     .where(and(eq(benchData.id, benchId), eq(benchData.designId, designId), eq(designs.teamId, teamId)))
     .get();
-  return row ? { ...row, points: row.points as BenchPointsJson } : undefined;
+  return row;
 }
 
 export function createBenchData(
   db: Db,
-  b: { teamId: number; designId: number; name: string; points: BenchPointsJson; phaseShifted: boolean; uploadedBy: number },
+  b: { teamId: number; designId: number; name: string; points: BenchPoints; phaseShifted: boolean; uploadedBy: number },
 ) {
   return db.transaction((tx) => {
-    const txDb = tx as unknown as Db;
-    const row = txDb
+    const row = tx
       .insert(benchData)
       .values({ designId: b.designId, name: b.name, points: b.points, phaseShifted: b.phaseShifted, uploadedBy: b.uploadedBy })
       .returning({ id: benchData.id })
       .get();
-    touchDesign(txDb, b.designId);
-    writeAudit(txDb, {
+    touchDesign(tx, b.designId);
+    writeAudit(tx, {
       teamId: b.teamId,
       userId: b.uploadedBy,
       action: 'bench.uploaded',

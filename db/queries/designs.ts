@@ -58,13 +58,12 @@ export function createDesign(
   d: { name: string; description?: string; topology: Topology },
 ) {
   return db.transaction((tx) => {
-    const txDb = tx as unknown as Db;
-    const row = txDb
+    const row = tx
       .insert(designs)
       .values({ teamId, ownerId: actorId, name: d.name.trim(), description: d.description?.trim() ?? '', topology: d.topology })
       .returning()
       .get();
-    writeAudit(txDb, { teamId, userId: actorId, action: 'design.created', entityType: 'design', entityId: row.id, detail: { name: row.name } });
+    writeAudit(tx, { teamId, userId: actorId, action: 'design.created', entityType: 'design', entityId: row.id, detail: { name: row.name } });
     return row;
   });
 }
@@ -77,15 +76,14 @@ export function updateDesign(
   patch: { name?: string; description?: string; designatorMap?: Record<string, string> },
 ) {
   return db.transaction((tx) => {
-    const txDb = tx as unknown as Db;
-    const row = txDb
+    const row = tx
       .update(designs)
       .set({ ...patch, updatedAt: new Date() })
       .where(and(eq(designs.id, designId), eq(designs.teamId, teamId)))
       .returning()
       .get();
     if (row)
-      writeAudit(txDb, { teamId, userId: actorId, action: 'design.updated', entityType: 'design', entityId: designId, detail: { fields: Object.keys(patch) } });
+      writeAudit(tx, { teamId, userId: actorId, action: 'design.updated', entityType: 'design', entityId: designId, detail: { fields: Object.keys(patch) } });
     return row;
   });
 }

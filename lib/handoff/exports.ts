@@ -3,6 +3,7 @@
  * Pure: the route handler loads the design, revision and sign-off, runs the analysis and
  * passes them in.
  */
+import type { SignoffState } from '@/lib/catalog/signoff';
 import type { AnalyzeRequest, AnalyzeResult, Topology } from '@/lib/engine/types';
 import { buildDesignFile, designFileJson } from './design-file';
 import { EXPORT_CONTENT_TYPE, exportFileName, type ExportFormat } from './files';
@@ -13,7 +14,7 @@ import { spiceNetlistFile } from './spice';
 export interface ExportContext {
   design: { name: string; description: string; topology: Topology; designatorMap: Record<string, string> };
   revision: { number: number; note: string; createdAt: Date; authorName: string; input: AnalyzeRequest };
-  signoff: { state: string; at: Date | null; by: string | null };
+  signoff: { state: SignoffState; at: Date | null; by: string | null };
   result: AnalyzeResult;
   teamName: string;
   now?: Date;
