@@ -5,6 +5,7 @@ import { preparePlant } from '@/lib/engine/analyze';
 import { closedLoopResponses } from '@/lib/engine/closed-loop';
 import { simulateStepResponse } from '@/lib/engine/step-response';
 import { EngineInputError, type AnalyzeRequest, type BodeData, type StepDefinition } from '@/lib/engine/types';
+import { stepOf } from '@/lib/step-summary';
 import { formatSi } from '@/lib/units/si';
 import { ClosedLoopPanel } from './closed-loop-panel';
 import { ModelCheckPlot, ModelCheckTable } from './model-check-plot';
@@ -12,9 +13,6 @@ import { StepForm } from './step-form';
 import { StepPlot, StepReadouts } from './step-panel';
 import { SwitchingJobError, useSwitchingJob } from './switching-job';
 
-/** The step a design starts with: half to full load in 1 µs (or the revision's own). */
-export const defaultStep = (input: AnalyzeRequest): StepDefinition =>
-  input.step ?? { kind: 'load', from: input.converter.iout / 2, to: input.converter.iout, slew: input.converter.iout / 2 / 1e-6, band: 0.01 };
 
 const attempt = <T,>(f: () => T): { ok: true; value: T } | { ok: false; message: string } => {
   try {
@@ -42,7 +40,7 @@ function Section({ title, children, aside }: { title: string; children: React.Re
  */
 export function TimeDomainView({ input, bode, readOnly, onStepChange }: { input: AnalyzeRequest; bode: BodeData | null; readOnly: boolean; onStepChange: (s: StepDefinition) => void }) {
   const [mainsHz, setMainsHz] = useState<50 | 60>(50);
-  const step = useMemo(() => defaultStep(input), [input]);
+  const step = useMemo(() => stepOf(input), [input]);
   const prepared = useMemo(() => attempt(() => preparePlant(input)), [input]);
   const closed = useMemo(() => (prepared.ok ? attempt(() => closedLoopResponses(prepared.value, input.compensator, mainsHz)) : null), [prepared, input.compensator, mainsHz]);
   const response = useMemo(() => attempt(() => simulateStepResponse(input, step)), [input, step]);

@@ -8,7 +8,10 @@ import { simulateStepResponse, type StepResponseResult } from '@/lib/engine/step
 import type { AnalyzeRequest, AnalyzeResult } from '@/lib/engine/types';
 import { describeStep, stepOf } from '@/lib/step-summary';
 import { formatSi } from '@/lib/units/si';
-import { PLOT_COLORS, plotSvg } from './svg-plot';
+import { TRACE_COLORS } from '@/lib/catalog/traces';
+import { plotSvg } from './svg-plot';
+
+const PLOT_COLORS = TRACE_COLORS;
 
 const esc = (s: string) => s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
 const r1 = (v: number) => Math.round(v * 10) / 10;

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import type { AnalyzeRequest } from '@/lib/engine/types';
-import type { StepDefinition } from '@/lib/engine/step-response';
-import { parseAnalyzeRequest, zodIssues } from './analyze';
+import { DEFAULT_STEP_BAND, type StepDefinition } from '@/lib/engine/step-response';
+import { parseAnalyzeRequest, stepSchema, zodIssues } from './analyze';
 
 /**
  * Time-domain requests: the analysis body plus a step (POST /api/analyze/transient, the
@@ -11,15 +11,7 @@ import { parseAnalyzeRequest, zodIssues } from './analyze';
 const finite = (label: string) =>
   z.number({ error: `${label} must be a number` }).refine(Number.isFinite, `${label} must be finite`);
 
-export const stepSchema = z.object({
-  kind: z.enum(['load', 'line'], { error: 'kind must be "load" or "line"' }),
-  from: finite('from'),
-  to: finite('to'),
-  slew: finite('slew').refine((v) => v > 0, 'slew must be above 0 (leave it out for an ideal step)').nullable().optional(),
-  band: finite('band')
-    .refine((v) => v > 0 && v < 0.5, 'band is relative to vout: above 0 and below 0.5 (0.01 = ±1 %)')
-    .default(0.01),
-});
+export { stepSchema };
 
 export const injectionSchema = z.object({
   frequencies: z
@@ -43,7 +35,7 @@ export function parseStep(raw: unknown): Parsed<StepDefinition> {
   const r = stepSchema.safeParse(raw);
   if (!r.success) return { ok: false, issues: prefixed('step', zodIssues(r.error)) };
   const { kind, from, to, slew, band } = r.data;
-  return { ok: true, data: { kind, from, to, slew: slew ?? null, band } };
+  return { ok: true, data: { kind, from, to, slew: slew ?? null, band: band ?? DEFAULT_STEP_BAND } };
 }
 
 /** The analysis body plus `step` (required). */
