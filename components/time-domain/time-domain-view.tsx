@@ -107,7 +107,7 @@ export function TimeDomainView({ input, bode, readOnly, onStepChange }: { input:
               <ModelCheckTable points={modelCheck.points} />
               <p className="text-xs text-slate-500" data-testid="model-check-summary">
                 {modelCheck.cycleCount} switching cycles. Steady state: output ripple {formatSi(modelCheck.steadyState.voutRipplePp, 'V')} p-p, inductor ripple {formatSi(modelCheck.steadyState.inductorRipplePp, 'A')} p-p, duty {(modelCheck.steadyState.duty * 100).toFixed(2)} %
-                {modelCheck.steadyState.dcm ? ', with DCM intervals' : ''}. The averaged model is expected to hold well below fsw/10; toward fsw/2 the switching circuit departs from it.
+                {modelCheck.steadyState.dcm ? ', with DCM intervals' : ''}. The averaged model is expected to hold well below fsw/10 and to depart toward fsw/2; switching ripple that reaches the comparator through the compensator (e.g. ESR steps of a boost's output) adds a feedback of the inductor current the averaged model lacks, which shows as errors even at low frequency.
               </p>
             </>
           )}
