@@ -64,7 +64,7 @@ export function StepReadouts({ step }: { step: StepResponseResult }) {
         </div>
         <div>
           <dt className="text-slate-500">Settling time to ±{(step.band * 100).toPrecision(2)} %</dt>
-          <dd className="num font-mono">{step.settlingTime === null ? 'not settled in the window' : formatSi(step.settlingTime, 's')}</dd>
+          <dd className="num font-mono">{step.settlingTime === null ? 'not settled in the window' : step.settlingTime === 0 ? 'never leaves the band' : formatSi(step.settlingTime, 's')}</dd>
         </div>
       </dl>
       {step.outsideModel.length > 0 && (

@@ -1,13 +1,9 @@
 import { useMutation } from '@tanstack/react-query';
 import { useCallback, useEffect, useRef, useState } from 'react';
-import type { ModelCheckResult, SwitchingStepResult } from '@/lib/engine/switching-check';
-import type { AnalyzeRequest, FieldIssue, StepDefinition } from '@/lib/engine/types';
+import { EngineInputError, type FieldIssue } from '@/lib/engine/types';
+import { runSwitchingJob, type SwitchingJob, type SwitchingOutcome } from './run-switching-job';
 
-export type SwitchingJob =
-  | { kind: 'injection'; request: AnalyzeRequest; frequencies?: number[] }
-  | { kind: 'step'; request: AnalyzeRequest; step: StepDefinition };
-
-export type SwitchingOutcome = ({ kind: 'injection' } & ModelCheckResult) | ({ kind: 'step' } & SwitchingStepResult);
+export type { SwitchingJob, SwitchingOutcome };
 
 type WorkerMessage =
   | { type: 'progress'; fraction: number; message: string }
@@ -39,24 +35,52 @@ export function useSwitchingJob() {
     mutationFn: (job: SwitchingJob) =>
       new Promise<SwitchingOutcome>((resolve, reject) => {
         stop();
-        const w = new Worker(new URL('./switching-worker.ts', import.meta.url), { type: 'module' });
-        worker.current = w;
         setProgress({ fraction: 0, message: 'starting' });
-        w.onmessage = (e: MessageEvent<WorkerMessage>) => {
-          const m = e.data;
-          if (m.type === 'progress') setProgress({ fraction: m.fraction, message: m.message });
-          else {
-            stop();
-            setProgress(null);
-            if (m.type === 'done') resolve(m.result);
-            else reject(new SwitchingJobError(m.message, m.issues));
-          }
-        };
-        w.onerror = (e) => {
+        let heard = false;
+        let settled = false;
+        const finish = (f: () => void) => {
+          if (settled) return;
+          settled = true;
+          window.clearTimeout(silence);
           stop();
           setProgress(null);
-          reject(new SwitchingJobError(e.message || 'the simulation stopped', []));
+          f();
         };
+        // Where no worker can start (a blocked script, an old browser), the job runs on the page:
+        // the result is the same, only without progress while it runs.
+        const runHere = () =>
+          window.setTimeout(() => {
+            try {
+              const result = runSwitchingJob(job);
+              finish(() => resolve(result));
+            } catch (err) {
+              finish(() => reject(new SwitchingJobError(err instanceof Error ? err.message : String(err), err instanceof EngineInputError ? err.issues : [])));
+            }
+          }, 30);
+        const fallBack = () => {
+          if (settled) return;
+          stop();
+          setProgress({ fraction: 0, message: 'running on this page' });
+          runHere();
+        };
+        const silence = window.setTimeout(() => (heard ? undefined : fallBack()), 8000);
+        let w: Worker;
+        try {
+          w = new Worker(new URL('./switching-worker.ts', import.meta.url));
+        } catch {
+          fallBack();
+          return;
+        }
+        worker.current = w;
+        w.onmessage = (e: MessageEvent<WorkerMessage>) => {
+          heard = true;
+          const m = e.data;
+          if (m.type === 'progress') setProgress({ fraction: m.fraction, message: m.message });
+          else if (m.type === 'done') finish(() => resolve(m.result));
+          else finish(() => reject(new SwitchingJobError(m.message, m.issues)));
+        };
+        w.onerror = () => (heard ? finish(() => reject(new SwitchingJobError('the simulation stopped', []))) : fallBack());
+        w.postMessage(job);
       }),
   });
   const cancel = () => {

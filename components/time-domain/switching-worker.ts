@@ -4,19 +4,14 @@
  * Messages out: { type: 'progress', fraction, message } … then { type: 'done', result } or
  * { type: 'error', message, issues }.
  */
-import { modelCheck, switchingStep } from '@/lib/engine/switching-check';
 import { EngineInputError } from '@/lib/engine/types';
-import type { SwitchingJob } from './switching-job';
+import { runSwitchingJob, type SwitchingJob } from './run-switching-job';
 
 self.addEventListener('message', (event: MessageEvent<SwitchingJob>) => {
   const job = event.data;
   const progress = (fraction: number, message: string) => self.postMessage({ type: 'progress', fraction, message });
   try {
-    const result =
-      job.kind === 'injection'
-        ? { kind: 'injection' as const, ...modelCheck(job.request, job.frequencies, progress) }
-        : { kind: 'step' as const, ...switchingStep(job.request, job.step, progress) };
-    self.postMessage({ type: 'done', result });
+    self.postMessage({ type: 'done', result: runSwitchingJob(job, progress) });
   } catch (err) {
     const issues = err instanceof EngineInputError ? err.issues : [];
     self.postMessage({ type: 'error', message: err instanceof Error ? err.message : String(err), issues });

@@ -124,11 +124,11 @@ export const simulateStepResponse = (request: AnalyzeRequest, step: StepDefiniti
   const rampS = slew ? Math.abs(amplitude) / slew : 0;
   const blocks = loopBlocks(prepared, request.compensator);
   const bandV = band * converter.vout;
-  // Window: the ramp plus 15 periods of fc; longer while the response has not settled.
-  let durationS = rampS + 15 / fc;
+  // Window: the ramp plus 6 periods of fc; longer while the response has not settled.
+  let durationS = rampS + 6 / fc;
   let sim = simulateLoopStep(blocks, { input: step.kind, amplitude, slewPerS: slew, durationS, points: STEP_POINTS });
   let metrics = stepMetrics(sim.t, sim.v, sim.vFinal, bandV);
-  for (let k = 0; k < 3 && (metrics.settlingTime === null || metrics.settlingTime > 0.7 * durationS); k++) {
+  for (let k = 0; k < 3 && (metrics.settlingTime === null || metrics.settlingTime > 0.6 * durationS); k++) {
     durationS *= 3;
     sim = simulateLoopStep(blocks, { input: step.kind, amplitude, slewPerS: slew, durationS, points: STEP_POINTS });
     metrics = stepMetrics(sim.t, sim.v, sim.vFinal, bandV);

@@ -36,6 +36,8 @@ describe.runIf(run)('Tune: closed loop and step', () => {
 
   it('shows the closed loop, the step, the switching check, and keeps the step with the revision', async () => {
     const page = await pageAs('designer@demo.test');
+    page.on('console', (m) => (m.type() === 'error' ? console.log('[browser]', m.text()) : undefined));
+    page.on('pageerror', (e) => console.log('[page error]', e.message));
     await page.goto(`${baseUrl}/designs/${designId}`);
     await page.locator('[data-plot-ready="true"]').first().waitFor({ timeout: 60_000 });
     await page.getByTestId('tune-view-time').click();
@@ -48,7 +50,8 @@ describe.runIf(run)('Tune: closed loop and step', () => {
     await page.locator('#step-rise').fill('2u');
     await page.getByTestId('step-apply').click();
     await page.getByTestId('run-model-check').click();
-    await page.getByTestId('switching-progress').waitFor({ timeout: 30_000 }).catch(() => undefined);
+    await page.getByTestId('switching-progress').waitFor({ timeout: 30_000 });
+    await screenshot(page, 'time-domain-progress');
     await page.getByTestId('model-check-table').waitFor({ timeout: 120_000 });
     const rows = await page.getByTestId('model-check-table').locator('tbody tr').count();
     expect(rows).toBeGreaterThanOrEqual(5);
@@ -63,5 +66,5 @@ describe.runIf(run)('Tune: closed loop and step', () => {
     await page.goto(`${baseUrl}/designs/${designId}/compare?a=1&b=2`);
     await page.getByTestId('step-compare').waitFor({ timeout: 60_000 });
     await screenshot(page, 'time-domain-compare');
-  });
+  }, 400_000);
 });
