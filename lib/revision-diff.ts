@@ -3,6 +3,7 @@
  * operating-point figures, side by side, each row marked when it differs.
  * Pure data; Compare formats it.
  */
+import { AMPLIFIER_LABELS, MODULATOR_MODE_LABELS } from '@/lib/catalog';
 import type { AnalyzeRequest } from '@/lib/engine/types';
 import type { RevisionSummary } from './revision-summary';
 
@@ -33,6 +34,7 @@ const PARTS = ['r1', 'r2', 'r3', 'c1', 'c2', 'c3'] as const;
 const partUnit = (p: string) => (p.startsWith('r') ? 'Ω' : 'F');
 const partLabel = (p: string) => p.toUpperCase();
 
+
 const SPECS: Spec[] = [
   { group: 'Power stage', key: 'topology', label: 'Topology', kind: 'text', get: (s) => s.input.converter.topology },
   { group: 'Power stage', key: 'vin', label: 'Input voltage Vin', kind: 'si', unit: 'V', get: (s) => s.input.converter.vin },
@@ -44,9 +46,18 @@ const SPECS: Spec[] = [
   { group: 'Power stage', key: 'c', label: 'Output capacitor C', kind: 'si', unit: 'F', get: (s) => s.input.converter.c },
   { group: 'Power stage', key: 'rc', label: 'Capacitor ESR', kind: 'si', unit: 'Ω', get: (s) => s.input.converter.rc },
   { group: 'Power stage', key: 'vd', label: 'Diode drop Vd', kind: 'si', unit: 'V', get: (s) => s.input.converter.vd },
-  { group: 'Modulator and feedback', key: 'vramp', label: 'PWM ramp Vramp', kind: 'si', unit: 'V', get: (s) => s.input.modulator.vramp },
+  { group: 'Modulator and feedback', key: 'mode', label: 'Modulator', kind: 'text', get: (s) => MODULATOR_MODE_LABELS[s.input.modulator.mode ?? 'voltage'] },
+  { group: 'Modulator and feedback', key: 'vramp', label: 'PWM ramp Vramp', kind: 'si', unit: 'V', get: (s) => (s.input.modulator.mode === 'peak-current' ? null : s.input.modulator.vramp) },
+  { group: 'Modulator and feedback', key: 'ri', label: 'Current-sense gain Ri', kind: 'si', unit: 'V/A', get: (s) => (s.input.modulator.mode === 'peak-current' ? s.input.modulator.ri : null) },
+  { group: 'Modulator and feedback', key: 'se', label: 'External ramp Se', kind: 'si', unit: 'V/s', get: (s) => (s.input.modulator.mode === 'peak-current' ? s.input.modulator.se : null) },
   { group: 'Modulator and feedback', key: 'vref', label: 'Reference Vref', kind: 'si', unit: 'V', get: (s) => s.input.feedback.vref },
   { group: 'Compensator', key: 'type', label: 'Type', kind: 'text', get: (s) => typeLabel(s.input.compensator.type) },
+  { group: 'Compensator', key: 'amplifier', label: 'Error amplifier', kind: 'text', get: (s) => AMPLIFIER_LABELS[s.input.compensator.amplifier ?? 'opamp'] },
+  { group: 'Compensator', key: 'comp.gm', label: 'Transconductance gm', kind: 'si', unit: 'S', get: (s) => s.input.compensator.gm },
+  { group: 'Compensator', key: 'comp.ro', label: 'Amplifier output resistance ro', kind: 'si', unit: 'Ω', get: (s) => s.input.compensator.ro },
+  { group: 'Compensator', key: 'comp.rb', label: 'Rb as entered', kind: 'si', unit: 'Ω', get: (s) => s.input.compensator.rb },
+  { group: 'Compensator', key: 'comp.a0', label: 'Op-amp gain a0', kind: 'si', unit: 'V/V', get: (s) => s.input.compensator.opamp?.a0 },
+  { group: 'Compensator', key: 'comp.gbw', label: 'Op-amp GBW', kind: 'si', unit: 'Hz', get: (s) => s.input.compensator.opamp?.gbw },
   ...PARTS.map<Spec>((p) => ({
     group: 'Compensator',
     key: `comp.${p}`,

@@ -8,8 +8,11 @@ import { partsFromShape, shapeFromParts } from '@/lib/engine/compensator';
 import { SAMPLE_DESIGNS } from '@/lib/engine/samples';
 import { simulateStepResponse } from '@/lib/engine/step-response';
 import { simulatorFor } from '@/lib/engine/switching-check';
-import type { CompensatorShape } from '@/lib/engine/types';
+import type { AnalyzeRequest, CompensatorShape } from '@/lib/engine/types';
 import { tuneDragCase } from '@/components/tune/drag-bench';
+import { defaultRange } from '@/lib/engine/range';
+import { runSpread } from '@/lib/engine/spread';
+import { analyzeCorners } from '@/lib/engine/corners';
 
 export interface BenchCase {
   name: string;
@@ -68,6 +71,53 @@ const dragCase = (): BenchCase => {
   };
 };
 
+/** One design per control mode and amplifier (our own), analysed in full. */
+const MODE_DESIGNS: [string, AnalyzeRequest][] = [
+  [
+    'peak current mode, CCM buck, op-amp Type II',
+    {
+      converter: { topology: 'buck', vin: 12, vout: 3.3, iout: 2, fsw: 500e3, l: 4.7e-6, rl: 0.02, c: 100e-6, rc: 0.005, vd: 0 },
+      modulator: { mode: 'peak-current', ri: 0.5, se: 5e4 },
+      feedback: { vref: 0.8 },
+      compensator: { type: 'type2', r1: 10e3, r2: 20e3, c1: 4.7e-9, c2: 47e-12 },
+    },
+  ],
+  [
+    'peak current mode, CCM boost, transconductance Type II',
+    {
+      converter: { topology: 'boost', vin: 5, vout: 12, iout: 0.5, fsw: 400e3, l: 10e-6, rl: 0.03, c: 44e-6, rc: 0.005, vd: 0.4 },
+      modulator: { mode: 'peak-current', ri: 0.1, se: 3e4 },
+      feedback: { vref: 1.2 },
+      compensator: { type: 'type2', amplifier: 'transconductance', gm: 1e-3, ro: 2e6, rb: 4444.44, r1: 40e3, r2: 10e3, c1: 10e-9, c2: 100e-12 },
+    },
+  ],
+  [
+    'voltage mode, CCM buck, finite op-amp Type III',
+    {
+      converter: { topology: 'buck', vin: 12, vout: 3.3, iout: 2, fsw: 500e3, l: 4.7e-6, rl: 0.02, c: 100e-6, rc: 0.005, vd: 0 },
+      modulator: { vramp: 1 },
+      feedback: { vref: 0.8 },
+      compensator: { type: 'type3', r1: 10e3, r2: 4.7e3, r3: 500, c1: 10e-9, c2: 220e-12, c3: 4.7e-9, opamp: { a0: 1e5, gbw: 20e6 } },
+    },
+  ],
+  [
+    'voltage mode, DCM boost (light load), op-amp Type II',
+    {
+      converter: { topology: 'boost', vin: 5, vout: 12, iout: 0.02, fsw: 400e3, l: 10e-6, rl: 0, c: 44e-6, rc: 0.005, vd: 0.4 },
+      modulator: { vramp: 1 },
+      feedback: { vref: 1.2 },
+      compensator: { type: 'type2', r1: 10e3, r2: 20e3, c1: 4.7e-9, c2: 47e-12 },
+    },
+  ],
+];
+
+const modeCases: BenchCase[] = MODE_DESIGNS.map(([name, req]) => ({
+  name: `full analyze(), ${name} (400 points)`,
+  targetUs: 50,
+  batch: 10,
+  run: () => analyze(req),
+}));
+
 /** Machine speed: the transcendental work of one 400-point sweep, to compare runs across machines and loads. */
 /** The switching check's core: 2,000 cycles of the buck sample in closed loop (Type III, voltage mode, 20 samples a cycle). */
 const switchingCase = (): BenchCase => {
@@ -125,17 +175,35 @@ export const BENCH_CASES: BenchCase[] = [
     batch: 10,
     run: (i) => analyze(offSeries[i % offSeries.length]),
   },
+  ...modeCases,
   dragCase(),
   tuneDragCase(),
   stepCase,
   switchingCase(),
+  {
+    name: 'corners: 32 corners of a sample design, each a full analyze()',
+    batch: 1,
+    batches: 30,
+    warmup: 6,
+    run: (i) => analyzeCorners(requests[i % requests.length], defaultRange(requests[i % requests.length].converter)),
+  },
+  {
+    name: 'spread: 10,000 samples of a sample design (margins only, one core)',
+    targetUs: 1_000_000,
+    batch: 1,
+    batches: 9,
+    warmup: 2,
+    run: (i) => runSpread(requests[i % requests.length], defaultRange(requests[i % requests.length].converter), { samples: 10_000, seed: i }),
+  },
 ];
 
 const main = () => {
   const load = os.loadavg()[0];
   console.log(`Phasewright engine benchmark — node ${process.version}, ${os.cpus().length} cores, load average ${load.toFixed(1)}`);
   if (load > os.cpus().length) console.log('  (the machine is busy: medians include other processes; "best" is closer to the engine alone)');
-  for (const c of BENCH_CASES) {
+  // `npm run bench -- spread` runs only the cases whose name contains "spread".
+  const only = process.argv[2];
+  for (const c of BENCH_CASES.filter((b) => !only || b.name.includes(only))) {
     const { medianUs, p90Us, bestUs } = measure(c, c.batches, c.warmup);
     const verdict =
       c.targetUs === undefined ? 'reference' : `target ${c.targetUs} µs: ${medianUs <= c.targetUs ? 'within target' : 'ABOVE target'}`;

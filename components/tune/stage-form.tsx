@@ -57,7 +57,7 @@ const numbersOf = (s: Stage): Record<StageField, number> => ({
   c: s.converter.c,
   rc: s.converter.rc ?? 0,
   vd: s.converter.vd ?? 0,
-  vramp: s.modulator.vramp,
+  vramp: s.modulator.mode === 'peak-current' ? 1 : s.modulator.vramp,
   vref: s.feedback.vref,
 });
 

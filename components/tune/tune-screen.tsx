@@ -26,6 +26,11 @@ import { useBenchOverlay } from '@/lib/queries/bench';
 import { useLeaveGuard } from './use-leave-guard';
 import { TuneViewSwitch, type TuneView } from '@/components/time-domain/tune-view-switch';
 import { TimeDomainView } from '@/components/time-domain/time-domain-view';
+import { withRange, type MarginTargets, type OperatingRange } from '@/lib/engine/range';
+import { cornerTraces } from '@/components/range/corner-traces';
+import { CornerViewToggle, RangePanel } from '@/components/range/range-panel';
+import { useRangeAnalysis, type DesignInput } from '@/components/range/use-range-analysis';
+import { WorstReadout } from '@/components/range/worst-readout';
 
 export type TuneMode = 'edit' | 'role-read-only' | 'earlier-revision';
 
@@ -45,12 +50,25 @@ export interface TuneScreenProps {
   revisions: Pick<RevisionListItem, 'number' | 'note' | 'authorName' | 'createdAt'>[];
 }
 
-/** JSON with sorted keys, so two inputs compare equal whatever order their keys were written in. */
-function stableJson(v: unknown): string {
+/**
+ * JSON with sorted keys, so two inputs compare equal whatever order their keys were written in;
+ * with `digits`, numbers rounded to that many significant digits.
+ */
+function stableJson(v: unknown, digits?: number): string {
   return JSON.stringify(v, (_k, val) =>
-    val && typeof val === 'object' && !Array.isArray(val) ? Object.fromEntries(Object.entries(val).sort(([a], [b]) => a.localeCompare(b))) : val,
+    val && typeof val === 'object' && !Array.isArray(val)
+      ? Object.fromEntries(Object.entries(val).sort(([a], [b]) => a.localeCompare(b)))
+      : digits && typeof val === 'number' && Number.isFinite(val)
+        ? Number(val.toPrecision(digits))
+        : val,
   );
 }
+
+/**
+ * Inputs compare to 12 significant digits: a handle dragged away and back returns through
+ * floating-point products (~1e-16 off), which is the same circuit and no change to save.
+ */
+const compareJson = (v: unknown) => stableJson(v, 12);
 
 const NO_ISSUES: FieldIssue[] = [];
 
@@ -68,7 +86,7 @@ function Card({ title, children, className = '', aside }: { title: string; child
   );
 }
 
-const sameInput = (a: AnalyzeRequest, b: AnalyzeRequest) => a === b || stableJson(a) === stableJson(b);
+const sameInput = <T,>(a: T, b: T) => a === b || compareJson(a) === compareJson(b);
 
 export function TuneScreen({ designId, initialInput, savedInput, editFrom = null, shownRevision, latestRevision, mode, role, revisions }: TuneScreenProps) {
   // Scratch: any reader (viewer, reviewer, an earlier revision) edits and sees margins; nothing is saved.
@@ -76,16 +94,24 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
   const readOnly = mode !== 'edit' && !scratch;
   const bench = useBenchOverlay(designId); // Bench data overlay
   // Every edit on Tune goes through the history, so Ctrl+Z / Ctrl+Shift+Z undo and redo it.
-  const [history, setHistory] = useState<History<AnalyzeRequest>>(() => startHistory(initialInput));
+  // The operating range is written out (defaults filled) so every save stores it; an older
+  // revision without one opens with the defaults and is not counted as changed.
+  const [history, setHistory] = useState<History<DesignInput>>(() => startHistory(withRange(initialInput)));
   const input = history.present;
   // The stage form keeps its own text; it is drawn again when undo, redo or leaving scratch change the stage under it.
   const [stageEpoch, setStageEpoch] = useState(0);
-  const edit = useCallback((fn: (i: AnalyzeRequest) => AnalyzeRequest) => setHistory((h) => commit(h, fn(h.present), sameInput)), []);
+  // An edit that lands back on the saved input (to rounding) takes the saved input itself.
+  const savedRef = useRef<{ json: string; input: DesignInput }>({ json: compareJson(withRange(savedInput ?? initialInput)), input: withRange(savedInput ?? initialInput) });
+  const snapToSaved = useCallback((next: DesignInput): DesignInput => (compareJson(next) === savedRef.current.json ? savedRef.current.input : next), []);
+  const edit = useCallback(
+    (fn: (i: DesignInput) => DesignInput) => setHistory((h) => commit(h, snapToSaved(fn(h.present)), sameInput)),
+    [snapToSaved],
+  );
   const setInput = edit;
   const dragCommitted = useRef(false);
   const [lockPart, setLockPart] = useState<PartKey>('r1');
   const [pmTarget, setPmTarget] = useState<number | null>(null);
-  const [saved, setSaved] = useState({ json: stableJson(savedInput ?? initialInput), revision: shownRevision });
+  const [saved, setSaved] = useState(() => ({ json: compareJson(withRange(savedInput ?? initialInput)), revision: shownRevision }));
   const [from, setFrom] = useState(editFrom);
   const [stageValid, setStageValid] = useState(true);
   const [dragging, setDragging] = useState<string | null>(null);
@@ -121,7 +147,15 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
     startPm.current = pm !== null && pm >= 30 && pm <= 80 ? Math.round(pm) : 60;
   }
 
-  const dirty = mode === 'edit' && (stableJson(input) !== saved.json || !stageValid);
+  const onRangeChange = useCallback((next: { range: OperatingRange; targets: MarginTargets }) => setInput((i) => ({ ...i, ...next })), []);
+  const across = useRangeAnalysis(input, dragging !== null || !prepared.ok);
+  const cornerResult = across.corners?.ok ? across.corners.value : null;
+  const rangeTraces = useMemo(
+    () => (cornerResult && prepared.ok ? cornerTraces(prepared.value.grid.f as number[], cornerResult.corners, across.view, cornerResult.worst.phaseMarginDeg.corner) : undefined),
+    [cornerResult, prepared, across.view],
+  );
+
+  const dirty = mode === 'edit' && (compareJson(input) !== saved.json || !stageValid);
   useLeaveGuard(dirty);
 
   const lock = useMemo<PartLock | null>(() => {
@@ -157,7 +191,11 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
     if (problem === null) dragCommitted.current = true;
   };
   const onDragEnd = () => {
-    if (dragCommitted.current) setHistory((h) => settle(h, sameInput));
+    if (dragCommitted.current)
+      setHistory((h) => {
+        const settled = settle(h, sameInput);
+        return settled.present === h.present ? replace(settled, snapToSaved(settled.present)) : settled;
+      });
     dragBase.current = null;
     dragCommitted.current = false;
     setDragging(null);
@@ -213,7 +251,7 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
   const startScratch = () => setScratch(true);
   const leaveScratch = () => {
     setScratch(false);
-    setHistory(startHistory(initialInput));
+    setHistory(startHistory(withRange(initialInput)));
     setStageEpoch((n) => n + 1);
     setHandleProblem(null);
   };
@@ -246,7 +284,8 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
   };
 
   const onSaved = (rev: SavedRevision, savedInput: AnalyzeRequest) => {
-    setSaved({ json: stableJson(savedInput), revision: rev.number });
+    setSaved({ json: compareJson(withRange(savedInput)), revision: rev.number });
+    savedRef.current = { json: compareJson(withRange(savedInput)), input: withRange(savedInput) };
     if (from !== null) {
       setFrom(null);
       // The address no longer asks to load the earlier revision (before SaveBar refreshes the page).
@@ -364,6 +403,8 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
               onDragEnd={onDragEnd}
               onStep={onStep}
               bench={bench}
+              rangeTraces={rangeTraces}
+              rangeToggle={cornerResult && <CornerViewToggle view={across.view} onChange={across.setView} count={cornerResult.corners.length} />}
             />
           ) : (
             <div className="grid h-[480px] place-items-center text-center text-sm text-slate-500" data-testid="plot-unavailable">
@@ -386,13 +427,24 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
         <div className="space-y-4">
           <Card title="Margins">
             {result ? (
-              <MarginsReadout margins={result.margins} phaseAtHalfFswDeg={result.phaseAtHalfFswDeg} fsw={input.converter.fsw} snapped={parts?.snappedMargins ?? null} />
+              <>
+                <MarginsReadout
+                  margins={result.margins}
+                  phaseAtHalfFswDeg={result.phaseAtHalfFswDeg}
+                  fsw={input.converter.fsw}
+                  snapped={parts?.snappedMargins ?? null}
+                  crossoverAboveHz={result.bode.loop.magDb[result.bode.loop.magDb.length - 1] > 0 ? result.bode.f[result.bode.f.length - 1] : null}
+                />
+                <div className="mt-3 border-t border-slate-200 pt-3">
+                  <WorstReadout nominal={result.margins} corners={cornerResult} spread={across.spread.status === 'done' && !across.stale ? across.spread.result : null} targets={input.targets} />
+                </div>
+              </>
             ) : (
               <p className="text-sm text-slate-500">—</p>
             )}
           </Card>
-          <Card title="Checks" aside={result && <span className="text-xs text-slate-500">{result.checks.length} raised</span>}>
-            {result ? <ChecksList checks={result.checks} /> : <p className="text-sm text-slate-500">Checks appear once the loop can be analysed.</p>}
+          <Card title="Checks" aside={result && <span className="text-xs text-slate-500">{result.checks.length + (across.corners?.ok ? across.corners.checks.length : 0)} raised</span>}>
+            {result ? <ChecksList checks={across.corners?.ok ? [...result.checks, ...across.corners.checks] : result.checks} /> : <p className="text-sm text-slate-500">Checks appear once the loop can be analysed.</p>}
           </Card>
         </div>
       </div>
@@ -429,6 +481,7 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
           {parts ? (
             <PartsTable
               parts={parts}
+              type={input.compensator.type}
               topology={input.converter.topology}
               readOnly={readOnly}
               lock={lock?.part ?? 'r1'}
@@ -444,6 +497,19 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
           <SweepForm sweep={sweepInUse} custom={input.sweep !== undefined} fsw={input.converter.fsw} readOnly={readOnly} onChange={onSweepChange} />
         </Card>
       </div>
+
+      <RangePanel
+        range={input.range}
+        targets={input.targets}
+        seriesTol={across.seriesTol}
+        readOnly={readOnly}
+        corners={across.corners}
+        spread={across.spread}
+        stale={across.stale}
+        onChange={onRangeChange}
+        onRun={across.runSpread}
+        onCancel={across.cancelSpread}
+      />
     </div>
   );
 }

@@ -15,3 +15,4 @@ export * from './margins';
 export * from './signoff';
 export * from './traces';
 export * from './topologies';
+export * from './modes';

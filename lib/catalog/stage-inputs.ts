@@ -17,8 +17,8 @@ export type InputUnit = 'V' | 'A' | 'Hz' | 'H' | 'F' | 'Ω' | 'A/V' | 'V/A' | 'V
 export type InputBound = 'positive' | 'nonNegative';
 
 type StageSection = 'converter' | 'modulator' | 'feedback';
-/** The numeric fields of one section of the request. */
-type NumericField<T> = { [K in keyof T]-?: NonNullable<T[K]> extends number ? K : never }[keyof T] & string;
+/** The numeric fields of one section of the request (of every member, for the modulator's union). */
+type NumericField<T> = T extends unknown ? { [K in keyof T]-?: NonNullable<T[K]> extends number ? K : never }[keyof T] & string : never;
 /** The part of the request the stage inputs edit. */
 export type Stage = Pick<AnalyzeRequest, StageSection>;
 
@@ -58,6 +58,8 @@ export const STAGE_INPUTS: readonly InputSpec[] = [
   { section: 'converter', field: 'rc', group: 'Power stage', label: 'Capacitor ESR', symbol: 'RC', unit: 'Ω', bound: 'nonNegative', defaultValue: 0, help: 'Sets the ESR zero 1/(2π·RC·C).' },
   { section: 'converter', field: 'vd', group: 'Power stage', label: 'Diode drop', symbol: 'Vd', unit: 'V', bound: 'nonNegative', defaultValue: 0, plain: true, zeroMeans: 'synchronous', help: '0 = synchronous switch.' },
   { section: 'modulator', field: 'vramp', group: 'Modulator', label: 'PWM ramp', symbol: 'Vramp', unit: 'V', bound: 'positive', plain: true, help: 'Peak-to-peak ramp; the modulator gain is 1/Vramp.', appliesTo: { modulator: ['voltage'] } },
+  { section: 'modulator', field: 'ri', group: 'Modulator', label: 'Current-sense gain', symbol: 'Ri', unit: 'V/A', bound: 'positive', plain: true, help: 'Sensed volts per ampere of inductor (switch) current.', appliesTo: { modulator: ['peak-current'] } },
+  { section: 'modulator', field: 'se', group: 'Modulator', label: 'External ramp', symbol: 'Se', unit: 'V/s', bound: 'nonNegative', defaultValue: 0, zeroMeans: 'none', help: 'Slope compensation added to the sensed current; needed above D = 0.5.', appliesTo: { modulator: ['peak-current'] } },
   { section: 'feedback', field: 'vref', group: 'Feedback', label: 'Reference', symbol: 'Vref', unit: 'V', bound: 'positive', plain: true, help: 'Error-amplifier reference; sets the divider.' },
 ];
 
@@ -90,9 +92,12 @@ export function readInput(stage: Stage, spec: InputSpec): number | null {
     case 'converter':
       v = stage.converter[spec.field];
       break;
-    case 'modulator':
-      v = stage.modulator[spec.field];
+    case 'modulator': {
+      // Each mode has its own fields; one the stage's mode lacks reads as absent.
+      const m: unknown = Reflect.get(stage.modulator, spec.field);
+      v = typeof m === 'number' ? m : undefined;
       break;
+    }
     case 'feedback':
       v = stage.feedback[spec.field];
       break;

@@ -9,10 +9,12 @@ export const TOPOLOGY_LABELS = {
 
 export const MODULATOR_MODE_LABELS = {
   voltage: 'Voltage mode (fixed ramp)',
+  'peak-current': 'Peak current mode',
 } as const satisfies Record<ModulatorMode, string>;
 
 export const AMPLIFIER_LABELS = {
   opamp: 'Op-amp',
+  transconductance: 'Transconductance (gm)',
 } as const satisfies Record<Amplifier, string>;
 
 export const topologyLabel = (t: Topology): string => TOPOLOGY_LABELS[t];

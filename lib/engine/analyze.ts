@@ -1,19 +1,21 @@
 /**
- * The analysis: power stage → plant Gvd/Vramp → compensator Gc → loop T = Gc·Gvd/Vramp →
- * margins, standard parts (ideal and snapped) and checks.
+ * The analysis: power stage → plant (control-to-output under the modulator: Gvd/Vramp in
+ * voltage mode, Gvc in peak current mode, the DCM model at light load; control.ts) →
+ * compensator Gc → loop T = Gc·plant → margins, standard parts (ideal and snapped) and checks.
  *
  * Two entry points share one code path:
  * - analyze(request): the full result of POST /api/analyze;
  * - preparePlant(request) once, then analyzeLoop(prepared, compensator) per change: the Tune
  *   screen's drag loop. The plant's sweep is reused, only the compensator is swept again.
  */
-import { compensatorTransfer, dividerRb, summarizeCompensator } from './compensator';
-import { loopChecks, partChecks, stageChecks } from './checks';
+import { compensatorTransfer, dividerRb, gbwEnough, opAmpShapeError, shapeFromParts, summarizeCompensator } from './compensator';
+import { amplifierChecks, loopChecks, modulatorChecks, partChecks, stageChecks } from './checks';
+import { buildControlPlant } from './control';
 import { snapToSeries } from './eseries';
 import { computeMargins, computeMarginsFromComplex, type LoopPointEvaluator } from './margins';
-import { buildPlantModel, modulatedPlant, summarizePlant, type PlantModel } from './plant';
+import { esrZeroHint, type PlantModel } from './plant';
 import { defaultSweep, logSweep, makeGrid, sweepComplex, sweepTransfer, transferEvaluator, type Grid } from './sweep';
-import { multiplyTransfers, phaseOffsetDeg, type SectionedTransfer } from './transfer';
+import { multiplyTransfers, phaseOffsetDeg, summarizeTransfer, type SectionedTransfer } from './transfer';
 import { withLossDefaults } from './steady-state';
 import { compensatorIssues, stageIssues, validateRequest } from './validate';
 import {
@@ -27,6 +29,7 @@ import {
   type CompensatorSummary,
   type ConverterInput,
   type Margins,
+  type ModulatorSummary,
   type OperatingPoint,
   type PartsOptions,
   type PartsResult,
@@ -41,13 +44,22 @@ export type StageRequest = Pick<AnalyzeRequest, 'converter' | 'modulator' | 'fee
 /** The power stage analysed once, reused for every compensator change. */
 export interface PreparedPlant {
   converter: ConverterInput;
-  vramp: number;
   vref: number;
   sweep: SweepOptions;
+  /** The CCM averaged model of the stage (duty held). */
   model: PlantModel;
   operatingPoint: OperatingPoint;
-  /** Gvd/Vramp, sign-corrected. */
+  /** The modulator at the operating point (voltage: gain 1/Vramp; peak current: Ridley's quantities). */
+  modulator: ModulatorSummary;
+  /** DCM low-frequency pole, Hz; null in CCM. */
+  dcmPoleHz: number | null;
+  /** DC voltage at the modulator input (compensator output), V. */
+  controlVoltage: number;
+  /** Control-to-output under the modulator, sign-corrected: the loop's plant. */
   plantTransfer: SectionedTransfer;
+  /** Line-to-output and output impedance with the modulator input held. */
+  lineToOutputTransfer: SectionedTransfer;
+  outputImpedanceTransfer: SectionedTransfer;
   plant: TransferSummary;
   lineToOutput: TransferSummary;
   outputImpedance: TransferSummary;
@@ -76,24 +88,30 @@ export const preparePlant = (req: StageRequest): PreparedPlant => {
   const issues = stageIssues(req);
   if (issues.length > 0) throw new EngineInputError(issues);
   const converter = withLossDefaults(req.converter);
-  const model = buildPlantModel(converter);
-  const vramp = req.modulator.vramp;
-  const plantTransfer = modulatedPlant(model, vramp);
+  const control = buildControlPlant(converter, req.modulator);
+  const plantTransfer = control.plantTransfer;
   const sweep = req.sweep ?? defaultSweep(converter.fsw);
   const grid = makeGrid(logSweep(sweep.fStart, sweep.fStop, sweep.points));
-  const summaries = summarizePlant(model, converter, vramp);
+  const hint = esrZeroHint(converter);
+  const op = control.operatingPoint;
   return {
     converter,
-    vramp,
     vref: req.feedback.vref,
     sweep,
-    model,
-    operatingPoint: model.operatingPoint,
+    model: control.model,
+    operatingPoint: op,
+    modulator: control.modulator,
+    dcmPoleHz: control.dcmPoleHz,
+    controlVoltage: control.controlVoltage,
     plantTransfer,
-    ...summaries,
+    lineToOutputTransfer: control.lineToOutput,
+    outputImpedanceTransfer: control.outputImpedance,
+    plant: summarizeTransfer(plantTransfer, hint),
+    lineToOutput: summarizeTransfer(control.lineToOutput, hint),
+    outputImpedance: summarizeTransfer(control.outputImpedance, hint),
     grid,
     plantTrace: sweepTransfer(plantTransfer, grid),
-    stageChecks: stageChecks(model.operatingPoint),
+    stageChecks: [...stageChecks(op), ...modulatorChecks(op, control.modulator, control.dcmPoleHz)],
   };
 };
 
@@ -108,9 +126,20 @@ export const evaluateLoopGain = (
   comp: SectionedTransfer | CompensatorInput,
   startDeg?: number,
 ): LoopPointEvaluator => {
-  const gc = 'type' in comp ? compensatorTransfer(comp) : comp;
+  const gc = 'type' in comp ? loopCompensatorTransfer(prepared, comp) : comp;
   return transferEvaluator(multiplyTransfers(prepared.plantTransfer, gc), prepared.grid.f[0], startDeg);
 };
+
+/**
+ * Gc as the loop sees it. A finite op-amp's inverting input is loaded by the divider's Rb
+ * (set by vref unless given), so Rb is filled in before the transfer is built.
+ */
+export const loopCompensatorTransfer = (prepared: PreparedPlant, comp: CompensatorInput): SectionedTransfer =>
+  compensatorTransfer(withLoopDivider(prepared, comp));
+
+/** The compensator with the divider's Rb filled in where the loop needs it (a finite op-amp). */
+export const withLoopDivider = (prepared: PreparedPlant, comp: CompensatorInput): CompensatorInput =>
+  comp.opamp && comp.amplifier !== 'transconductance' && comp.rb === undefined ? { ...comp, rb: divider(prepared, comp) } : comp;
 
 /** Loop gain on the grid (plant sweep reused) and its analytic evaluator on the same branch. */
 const sweepLoop = (prepared: PreparedPlant, comp: SectionedTransfer) => {
@@ -148,11 +177,38 @@ const loopWork = { re: [] as number[], im: [] as number[] };
  */
 export const marginsForCompensator = (prepared: PreparedPlant, comp: CompensatorInput): Margins => {
   checkCompensator(comp);
-  const loop = multiplyTransfers(prepared.plantTransfer, compensatorTransfer(comp));
-  const { f } = prepared.grid;
-  const t = sweepComplex(loop, prepared.grid, loopWork);
+  return loopMargins(prepared.plantTransfer, prepared.grid, withLoopDivider(prepared, comp));
+};
+
+/**
+ * The margins of marginsForCompensator from the plant transfer alone (the tolerance spread's
+ * hot path: no operating-point summaries, no plant trace). Assumes validated parts; a finite
+ * op-amp's Rb is read from comp.rb (see withLoopDivider).
+ */
+export const loopMargins = (plantTransfer: SectionedTransfer, grid: Grid, comp: CompensatorInput): Margins => {
+  const loop = multiplyTransfers(plantTransfer, compensatorTransfer(comp));
+  const { f } = grid;
+  const t = sweepComplex(loop, grid, loopWork);
   return computeMarginsFromComplex(f, t.re, t.im, transferEvaluator(loop, f[0]));
 };
+
+/**
+ * The plant of the loop (the mode's control-to-output, control.ts) and the sweep grid, and
+ * nothing else: what loopMargins needs per sample of the spread. The same model preparePlant
+ * builds. Assumes a validated stage.
+ */
+export const loopPlant = (req: StageRequest): { plantTransfer: SectionedTransfer; grid: Grid } => {
+  const converter = withLossDefaults(req.converter);
+  const sweep = req.sweep ?? defaultSweep(converter.fsw);
+  return {
+    plantTransfer: buildControlPlant(converter, req.modulator).plantTransfer,
+    grid: makeGrid(logSweep(sweep.fStart, sweep.fStop, sweep.points)),
+  };
+};
+
+/** The plant transfer of a stage (validated) on a grid already made: one sample of the spread. */
+export const loopPlantTransfer = (req: StageRequest): SectionedTransfer =>
+  buildControlPlant(withLossDefaults(req.converter), req.modulator).plantTransfer;
 
 /**
  * Fast path for the Tune screen: loop, margins, Bode traces and checks for a compensator on
@@ -160,9 +216,20 @@ export const marginsForCompensator = (prepared: PreparedPlant, comp: Compensator
  */
 export const analyzeLoop = (prepared: PreparedPlant, comp: CompensatorInput): LoopResult => {
   checkCompensator(comp);
-  const { compTrace, loop, evaluate } = sweepLoop(prepared, compensatorTransfer(comp));
+  const gc = loopCompensatorTransfer(prepared, comp);
+  const { compTrace, loop, evaluate } = sweepLoop(prepared, gc);
   const margins = computeMargins(loop, evaluate);
-  const rb = dividerRb(comp.r1, prepared.vref, prepared.converter.vout);
+  const rb = divider(prepared, comp);
+  const fsw = prepared.converter.fsw;
+  let shapeError = null;
+  let gbwEnoughHz = null;
+  if (comp.opamp && comp.amplifier !== 'transconductance') {
+    const placed = shapeFromParts(comp).polesHz.filter((f) => f < fsw / 2);
+    const freqs = margins.crossoverHz !== null ? [margins.crossoverHz, ...placed] : placed;
+    const loaded = comp.rb === undefined ? { ...comp, rb } : comp;
+    shapeError = opAmpShapeError(loaded, freqs, gc);
+    if (shapeError.worstDb > 1 || shapeError.worstDeg > 5) gbwEnoughHz = gbwEnough(loaded, freqs);
+  }
   return {
     compensator: summarizeCompensator(comp),
     margins,
@@ -177,9 +244,14 @@ export const analyzeLoop = (prepared: PreparedPlant, comp: CompensatorInput): Lo
       ...prepared.stageChecks,
       ...loopChecks({ margins, loop, fsw: prepared.converter.fsw, rhpZeroHz: prepared.plant.rhpZeroHz }),
       ...partChecks(comp, rb),
+      ...amplifierChecks({ comp, shapeError, gbwEnoughHz, vref: prepared.vref, vout: prepared.converter.vout }),
     ],
   };
 };
+
+/** The divider's lower resistor: given with a transconductance amplifier, else set by vref. */
+const divider = (prepared: PreparedPlant, comp: CompensatorInput): number =>
+  comp.rb !== undefined && comp.rb > 0 ? comp.rb : dividerRb(comp.r1, prepared.vref, prepared.converter.vout);
 
 /** Parts as the contract lists them: unused parts null, C2 0 when absent. */
 export const partValues = (comp: CompensatorInput, rb: number | null): PartValues => ({
@@ -192,15 +264,28 @@ export const partValues = (comp: CompensatorInput, rb: number | null): PartValue
   rb,
 });
 
-/** Compensator with every part snapped to its series (C2 = 0 stays absent). */
+/**
+ * Compensator with every part snapped to its series (C2 = 0 stays absent); a
+ * transconductance stage's Rb is snapped too, the amplifier's own gm, ro and an op-amp
+ * model are kept.
+ */
 export const snapCompensator = (comp: CompensatorInput, parts: PartsOptions): CompensatorInput => {
   const r = (v: number | undefined) => (v === undefined ? undefined : snapToSeries(v, parts.resistorSeries));
   const c = (v: number | undefined) => (v === undefined || v === 0 ? v : snapToSeries(v, parts.capacitorSeries));
-  return { type: comp.type, r1: r(comp.r1)!, r2: r(comp.r2), r3: r(comp.r3), c1: c(comp.c1)!, c2: c(comp.c2), c3: c(comp.c3) };
+  return {
+    ...comp,
+    r1: r(comp.r1)!,
+    r2: r(comp.r2),
+    r3: r(comp.r3),
+    c1: c(comp.c1)!,
+    c2: c(comp.c2),
+    c3: c(comp.c3),
+    ...(comp.amplifier === 'transconductance' ? { rb: r(comp.rb) } : {}),
+  };
 };
 
 const sameParts = (a: CompensatorInput, b: CompensatorInput) =>
-  a.type === b.type && a.r1 === b.r1 && a.r2 === b.r2 && a.r3 === b.r3 && a.c1 === b.c1 && a.c2 === b.c2 && a.c3 === b.c3;
+  a.type === b.type && a.r1 === b.r1 && a.r2 === b.r2 && a.r3 === b.r3 && a.c1 === b.c1 && a.c2 === b.c2 && a.c3 === b.c3 && a.rb === b.rb;
 
 /**
  * Ideal and snapped parts with the margins the snapped parts give (defaults: E96 resistors,
@@ -216,7 +301,7 @@ export const analyzeParts = (
 ): PartsResult => {
   const series = { ...DEFAULT_PARTS, ...options };
   const snappedComp = snapCompensator(comp, series);
-  const rb = dividerRb(comp.r1, prepared.vref, prepared.converter.vout);
+  const rb = divider(prepared, comp);
   return {
     resistorSeries: series.resistorSeries,
     capacitorSeries: series.capacitorSeries,
@@ -238,6 +323,8 @@ export const analyze = (request: AnalyzeRequest): AnalyzeResult => {
   return {
     operatingPoint: prepared.operatingPoint,
     plant: prepared.plant,
+    modulator: prepared.modulator,
+    dcmPoleHz: prepared.dcmPoleHz,
     lineToOutput: prepared.lineToOutput,
     outputImpedance: prepared.outputImpedance,
     compensator: loop.compensator,

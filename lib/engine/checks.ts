@@ -14,12 +14,15 @@
  *   crossover-above-sweep  caution / risk   |T| still above 0 dB at the sweep's end (risk when the end is at or above fsw/2)
  *   no-crossover           risk             |T| never reaches 0 dB in the sweep
  *   duty-extreme           caution          D outside 5–95 %
- *   dcm-at-load            risk             the load is below the CCM/DCM boundary
+ *   dcm-model              note             the load is below the CCM/DCM boundary: the DCM model is in use
+ *   subharmonic            risk / caution   peak current mode: mc·D' ≤ 0.5 (unstable current loop) / Qp > 2
+ *   opamp-bandwidth        caution          a finite op-amp moves the placed shape by > 1 dB or 5°
+ *   divider-setpoint       caution          a transconductance stage's R1/Rb do not set vout from vref
  *   part-range             note             R below 1 kΩ or above 1 MΩ, C below 10 pF
  */
 import { formatSi } from '@/lib/units/si';
 import { MARGIN_LIMITS } from '@/lib/catalog/margins';
-import type { Check, CompensatorInput, Margins, OperatingPoint } from './types';
+import type { Check, CompensatorInput, Margins, ModulatorSummary, OperatingPoint } from './types';
 import type { SampledResponse } from './margins';
 
 const hz = (v: number) => formatSi(v, 'Hz');
@@ -124,7 +127,7 @@ export const loopChecks = (args: {
     out.push({
       id: 'gain-margin-low',
       level: 'risk',
-      message: `Gain margin is ${db(gm)} (under ${GM.risk} dB)${gm <= 0 ? ': the loop is unstable' : ''}; part tolerances or a change of input voltage can make it oscillate. Lower the high-frequency gain (the compensator's mid-band gain) or move its poles down.`,
+      message: `Gain margin is ${db(gm)} (under ${GM.risk} dB)${gm <= 0 ? ': the loop is unstable' : ''}; part tolerances or a change of input voltage can make it oscillate. Lower the gain above fc (the compensator's gain handle) or move its poles down.`,
     });
   } else if (gm !== null && gm < GM.caution) {
     out.push({
@@ -157,12 +160,40 @@ export const stageChecks = (op: OperatingPoint): Check[] => {
       message: `Duty cycle is ${(op.duty * 100).toFixed(1)} %, outside 5–95 %: minimum on- or off-times of real controllers may not allow it, and small-signal gain changes fast with D. Choose another topology, input range or switching frequency.`,
     });
   }
+  return out;
+};
+
+/**
+ * Checks of the modulator and conduction mode. DCM: a note that the DCM model is in use.
+ * Peak current mode in CCM (Ridley 1991): mc·D' ≤ 0.5 puts the double pole at fsw/2 in the
+ * right half plane (subharmonic oscillation of the current loop: risk); Qp > 2 leaves it
+ * lightly damped (caution; Qp near 1 is the usual aim, common practice).
+ */
+export const modulatorChecks = (op: OperatingPoint, mod: ModulatorSummary, dcmPoleHz: number | null): Check[] => {
+  const out: Check[] = [];
   if (op.conduction === 'DCM') {
     out.push({
-      id: 'dcm-at-load',
-      level: 'risk',
-      message: `At this load the inductor current falls to zero each cycle (DCM: ripple ${formatSi(op.inductorRipplePp, 'A')} p-p against ${formatSi(op.inductorCurrent, 'A')} average); the CCM model shown here does not apply. Use L above ${formatSi(op.criticalInductance, 'H')} or a load above ${formatSi(op.criticalLoadCurrent, 'A')}.`,
+      id: 'dcm-model',
+      level: 'note',
+      message: `At this load the inductor current falls to zero each cycle (DCM: D = ${(op.duty * 100).toFixed(1)} %, diode interval ${((op.dcmDiodeDuty ?? 0) * 100).toFixed(1)} %), so the loop is drawn with the DCM averaged model: one low-frequency pole${dcmPoleHz !== null ? ` at ${hz(dcmPoleHz)}` : ''} instead of the LC double pole. Above ${formatSi(op.criticalLoadCurrent, 'A')} the stage is in CCM; check the loop at full load too.`,
     });
+  }
+  if (mod.mode === 'peak-current' && op.conduction === 'CCM') {
+    const x = mod.mc * op.dutyComplement;
+    const slope = (v: number) => formatSi(v, 'V/s');
+    if (x <= 0.5) {
+      out.push({
+        id: 'subharmonic',
+        level: 'risk',
+        message: `The current loop is unstable at D = ${(op.duty * 100).toFixed(1)} %: mc·D' = ${x.toFixed(3)} is not above 0.5, so the sampling double pole at ${hz(mod.samplingPoleHz ?? 0)} lies in the right half plane (subharmonic oscillation). Raise the external ramp Se above ${slope(mod.seMinStable)}; ${slope(mod.seForQp1)} gives Qp = 1.`,
+      });
+    } else if (mod.qp !== null && mod.qp > 2) {
+      out.push({
+        id: 'subharmonic',
+        level: 'caution',
+        message: `Qp = ${mod.qp.toFixed(2)} (above 2): the double pole at ${hz(mod.samplingPoleHz ?? 0)} peaks sharply and the current loop rings near fsw/2 at this duty. An external ramp of ${slope(mod.seForQp1)} gives Qp = 1.`,
+      });
+    }
   }
   return out;
 };
@@ -198,4 +229,40 @@ export const partChecks = (comp: CompensatorInput, rb: number | null): Check[] =
       message: `${problems.join('; ')}. Change R1 and let the other parts scale with it, keeping the same poles and zeros.`,
     },
   ];
+};
+
+/**
+ * Amplifier checks. opamp-bandwidth: a finite op-amp (single pole, a0 and GBW) moves the
+ * placed shape by more than 1 dB or 5° at fc or at a placed pole below fsw/2 (the inverting
+ * stage's gain falls where the noise gain 1 + |Zf/Zi| meets |A|; Sedra & Smith, ch. 2).
+ * divider-setpoint: with a transconductance amplifier R1 and Rb are given, and vout·Rb/(R1+Rb)
+ * should equal vref (within 1 %).
+ */
+export const amplifierChecks = (args: {
+  comp: CompensatorInput;
+  shapeError: { worstDb: number; worstDeg: number; atHz: number | null } | null;
+  gbwEnoughHz: number | null;
+  vref: number;
+  vout: number;
+}): Check[] => {
+  const out: Check[] = [];
+  const { comp, shapeError } = args;
+  if (shapeError && comp.opamp && (shapeError.worstDb > 1 || shapeError.worstDeg > 5)) {
+    out.push({
+      id: 'opamp-bandwidth',
+      level: 'caution',
+      message: `The op-amp (a0 ${comp.opamp.a0.toPrecision(3)}, GBW ${hz(comp.opamp.gbw)}) bends the placed compensator by up to ${db(shapeError.worstDb)} and ${deg(shapeError.worstDeg)}${shapeError.atHz !== null ? ` (near ${hz(shapeError.atHz)})` : ''}: the loop drawn includes it, but the poles and zeros are no longer where the handles put them. ${args.gbwEnoughHz !== null ? `A GBW of about ${hz(args.gbwEnoughHz)} would keep within 1 dB and 5°.` : 'Even a much faster op-amp would not: its DC gain a0 is the limit; use one with more gain.'}`,
+    });
+  }
+  if (comp.amplifier === 'transconductance' && comp.rb !== undefined && comp.rb > 0) {
+    const set = (Math.abs(args.vout) * comp.rb) / (comp.r1 + comp.rb);
+    if (Math.abs(set - args.vref) > 0.01 * args.vref) {
+      out.push({
+        id: 'divider-setpoint',
+        level: 'caution',
+        message: `R1 and Rb divide ${formatSi(Math.abs(args.vout), 'V')} to ${formatSi(set, 'V')}, not to vref ${formatSi(args.vref, 'V')}: the output would settle at ${formatSi((args.vref * (comp.r1 + comp.rb)) / comp.rb, 'V')}. Rb = ${formatSi((comp.r1 * args.vref) / (Math.abs(args.vout) - args.vref), 'Ω')} sets it.`,
+      });
+    }
+  }
+  return out;
 };

@@ -7,8 +7,7 @@
  * Built from the prepared stage's transfers only, so every control mode that provides them
  * is handled alike.
  */
-import type { PreparedPlant } from './analyze';
-import { compensatorTransfer } from './compensator';
+import { loopCompensatorTransfer, type PreparedPlant } from './analyze';
 import type { LoopBlocks } from './linear-loop';
 import { transferPolys, type SectionedTransfer } from './transfer';
 import type { BodeTrace, CompensatorInput } from './types';
@@ -19,9 +18,9 @@ const RAD2DEG = 180 / Math.PI;
 /** The loop's four transfers from a prepared stage (open-loop line and impedance as analyze() reports them). */
 export const loopBlocks = (prepared: PreparedPlant, comp: CompensatorInput): LoopBlocks => ({
   control: prepared.plantTransfer,
-  line: prepared.model.gvg,
-  zout: prepared.model.zout,
-  compensator: compensatorTransfer(comp),
+  line: prepared.lineToOutputTransfer,
+  zout: prepared.outputImpedanceTransfer,
+  compensator: loopCompensatorTransfer(prepared, comp),
 });
 
 /** Complex H(jω) of a sectioned transfer, [re, im], by Horner on the full polynomials. */

@@ -12,10 +12,22 @@
  * which reduce to (Basso 2012, from memory; checked by algebra in the tests):
  *   Gc = (1 + sR2C1)(1 + s(R1+R3)C3) / [s·R1(C1+C2)·(1 + sR2·C1C2/(C1+C2))·(1 + sR3C3)]
  * Type II drops the C3 factors; Type I is 1/(sR1C1).
+ *
+ * A finite op-amp A(s) = a0/(1 + s·a0/(2π·GBW)) turns the inverting stage into
+ *   Gc = (Zf/Zi) / (1 + (1 + Zf/Zi)/A) = A·Zf / ((1 + A)·Zi + Zf)
+ * (Sedra & Smith, Microelectronic Circuits, ch. 2: the inverting amplifier with finite gain).
+ *
+ * A transconductance amplifier drives its output network Zo = ro ∥ (R2 + 1/(sC1)) ∥ 1/(sC2)
+ * from the divider's tap: Gc = gm·H(s)·Zo(s), H = Rb/(Rb + R1 ∥ (R3 + 1/(sC3))), i.e.
+ *   H = H0·(1 + s(R1+R3)C3) / (1 + s(R3 + R1∥Rb)C3),  H0 = Rb/(R1 + Rb);
+ * with ro infinite, Zo = (1 + sR2C1) / (s(C1+C2)(1 + sR2C1C2/(C1+C2))), the op-amp Type II
+ * shape with 1/R1 replaced by gm·H0. Here the divider is inside the loop (no virtual ground).
  */
 import Complex from 'complex.js';
-import type { SectionedTransfer } from './transfer';
-import { dbFromMag } from './transfer';
+import { polyMul } from './complex-poly';
+import { multiplyTransfers, polyAdd, transferFromAnyPolys, transferFromPolys, type SectionedTransfer } from './transfer';
+import { dbFromMag, wrapDeg } from './transfer';
+import { transferEvaluator } from './sweep';
 import {
   EngineInputError,
   type CompensatorInput,
@@ -61,7 +73,7 @@ export const compensatorImpedances = (comp: CompensatorInput, s: Complex): { zi:
  * denominator (1 + sR2C1C2/(C1+C2))(1+sR3C3). Factors of one kind are merged into a single
  * quadratic section (both angles lie in 0…90°, so the merged angle stays continuous).
  */
-export const compensatorTransfer = (comp: CompensatorInput): SectionedTransfer => {
+const idealOpAmpTransfer = (comp: CompensatorInput): SectionedTransfer => {
   const p = partsOf(comp);
   if (comp.type === 'type1') return { gain: 1 / (p.r1 * p.c1), originOrder: -1, num: [], den: [] };
   const ct = p.c1 + p.c2;
@@ -81,10 +93,76 @@ export const compensatorTransfer = (comp: CompensatorInput): SectionedTransfer =
   };
 };
 
-/** Integrator 0 dB frequency 1/(2π·R1·(C1+C2)), Hz. */
+/** Zi = Ni/Di and Zf = Nf/Df of the op-amp stage as ascending polynomials. */
+const opAmpPolys = (comp: CompensatorInput) => {
+  const p = partsOf(comp);
+  const zi = comp.type === 'type3' ? { n: [p.r1, p.r1 * p.r3 * p.c3], d: [1, (p.r1 + p.r3) * p.c3] } : { n: [p.r1], d: [1] };
+  const zf = comp.type === 'type1' ? { n: [1], d: [0, p.c1] } : { n: [1, p.r2 * p.c1], d: [0, p.c1 + p.c2, p.r2 * p.c1 * p.c2] };
+  return { zi, zf };
+};
+
+/**
+ * The op-amp stage with a finite single-pole op-amp. The divider's Rb (comp.rb, when given)
+ * sits at the inverting input, which is no longer a virtual ground, and adds to the noise
+ * gain: Gc = A·Zf / ((1 + A)·Zi + Zf + Zi·Zf/Rb); Rb → ∞ is the textbook stage. As
+ * polynomials: a0·Nf·Di / ((1 + a0 + sτ)·Ni·Df + (1 + sτ)·(Nf·Di + Ni·Nf/Rb)), τ = a0/(2π·GBW).
+ */
+const realOpAmpTransfer = (comp: CompensatorInput, a0: number, gbw: number): SectionedTransfer => {
+  const { zi, zf } = opAmpPolys(comp);
+  const tau = a0 / (TWO_PI * gbw);
+  const nfdi = polyMul(zf.n, zi.d);
+  const num = nfdi.map((c) => c * a0);
+  const loadRb = comp.rb !== undefined && comp.rb > 0 ? polyMul(zi.n, zf.n).map((c) => c / comp.rb!) : [0];
+  const den = polyAdd(polyMul(polyMul(zi.n, zf.d), [1 + a0, tau]), polyMul(polyAdd(nfdi, loadRb), [1, tau]));
+  return transferFromAnyPolys(num, den);
+};
+
+/** H0 = Rb/(R1 + Rb) and R1∥Rb of a transconductance stage. */
+const dividerOf = (comp: CompensatorInput) => {
+  const rb = comp.rb ?? 0;
+  return { h0: rb / (comp.r1 + rb), rp: (comp.r1 * rb) / (comp.r1 + rb) };
+};
+
+/** gm·H(s)·Zo(s) (module header). */
+const transconductanceTransfer = (comp: CompensatorInput): SectionedTransfer => {
+  const p = partsOf(comp);
+  const { h0, rp } = dividerOf(comp);
+  const g = comp.ro !== undefined && comp.ro > 0 ? 1 / comp.ro : 0;
+  // Zo = (1 + sR2C1) / (g(1 + sR2C1) + s(C1 + C2) + s²R2C1C2)
+  const zo = transferFromPolys([1, p.r2 * p.c1], [g, g * p.r2 * p.c1 + p.c1 + p.c2, p.r2 * p.c1 * p.c2]);
+  const gain: SectionedTransfer = { gain: (comp.gm ?? 0) * h0, originOrder: 0, num: [], den: [] };
+  if (comp.type !== 'type3') return multiplyTransfers(gain, zo);
+  const h = transferFromPolys([1, (p.r1 + p.r3) * p.c3], [1, (p.r3 + rp) * p.c3]);
+  return multiplyTransfers(gain, h, zo);
+};
+
+/** Gc of any compensator: ideal or finite op-amp stage, or transconductance amplifier. */
+export const compensatorTransfer = (comp: CompensatorInput): SectionedTransfer => {
+  if (comp.amplifier === 'transconductance') return transconductanceTransfer(comp);
+  if (comp.opamp) return realOpAmpTransfer(comp, comp.opamp.a0, comp.opamp.gbw);
+  return idealOpAmpTransfer(comp);
+};
+
+/** The same compensator with an ideal amplifier (finite op-amp model dropped). */
+export const idealCompensatorTransfer = (comp: CompensatorInput): SectionedTransfer =>
+  comp.amplifier === 'transconductance' ? transconductanceTransfer(comp) : idealOpAmpTransfer(comp);
+
+/**
+ * Integrator 0 dB frequency, Hz: op-amp 1/(2π·R1·(C1+C2)); transconductance
+ * gm·H0/(2π·(C1+C2)) (the asymptote with ro infinite).
+ */
 export const integratorHz = (comp: CompensatorInput): number => {
   const p = partsOf(comp);
+  if (comp.amplifier === 'transconductance') return ((comp.gm ?? 0) * dividerOf(comp).h0) / (TWO_PI * (p.c1 + p.c2));
   return 1 / (TWO_PI * p.r1 * (p.c1 + p.c2));
+};
+
+/** What the handles carry through unchanged. */
+const fixedOf = (comp: CompensatorInput): CompensatorShape['fixed'] => {
+  if (comp.amplifier === 'transconductance') {
+    return { amplifier: 'transconductance', gm: comp.gm, rb: comp.rb, ...(comp.ro !== undefined ? { ro: comp.ro } : {}) };
+  }
+  return comp.opamp ? { amplifier: comp.amplifier ?? 'opamp', opamp: comp.opamp } : comp.amplifier ? { amplifier: comp.amplifier } : undefined;
 };
 
 /**
@@ -96,13 +174,15 @@ export const integratorHz = (comp: CompensatorInput): number => {
  */
 export const shapeFromParts = (comp: CompensatorInput): CompensatorShape => {
   const p = partsOf(comp);
-  const base = { type: comp.type, r1: p.r1, integratorHz: integratorHz(comp) };
+  const fixed = fixedOf(comp);
+  const base = { type: comp.type, r1: p.r1, integratorHz: integratorHz(comp), ...(fixed ? { fixed } : {}) };
   if (comp.type === 'type1') return { ...base, zerosHz: [], polesHz: [] };
   const fz1 = 1 / (TWO_PI * p.r2 * p.c1);
   const fp1 = p.c2 > 0 ? (p.c1 + p.c2) / (TWO_PI * p.r2 * p.c1 * p.c2) : null;
   if (comp.type === 'type2') return { ...base, zerosHz: [fz1], polesHz: fp1 === null ? [] : [fp1] };
   const fz2 = 1 / (TWO_PI * (p.r1 + p.r3) * p.c3);
-  const fp2 = 1 / (TWO_PI * p.r3 * p.c3);
+  const r3Pole = comp.amplifier === 'transconductance' ? p.r3 + dividerOf(comp).rp : p.r3;
+  const fp2 = 1 / (TWO_PI * r3Pole * p.c3);
   return { ...base, zerosHz: [fz1, fz2], polesHz: fp1 === null ? [fp2] : [fp1, fp2] };
 };
 
@@ -124,8 +204,12 @@ export const partsFromShape = (shape: CompensatorShape): CompensatorInput => {
   const r1 = shape.r1;
   if (!(r1 > 0) || !Number.isFinite(r1)) throw new EngineInputError([{ path: 'shape.r1', message: 'R1 must be above 0 Ω' }]);
   const fi = positive(shape.integratorHz, 'shape.integratorHz', 'the integrator 0 dB frequency');
-  const ct = 1 / (TWO_PI * r1 * fi);
-  if (shape.type === 'type1') return { type: 'type1', r1, c1: ct };
+  const fixed = shape.fixed ?? {};
+  const gmStage = fixed.amplifier === 'transconductance';
+  const divider = gmStage ? dividerOf({ type: shape.type, r1, c1: 1, rb: fixed.rb }) : null;
+  // Op-amp: Ct = 1/(2π·R1·fi); transconductance: Ct = gm·H0/(2π·fi).
+  const ct = divider ? ((fixed.gm ?? 0) * divider.h0) / (TWO_PI * fi) : 1 / (TWO_PI * r1 * fi);
+  if (shape.type === 'type1') return { type: 'type1', r1, c1: ct, ...fixed };
   const fz1 = positive(shape.zerosHz[0], 'shape.zerosHz.0', 'the first zero');
   const hasP1 = shape.type === 'type2' ? shape.polesHz.length > 0 : shape.polesHz.length > 1;
   let c2 = 0;
@@ -140,7 +224,7 @@ export const partsFromShape = (shape: CompensatorShape): CompensatorInput => {
   }
   const c1 = ct - c2;
   const r2 = 1 / (TWO_PI * fz1 * c1);
-  if (shape.type === 'type2') return { type: 'type2', r1, r2, c1, c2 };
+  if (shape.type === 'type2') return { type: 'type2', r1, r2, c1, c2, ...fixed };
   const fz2 = positive(shape.zerosHz[1], 'shape.zerosHz.1', 'the second zero');
   const idx = hasP1 ? 1 : 0;
   const fp2 = positive(shape.polesHz[idx], `shape.polesHz.${idx}`, 'the R3·C3 pole');
@@ -149,9 +233,25 @@ export const partsFromShape = (shape: CompensatorShape): CompensatorInput => {
       { path: `shape.polesHz.${idx}`, message: 'the R3·C3 pole must sit above the (R1+R3)·C3 zero; move the pole up or the zero down' },
     ]);
   }
+  if (divider) {
+    // fz2 = 1/(2π(R1+R3)C3), fp2 = 1/(2π(R3 + R1∥Rb)C3): k = fp2/fz2 < R1/(R1∥Rb) = (R1+Rb)/Rb.
+    const k = fp2 / fz2;
+    const kMax = r1 / divider.rp;
+    if (k >= kMax) {
+      throw new EngineInputError([
+        {
+          path: `shape.polesHz.${idx}`,
+          message: `with a transconductance amplifier the R3·C3 pole can sit at most ${kMax.toFixed(2)}× above its zero (the divider ratio (R1+Rb)/Rb); move them closer`,
+        },
+      ]);
+    }
+    const r3 = (r1 - k * divider.rp) / (k - 1);
+    const c3 = 1 / (TWO_PI * fz2 * (r1 + r3));
+    return { type: 'type3', r1, r2, r3, c1, c2, c3, ...fixed };
+  }
   const r3 = r1 / (fp2 / fz2 - 1);
   const c3 = 1 / (TWO_PI * fp2 * r3);
-  return { type: 'type3', r1, r2, r3, c1, c2, c3 };
+  return { type: 'type3', r1, r2, r3, c1, c2, c3, ...fixed };
 };
 
 /**
@@ -162,13 +262,23 @@ export const summarizeCompensator = (comp: CompensatorInput): CompensatorSummary
   const shape = shapeFromParts(comp);
   const p = partsOf(comp);
   let mid: number | null = null;
+  const gmStage = comp.amplifier === 'transconductance';
   if (comp.type !== 'type1') {
-    mid = (p.r2 * p.c1) / (p.r1 * (p.c1 + p.c2));
-    if (comp.type === 'type3') mid *= (p.r1 + p.r3) / p.r3;
+    if (gmStage) {
+      const { h0, rp } = dividerOf(comp);
+      mid = ((comp.gm ?? 0) * h0 * p.r2 * p.c1) / (p.c1 + p.c2);
+      if (comp.type === 'type3') mid *= (p.r1 + p.r3) / (p.r3 + rp);
+    } else {
+      mid = (p.r2 * p.c1) / (p.r1 * (p.c1 + p.c2));
+      if (comp.type === 'type3') mid *= (p.r1 + p.r3) / p.r3;
+    }
   }
+  // A finite ro moves the integrator's origin pole to 1/(2π·ro·(C1+C2)).
+  const lowPole = gmStage && comp.ro !== undefined && comp.ro > 0 ? 1 / (TWO_PI * comp.ro * (p.c1 + p.c2)) : 0;
   return {
     type: comp.type,
-    polesHz: [0, ...shape.polesHz],
+    amplifier: comp.amplifier ?? 'opamp',
+    polesHz: [lowPole, ...shape.polesHz],
     zerosHz: shape.zerosHz,
     midbandGainDb: mid === null ? null : dbFromMag(mid),
     integratorHz: shape.integratorHz,
@@ -181,3 +291,53 @@ export const summarizeCompensator = (comp: CompensatorInput): CompensatorSummary
  * output, so it senses |Vout| across R1 + Rb.
  */
 export const dividerRb = (r1: number, vref: number, vout: number): number => (r1 * vref) / (Math.abs(vout) - vref);
+
+/**
+ * Largest departure of a finite op-amp stage from its ideal shape over the given frequencies:
+ * |Δ magnitude| in dB and |Δ phase| in degrees, and where each occurs.
+ */
+export const opAmpShapeError = (
+  comp: CompensatorInput,
+  freqsHz: readonly number[],
+  realTransfer?: SectionedTransfer,
+): { worstDb: number; worstDeg: number; atHz: number | null } => {
+  let worstDb = 0;
+  let worstDeg = 0;
+  let atHz: number | null = null;
+  if (!comp.opamp || comp.amplifier === 'transconductance' || freqsHz.length === 0) return { worstDb, worstDeg, atHz };
+  const real = transferEvaluator(realTransfer ?? compensatorTransfer(comp), freqsHz[0]);
+  const ideal = transferEvaluator(idealCompensatorTransfer(comp), freqsHz[0]);
+  for (const f of freqsHz) {
+    const a = real(f);
+    const b = ideal(f);
+    const dDb = Math.abs(a.magDb - b.magDb);
+    const dDeg = Math.abs(wrapDeg(a.phaseDeg - b.phaseDeg));
+    if (dDb > worstDb || dDeg > worstDeg) atHz = f;
+    worstDb = Math.max(worstDb, dDb);
+    worstDeg = Math.max(worstDeg, dDeg);
+  }
+  return { worstDb, worstDeg, atHz };
+};
+
+/**
+ * A GBW that keeps the stage within 1 dB and 5° of its ideal shape at the given frequencies.
+ * First estimate: the realised gain is the ideal one divided by 1 + NG/A with the noise gain
+ * NG = 1 + Zf/(Zi ∥ Rb) (Sedra & Smith, ch. 2); with A ≈ GBW/(j·f) well above the op-amp's
+ * pole, |NG/A| ≤ 0.08 (≈ 5°) needs GBW ≥ f·|NG(f)|/0.08. The estimate is then checked and
+ * doubled until it holds (at most 6 times); null when a0 itself is the limit.
+ */
+export const gbwEnough = (comp: CompensatorInput, freqsHz: readonly number[]): number | null => {
+  if (!comp.opamp) return null;
+  let gbw = comp.opamp.gbw;
+  for (const f of freqsHz) {
+    const s = new Complex(0, TWO_PI * f);
+    const { zi, zf } = compensatorImpedances(comp, s);
+    const zin = comp.rb !== undefined && comp.rb > 0 ? zi.mul(comp.rb).div(zi.add(comp.rb)) : zi;
+    gbw = Math.max(gbw, (f * zf.div(zin).add(1).abs()) / 0.08);
+  }
+  for (let k = 0; k < 6; k++, gbw *= 2) {
+    const e = opAmpShapeError({ ...comp, opamp: { ...comp.opamp, gbw } }, freqsHz);
+    if (e.worstDb <= 1 && e.worstDeg <= 5) return gbw;
+  }
+  return null;
+};

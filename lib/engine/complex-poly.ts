@@ -123,3 +123,132 @@ export const polyRoots = (p: Poly): Complex[] => {
 /** Polynomial with the given real roots and p(0) = 1: Π (1 − s/r). Roots must be non-zero. */
 export const polyFromRealRoots = (roots: readonly number[]): number[] =>
   roots.reduce<number[]>((acc, r) => polyMul(acc, [1, -1 / r]), [1]);
+
+/**
+ * Bairstow's method: one quadratic factor x² − r·x − s of a real polynomial (ascending
+ * coefficients a, degree n ≥ 3), in real arithmetic. Returns the factor and the quotient
+ * (ascending, degree n − 2), or null when it does not converge from the given start.
+ */
+const bairstowStep = (a: readonly number[], r0: number, s0: number): { r: number; s: number; quotient: number[] } | null => {
+  const n = a.length - 1;
+  const b = new Array<number>(n + 1).fill(0);
+  const c = new Array<number>(n + 1).fill(0);
+  let r = r0;
+  let s = s0;
+  for (let iter = 0; iter < 100; iter++) {
+    b[n] = a[n];
+    b[n - 1] = a[n - 1] + r * b[n];
+    for (let i = n - 2; i >= 0; i--) b[i] = a[i] + r * b[i + 1] + s * b[i + 2];
+    c[n] = b[n];
+    c[n - 1] = b[n - 1] + r * c[n];
+    for (let i = n - 2; i >= 1; i--) c[i] = b[i] + r * c[i + 1] + s * c[i + 2];
+    const det = c[2] * c[2] - c[3] * c[1];
+    if (det === 0 || !Number.isFinite(det)) return null;
+    const dr = (-b[1] * c[2] + b[0] * c[3]) / det;
+    const ds = (-b[0] * c[2] + b[1] * c[1]) / det;
+    r += dr;
+    s += ds;
+    if (Math.abs(dr) <= 1e-14 * Math.max(1, Math.abs(r)) && Math.abs(ds) <= 1e-14 * Math.max(1, Math.abs(s))) {
+      // Quotient with the converged factor.
+      b[n] = a[n];
+      b[n - 1] = a[n - 1] + r * b[n];
+      for (let i = n - 2; i >= 2; i--) b[i] = a[i] + r * b[i + 1] + s * b[i + 2];
+      return { r, s, quotient: b.slice(2, n + 1) };
+    }
+  }
+  return null;
+};
+
+/**
+ * Sections of a real polynomial with no root at the origin (ascending, p[0] ≠ 0): factors
+ * [1, a1] and [1, a1, a2] (the latter only for complex pairs) whose product is p/p[0].
+ * The variable is scaled so the roots' geometric mean is 1, then quadratic factors are split
+ * off by Bairstow's method (real arithmetic, fast); Durand–Kerner is the fallback.
+ */
+export const polySections = (p: Poly): number[][] => {
+  const t = polyTrim(p);
+  const n = t.length - 1;
+  if (n <= 0) return [];
+  const sigma = Math.pow(Math.abs(t[0] / t[n]), 1 / n);
+  // q(x) = p(σ·x)/p(0): ascending, q[0] = 1.
+  let q = t.map((c, k) => (c * Math.pow(sigma, k)) / t[0]);
+  const out: number[][] = [];
+  /** A factor x² − r·x − s of q, as sections in s (= σ·x). */
+  const pushQuadratic = (r: number, s: number) => {
+    // x² − r·x − s = −s·(1 − (r/−s)... ): roots of x² − r·x − s.
+    const disc = r * r + 4 * s;
+    if (disc >= 0) {
+      const sq = Math.sqrt(disc);
+      const x1 = 0.5 * (r + (r >= 0 ? sq : -sq));
+      const x2 = x1 !== 0 ? -s / x1 : 0;
+      for (const x of [x1, x2]) out.push([1, -1 / (x * sigma) + 0]);
+    } else {
+      // −s = |x|², r = 2·Re x: (1 − s/x)(1 − s/x̄) in s = σx → [1, −r/(−s·σ), 1/(−s·σ²)]
+      const m2 = -s;
+      out.push([1, -r / (m2 * sigma) + 0, 1 / (m2 * sigma * sigma)]);
+    }
+  };
+  if (q.length === 4) {
+    // Cubic: its real root in closed form (Cardano, or the trigonometric form for three real
+    // roots), polished by Newton, then the quadratic left after deflation.
+    const [d0, c0, b0] = [q[0] / q[3], q[1] / q[3], q[2] / q[3]];
+    const p3 = c0 - (b0 * b0) / 3;
+    const q3 = (2 * b0 * b0 * b0) / 27 - (b0 * c0) / 3 + d0;
+    const disc = (q3 * q3) / 4 + (p3 * p3 * p3) / 27;
+    let x: number;
+    if (disc > 0) {
+      const sq = Math.sqrt(disc);
+      x = Math.cbrt(-q3 / 2 + sq) + Math.cbrt(-q3 / 2 - sq) - b0 / 3;
+    } else {
+      const m = 2 * Math.sqrt(-p3 / 3);
+      const arg = Math.max(-1, Math.min(1, ((3 * q3) / (p3 * m)) ));
+      x = m * Math.cos(Math.acos(arg) / 3) - b0 / 3;
+    }
+    for (let k = 0; k < 3; k++) {
+      const f = ((x + b0) * x + c0) * x + d0;
+      const df = (3 * x + 2 * b0) * x + c0;
+      if (df === 0) break;
+      x -= f / df;
+    }
+    if (x !== 0 && Number.isFinite(x)) {
+      out.push([1, -1 / (x * sigma) + 0]);
+      // x² + (b + x)·x + (c + x(b + x)) = x² − r·x − s
+      pushQuadratic(-(b0 + x), -(c0 + x * (b0 + x)));
+      return out;
+    }
+  }
+  while (q.length - 1 > 2) {
+    let step: ReturnType<typeof bairstowStep> = null;
+    for (const [r0, s0] of [
+      [0.1, -1],
+      [-1.5, -0.7],
+      [1, 0.5],
+      [-0.2, -2],
+    ]) {
+      step = bairstowStep(q, r0, s0);
+      if (step) break;
+    }
+    if (!step) break;
+    pushQuadratic(step.r, step.s);
+    q = step.quotient;
+  }
+  if (q.length - 1 > 2) {
+    // Fallback: the roots of what is left, by Durand–Kerner.
+    const roots = polyRoots(q);
+    for (const r of roots) {
+      if (Math.abs(r.im) <= 1e-7 * Math.abs(r.re)) out.push([1, -1 / (r.re * sigma) + 0]);
+      else if (r.im > 0) {
+        const m2 = r.re * r.re + r.im * r.im;
+        out.push([1, (-2 * r.re) / (m2 * sigma) + 0, 1 / (m2 * sigma * sigma)]);
+      }
+    }
+    return out;
+  }
+  const nq = q.length - 1;
+  if (nq === 1) out.push([1, q[1] / q[0] / sigma + 0]);
+  else if (nq === 2) {
+    // q0 + q1 x + q2 x²: as a monic factor x² − r x − s with r = −q1/q2, s = −q0/q2.
+    pushQuadratic(-q[1] / q[2], -q[0] / q[2]);
+  }
+  return out;
+};

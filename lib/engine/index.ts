@@ -8,9 +8,14 @@
 export * from './types';
 export { analyze, analyzeLoop, analyzeParts, evaluateLoopGain, preparePlant, marginsForCompensator, snapCompensator, partValues } from './analyze';
 export type { PreparedPlant, LoopResult, StageRequest } from './analyze';
+export { buildControlPlant, dcmHighPoleHz, peakCurrentParameters, ridleyGains } from './control';
+export type { ControlPlant } from './control';
 export {
   compensatorImpedances,
   compensatorTransfer,
+  gbwEnough,
+  idealCompensatorTransfer,
+  opAmpShapeError,
   dividerRb,
   integratorHz,
   partsFromShape,
@@ -30,7 +35,7 @@ export { buildSpiceNetlist } from './spice-netlist';
 export type { SpiceNetlistOptions } from './spice-netlist';
 export { kFactorParts, proposeCompensator, proposeForPlant } from './starting-point';
 export type { KFactorInput, StartingPointMethod, StartingPointTarget } from './starting-point';
-export { computeDuty, computeOperatingPoint } from './steady-state';
+export { computeDcmOperatingPoint, computeDuty, computeOperatingPoint, dcmOutputCurrent } from './steady-state';
 export { defaultSweep, logSweep, sweepTransfer, transferEvaluator, transferResponse } from './sweep';
 export {
   dbFromMag,
@@ -38,13 +43,14 @@ export {
   evaluateTransfer,
   multiplyTransfers,
   scaleTransfer,
+  transferFromAnyPolys,
   transferFromPolys,
   summarizeTransfer,
   transferPolys,
   wrapDeg,
 } from './transfer';
 export type { SectionedTransfer } from './transfer';
-export { loopChecks, partChecks, stageChecks } from './checks';
+export { amplifierChecks, loopChecks, modulatorChecks, partChecks, stageChecks } from './checks';
 export { compensatorIssues, stageIssues, validateRequest } from './validate';
 export { closedLoopResponses, complexAt, loopBlocks } from './closed-loop';
 export type { ClosedLoopResponses } from './closed-loop';

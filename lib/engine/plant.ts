@@ -105,6 +105,11 @@ export interface PlantModel {
   gvg: SectionedTransfer;
   /** Output impedance v̂/î for a current injected into the output node, Ω. */
   zout: SectionedTransfer;
+  /**
+   * The raw polynomials (ascending) over the common denominator det(sI − A): v̂/d̂ and
+   * îL/d̂ numerators, for models that close a loop around them (peak current mode).
+   */
+  polys: { den: number[]; gvd: number[]; gid: number[]; gvg: number[]; gig: number[]; zout: number[]; giz: number[] };
 }
 
 /**
@@ -137,7 +142,17 @@ export const buildPlantModel = (cv: ConverterInput): PlantModel => {
   const gvdP = transferOf(a, bDuty, c, eDuty);
   const gvgP = transferOf(a, bg, c, 0);
   const zoutP = transferOf(a, bz, c, ez);
+  const gidP = transferOf(a, bDuty, [1, 0], 0);
   return {
+    polys: {
+      den: gvdP.den,
+      gvd: gvdP.num,
+      gid: gidP.num,
+      gvg: gvgP.num,
+      gig: transferOf(a, bg, [1, 0], 0).num,
+      zout: zoutP.num,
+      giz: transferOf(a, bz, [1, 0], 0).num,
+    },
     operatingPoint: op,
     states: x,
     vOutModel: dot(c, x),

@@ -99,7 +99,78 @@ export const computeOperatingPoint = (c: ConverterInput): OperatingPoint => {
     outputRippleCapPp,
     outputRippleEsrPp,
     conduction: inductorRipplePp / 2 > inductorCurrent ? 'DCM' : 'CCM',
+    dcmDiodeDuty: null,
     criticalInductance,
     criticalLoadCurrent,
+  };
+};
+
+/** Voltage across the inductor while the switch is on (DCM model: the inductor DCR is neglected). */
+const dcmOnVoltage = (topology: ConverterInput['topology'], vin: number, v: number) => (topology === 'buck' ? vin - v : vin);
+/** Voltage across the inductor while the diode conducts (magnitude). */
+const dcmOffVoltage = (topology: ConverterInput['topology'], vin: number, v: number, vd: number) =>
+  topology === 'boost' ? v + vd - vin : v + vd;
+
+/**
+ * Average current delivered to the output node in DCM for a peak inductor current ipk:
+ * the inductor rises for t1 = L·ipk/vOn and falls for t2 = L·ipk/vOff, then rests at zero.
+ * Buck: the inductor feeds the output in both intervals, i2 = ½·ipk·(t1 + t2)·fsw;
+ * boost and buck-boost: in the second only, i2 = ½·ipk·t2·fsw. This is the averaged
+ * switch network of Erickson & Maksimović, Fundamentals of Power Electronics, 2nd ed.,
+ * ch. 15 (its output port), written with the inductor current's peak as the variable.
+ */
+export const dcmOutputCurrent = (
+  topology: ConverterInput['topology'],
+  ipk: number,
+  vin: number,
+  v: number,
+  vd: number,
+  l: number,
+  fsw: number,
+): number => {
+  const t1 = (l * ipk) / dcmOnVoltage(topology, vin, v);
+  const t2 = (l * ipk) / dcmOffVoltage(topology, vin, v, vd);
+  return topology === 'buck' ? 0.5 * ipk * (t1 + t2) * fsw : 0.5 * ipk * t2 * fsw;
+};
+
+/** Peak current for a voltage-mode duty d in DCM: ipk = vOn·d/(L·fsw). */
+export const dcmPeakFromDuty = (topology: ConverterInput['topology'], d: number, vin: number, v: number, l: number, fsw: number) =>
+  (dcmOnVoltage(topology, vin, v) * d) / (l * fsw);
+
+/**
+ * DCM steady state (Erickson & Maksimović 2nd ed. ch. 15: the load draws what the switch
+ * network's output port delivers). i2 grows with ipk², so ipk = √(Iout / i2(ipk = 1)); then
+ * D = L·ipk·fsw/vOn and D2 = L·ipk·fsw/vOff. Returns null when D + D2 ≥ 1 (the stage is in
+ * CCM after all, which the lossy CCM boundary can leave near the edge).
+ */
+export const computeDcmOperatingPoint = (c: ConverterInput, ccm: OperatingPoint): OperatingPoint | null => {
+  const { topology, vin, vout, iout, l, fsw, vd } = c;
+  const vOn = dcmOnVoltage(topology, vin, vout);
+  const vOff = dcmOffVoltage(topology, vin, vout, vd);
+  if (!(vOn > 0) || !(vOff > 0)) return null;
+  const ipk = Math.sqrt(iout / dcmOutputCurrent(topology, 1, vin, vout, vd, l, fsw));
+  const duty = (l * ipk * fsw) / vOn;
+  const d2 = (l * ipk * fsw) / vOff;
+  if (duty + d2 >= 1) return null;
+  const inductorCurrent = 0.5 * ipk * (duty + d2);
+  const isBuck = topology === 'buck';
+  // Capacitor ripple: buck, the charge above the mean of the inductor current's triangle;
+  // boost and buck-boost, the load carried alone outside the diode interval.
+  const outputRippleCapPp = isBuck
+    ? (Math.pow(ipk - iout, 2) * (duty + d2)) / (2 * ipk * c.c * fsw)
+    : (iout * (1 - d2)) / (c.c * fsw);
+  const outputRippleEsrPp = c.rc * ipk;
+  return {
+    ...ccm,
+    duty,
+    dutyComplement: 1 - duty,
+    inductorCurrent,
+    inductorRipplePp: ipk,
+    inductorPeak: ipk,
+    outputRipplePp: outputRippleCapPp + outputRippleEsrPp,
+    outputRippleCapPp,
+    outputRippleEsrPp,
+    conduction: 'DCM',
+    dcmDiodeDuty: d2,
   };
 };

@@ -136,8 +136,9 @@ export const simulateStepResponse = (request: AnalyzeRequest, step: StepDefiniti
   const outsideModel: string[] = [];
   const d0 = prepared.operatingPoint.duty;
   let duty: number[] | null = null;
-  if (isVoltageMode(request.modulator)) {
-    duty = sim.vc.map((vc) => d0 + vc / prepared.vramp);
+  if (prepared.modulator.mode === 'voltage') {
+    const { vramp } = prepared.modulator;
+    duty = sim.vc.map((vc) => d0 + vc / vramp);
     const hi = Math.max(...duty);
     const lo = Math.min(...duty);
     if (hi >= 1) outsideModel.push(`the duty cycle would reach ${pct(hi)}; it saturates at 100 %, so the real deviation is larger and the recovery slower than shown`);

@@ -52,10 +52,9 @@ export interface Waveform {
 /** The switch control the modulator asks for. @throws EngineInputError when current-mode parameters are missing. */
 export const switchControlOf = (request: AnalyzeRequest): SwitchControl => {
   const m = request.modulator;
-  const mode: unknown = Reflect.get(m, 'mode');
-  if (mode === 'peak-current') {
-    const ri: unknown = Reflect.get(m, 'ri');
-    const se: unknown = Reflect.get(m, 'se');
+  if (m.mode === 'peak-current') {
+    const ri: unknown = m.ri;
+    const se: unknown = m.se;
     if (typeof ri !== 'number' || !(ri > 0)) throw new EngineInputError([{ path: 'modulator.ri', message: 'current-sense gain Ri must be above 0 V/A' }]);
     if (typeof se !== 'number' || !(se >= 0)) throw new EngineInputError([{ path: 'modulator.se', message: 'slope compensation Se must be 0 V/s or more' }]);
     return { mode: 'peak-current', ri, se };

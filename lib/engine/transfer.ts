@@ -11,7 +11,7 @@
  * crossings).
  */
 import Complex from 'complex.js';
-import { evalPoly, polyMul, polyTrim, type Poly } from './complex-poly';
+import { evalPoly, polyMul, polySections, polyTrim, type Poly } from './complex-poly';
 import type { TransferSummary } from './types';
 
 const TWO_PI = 2 * Math.PI;
@@ -176,4 +176,38 @@ export const summarizeTransfer = (h: SectionedTransfer, esrHint: number | null =
     polesHz: poles.map(rootHz).sort(ascending),
     zerosHz: zeros.map(rootHz).sort(ascending),
   };
+};
+
+/**
+ * A real polynomial of any degree (ascending) as origin order, gain and sections of degree
+ * ≤ 2 with constant term 1, from its roots: a real root r gives [1, −1/r], a complex pair
+ * r, r̄ gives [1, −2·Re r/|r|², 1/|r|²]. For models whose polynomials exceed degree 2
+ * (current-mode plant, finite op-amp); the roots are found once per model, not per point.
+ */
+const sectionsOfPoly = (p: Poly): { order: number; gain: number; sections: number[][] } => {
+  const t = polyTrim(p);
+  if (t.length <= 3) {
+    const n = normalisePoly(t);
+    return { order: n.order, gain: n.gain, sections: n.section ? [n.section] : [] };
+  }
+  let lo = 0;
+  while (lo < t.length - 1 && t[lo] === 0) lo++;
+  const gain = t[lo];
+  const sections = polySections(t.slice(lo));
+  return { order: lo, gain, sections };
+};
+
+/** Sum of two ascending polynomials. */
+export const polyAdd = (a: Poly, b: Poly): number[] => {
+  const out = new Array<number>(Math.max(a.length, b.length)).fill(0);
+  for (let i = 0; i < a.length; i++) out[i] += a[i];
+  for (let i = 0; i < b.length; i++) out[i] += b[i];
+  return out;
+};
+
+/** Sectioned transfer from numerator and denominator polynomials of any degree. */
+export const transferFromAnyPolys = (num: Poly, den: Poly): SectionedTransfer => {
+  const n = sectionsOfPoly(num);
+  const d = sectionsOfPoly(den);
+  return { gain: n.gain / d.gain, originOrder: n.order - d.order, num: n.sections, den: d.sections };
 };

@@ -18,12 +18,12 @@ export type Topology = (typeof TOPOLOGIES)[number];
 export const COMPENSATOR_TYPES = ['type1', 'type2', 'type3'] as const;
 export type CompensatorType = (typeof COMPENSATOR_TYPES)[number];
 
-/** The error amplifier of the compensator: an inverting op-amp network. */
-export const AMPLIFIERS = ['opamp'] as const;
+/** Error amplifiers: inverting op-amp stage or transconductance (gm) amplifier at a COMP pin. */
+export const AMPLIFIERS = ['opamp', 'transconductance'] as const;
 export type Amplifier = (typeof AMPLIFIERS)[number];
 
-/** How the modulator turns the control voltage into duty: a fixed ramp (voltage mode). */
-export const MODULATOR_MODES = ['voltage'] as const;
+/** Modulator modes: voltage-mode PWM (ramp Vramp) or peak current mode (sense gain Ri, external ramp Se). */
+export const MODULATOR_MODES = ['voltage', 'peak-current'] as const;
 export type ModulatorMode = (typeof MODULATOR_MODES)[number];
 
 export const E_SERIES_NAMES = ['E6', 'E12', 'E24', 'E48', 'E96', 'E192'] as const;
@@ -46,21 +46,49 @@ export interface ConverterInput {
   vd: number;
 }
 
-/** Voltage-mode PWM: modulator gain is 1/vramp. `mode` absent means 'voltage'. */
-export interface ModulatorInput {
-  mode?: ModulatorMode;
+/** Voltage-mode PWM: modulator gain is 1/vramp. A modulator without `mode` is voltage mode. */
+export interface VoltageModulatorInput {
+  mode?: 'voltage';
+  /** Peak-to-peak PWM ramp, V. */
   vramp: number;
 }
+
+/**
+ * Peak current mode (Ridley 1991): the switch turns off when Ri·iL plus the external ramp
+ * reaches the control voltage.
+ */
+export interface PeakCurrentModulatorInput {
+  mode: 'peak-current';
+  /** Current-sense gain, V/A (Ω). */
+  ri: number;
+  /** External (compensating) ramp slope, V/s; 0 = none. */
+  se: number;
+}
+
+export type ModulatorInput = VoltageModulatorInput | PeakCurrentModulatorInput;
 
 export interface FeedbackInput {
   /** Error-amplifier reference voltage, V. */
   vref: number;
 }
 
+/** Single-pole op-amp A(s) = a0/(1 + s·a0/(2π·gbw)). */
+export interface OpAmpModel {
+  /** Open-loop DC gain, V/V. */
+  a0: number;
+  /** Gain-bandwidth product, Hz. */
+  gbw: number;
+}
+
 /**
- * Inverting op-amp compensator. R1 from the output to the inverting input;
- * R2 in series with C1 in the feedback path; C2 across the feedback path
- * (0 = absent); R3 in series with C3 across R1 (Type III only).
+ * Compensator. With amplifier "opamp" (the default): inverting op-amp stage, R1 from the
+ * output to the inverting input; R2 in series with C1 in the feedback path; C2 across the
+ * feedback path (0 = absent); R3 in series with C3 across R1 (Type III only); `opamp`
+ * optionally gives a finite gain and bandwidth (absent = ideal).
+ * With amplifier "transconductance" (Type II and III): R1 divider top (output to the feedback
+ * pin), Rb divider bottom, R2 in series with C1 from the amplifier output to ground, C2 from
+ * the amplifier output to ground (optional), R3 in series with C3 across R1 (Type III);
+ * gm in S, ro the amplifier's output resistance (absent = infinite).
  * Parts a type does not use are ignored (and may be omitted).
  */
 export interface CompensatorInput {
@@ -73,6 +101,14 @@ export interface CompensatorInput {
   c1: number;
   c2?: number;
   c3?: number;
+  /** Transconductance, S (transconductance amplifier). */
+  gm?: number;
+  /** Output resistance of the gm amplifier, Ω; absent = infinite. */
+  ro?: number;
+  /** Divider bottom resistor, Ω (transconductance amplifier: part of the loop). */
+  rb?: number;
+  /** Finite op-amp (op-amp stage only); absent = ideal. */
+  opamp?: OpAmpModel;
 }
 
 export interface PartsOptions {
@@ -111,6 +147,7 @@ export interface AnalyzeRequest {
 }
 
 export interface OperatingPoint {
+  /** Duty of the switch; in DCM from the DCM steady state. */
   duty: number;
   /** D' = 1 − D */
   dutyComplement: number;
@@ -125,8 +162,10 @@ export interface OperatingPoint {
   outputRipplePp: number;
   outputRippleCapPp: number;
   outputRippleEsrPp: number;
-  /** 'DCM' when the given load is below the CCM/DCM boundary. */
+  /** 'DCM' when the given load is below the CCM/DCM boundary (the DCM model is then used). */
   conduction: 'CCM' | 'DCM';
+  /** DCM only: the diode (second-interval) duty D2; null in CCM. */
+  dcmDiodeDuty: number | null;
   /** Smallest inductance keeping CCM at this load, H. */
   criticalInductance: number;
   /** Load current below which the stage enters DCM, A. */
@@ -149,6 +188,7 @@ export interface TransferSummary {
 
 export interface CompensatorSummary {
   type: CompensatorType;
+  amplifier: Amplifier;
   /** Origin pole listed as 0. */
   polesHz: number[];
   zerosHz: number[];
@@ -216,10 +256,42 @@ export interface Check {
   message: string;
 }
 
+/**
+ * The modulator at the operating point. Voltage mode: gain 1/Vramp. Peak current mode
+ * (Ridley 1991): sensed slopes Sn (on-time) and Sf (off-time), mc = 1 + Se/Sn,
+ * Qp = 1/(π(mc·D' − 0.5)) of the double pole at fsw/2 (null in DCM, where the current loop
+ * has no sampling pair), and the external ramp needed for Qp = 1 and for stability.
+ */
+export type ModulatorSummary =
+  | { mode: 'voltage'; vramp: number; gain: number }
+  | {
+      mode: 'peak-current';
+      ri: number;
+      se: number;
+      /** Sensed on-time slope Ri·m1, V/s. */
+      sn: number;
+      /** Sensed off-time slope Ri·m2, V/s. */
+      sf: number;
+      mc: number;
+      qp: number | null;
+      /** The sampling double pole, fsw/2, Hz (null in DCM). */
+      samplingPoleHz: number | null;
+      /** External ramp giving Qp = 1 at this duty, V/s (0 when none is needed). */
+      seForQp1: number;
+      /** External ramp below which the current loop is subharmonically unstable at this duty, V/s (0 when none is needed). */
+      seMinStable: number;
+    };
+
 export interface AnalyzeResult {
   operatingPoint: OperatingPoint;
-  /** Control-to-output including the modulator: Gvd/Vramp (buck-boost sign-corrected). */
+  /**
+   * Control-to-output including the modulator: voltage mode Gvd/Vramp, peak current mode
+   * Gvc (Ridley 1991); in DCM the DCM model's. Buck-boost sign-corrected.
+   */
   plant: TransferSummary;
+  modulator: ModulatorSummary;
+  /** DCM only: the low-frequency pole of the DCM model, Hz (null in CCM). */
+  dcmPoleHz: number | null;
   lineToOutput: TransferSummary;
   outputImpedance: TransferSummary;
   compensator: CompensatorSummary;
@@ -253,10 +325,17 @@ export class EngineInputError extends Error {
  * zeros and poles (Hz, origin pole excluded), with R1 held fixed.
  * Type I: zerosHz [], polesHz []. Type II: zerosHz [fz], polesHz [fp] or [] when C2 = 0.
  * Type III: zerosHz [fz1 (R2·C1), fz2 ((R1+R3)·C3)], polesHz [fp1 (R2, C1‖C2 series), fp2 (R3·C3)].
+ * Transconductance amplifier: the same list; fp2 is 1/(2π(R3 + R1∥Rb)C3) and the integrator
+ * 0 dB frequency gm·H0/(2π(C1+C2)) with H0 = Rb/(R1+Rb).
  */
 export interface CompensatorShape {
   type: CompensatorType;
   r1: number;
+  /**
+   * Everything of the compensator the handles do not move (amplifier, gm, ro, rb, op-amp
+   * model), carried through partsFromShape unchanged.
+   */
+  fixed?: Pick<CompensatorInput, 'amplifier' | 'gm' | 'ro' | 'rb' | 'opamp'>;
   integratorHz: number;
   zerosHz: number[];
   polesHz: number[];

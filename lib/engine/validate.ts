@@ -30,6 +30,22 @@ export const compensatorIssues = (c: CompensatorInput, prefix = 'compensator'): 
     requirePositive(issues, `${prefix}.r3`, c.r3, 'R3 (a Type III part)');
     requirePositive(issues, `${prefix}.c3`, c.c3, 'C3 (a Type III part)');
   }
+  if (c.amplifier !== undefined && c.amplifier !== 'opamp' && c.amplifier !== 'transconductance') {
+    issues.push({ path: `${prefix}.amplifier`, message: 'amplifier must be "opamp" or "transconductance"' });
+  }
+  if (c.amplifier === 'transconductance') {
+    if (c.type === 'type1') {
+      issues.push({ path: `${prefix}.amplifier`, message: 'a transconductance amplifier is modelled for Type II and Type III; choose one of them or the op-amp' });
+    }
+    requirePositive(issues, `${prefix}.gm`, c.gm, 'Transconductance gm (S)');
+    requirePositive(issues, `${prefix}.rb`, c.rb, 'Divider bottom Rb (part of the loop with a transconductance amplifier)');
+    if (c.ro !== undefined) requirePositive(issues, `${prefix}.ro`, c.ro, 'Amplifier output resistance ro (omit for infinite)');
+    if (c.opamp !== undefined) issues.push({ path: `${prefix}.opamp`, message: 'an op-amp model does not apply to a transconductance amplifier; remove it' });
+  }
+  if (c.opamp !== undefined && c.amplifier !== 'transconductance') {
+    requirePositive(issues, `${prefix}.opamp.a0`, c.opamp?.a0, 'Op-amp open-loop gain a0 (V/V)');
+    requirePositive(issues, `${prefix}.opamp.gbw`, c.opamp?.gbw, 'Op-amp gain-bandwidth GBW (Hz)');
+  }
   return issues;
 };
 
@@ -50,7 +66,15 @@ export const stageIssues = (req: Pick<AnalyzeRequest, 'converter' | 'modulator' 
   requireNonNegative(issues, 'converter.rl', c.rl ?? 0, 'Inductor DCR rl');
   requireNonNegative(issues, 'converter.rc', c.rc ?? 0, 'Capacitor ESR rc');
   requireNonNegative(issues, 'converter.vd', c.vd ?? 0, 'Diode drop vd');
-  requirePositive(issues, 'modulator.vramp', req.modulator?.vramp, 'PWM ramp Vramp');
+  const m = req.modulator;
+  if (m?.mode === 'peak-current') {
+    requirePositive(issues, 'modulator.ri', m.ri, 'Current-sense gain Ri (V/A)');
+    requireNonNegative(issues, 'modulator.se', m.se, 'External ramp Se (V/s, 0 = none)');
+  } else if (m?.mode !== undefined && m?.mode !== 'voltage') {
+    issues.push({ path: 'modulator.mode', message: 'mode must be "voltage" or "peak-current"' });
+  } else {
+    requirePositive(issues, 'modulator.vramp', m?.vramp, 'PWM ramp Vramp');
+  }
   if (num(c.vin) && num(c.vout) && c.vin > 0 && c.vout > 0) {
     if (c.topology === 'buck' && c.vout >= c.vin) {
       issues.push({ path: 'converter.vout', message: `a buck steps down: vout (${c.vout} V) must be below vin (${c.vin} V)` });

@@ -28,7 +28,7 @@ export interface ExportFile {
 
 export function buildExport(format: ExportFormat, ctx: ExportContext): ExportFile {
   const { design, revision, result } = ctx;
-  const parts = () => buildPartsList(result.parts, revision.input.compensator.type, design.designatorMap);
+  const parts = () => buildPartsList(result.parts, revision.input.compensator.type, design.designatorMap, revision.input.compensator.amplifier);
   let body: string;
   switch (format) {
     case 'csv':

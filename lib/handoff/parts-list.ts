@@ -8,7 +8,7 @@
  * E6 ±20 %, E12 ±10 %, E24 ±5 %, E48 ±2 %, E96 ±1 %, E192 ±0.5 %. Order parts at least that
  * tight; a looser part can land nearer a neighbouring value than the one chosen.
  */
-import type { CompensatorType, ESeriesName, PartsResult, PartValues } from '@/lib/engine/types';
+import type { Amplifier, CompensatorType, ESeriesName, PartsResult, PartValues } from '@/lib/engine/types';
 import { formatSi } from '@/lib/units/si';
 
 export type PartKey = keyof PartValues;
@@ -31,9 +31,30 @@ export const TOLERANCE_CONVENTION =
 export const PART_NAME: Record<PartKey, string> = { r1: 'R1', r2: 'R2', r3: 'R3', c1: 'C1', c2: 'C2', c3: 'C3', rb: 'Rb' };
 export const DEFAULT_DESIGNATOR: Record<PartKey, string> = { r1: 'R1', r2: 'R2', r3: 'R3', c1: 'C1', c2: 'C2', c3: 'C3', rb: 'R4' };
 
-/** What the part does, in words, for the compensator type. */
-export function describePartRole(part: PartKey, type: CompensatorType): string {
+/** What the part does around a transconductance amplifier (the divider is in the loop). */
+function describeGmPartRole(part: PartKey, name: string): string {
+  switch (part) {
+    case 'r1':
+      return `${name} — divider top from the output to the feedback pin; with Rb sets the DC output and the loop's divider gain`;
+    case 'r2':
+      return `${name} — from the amplifier output (COMP) in series with C1 to ground; sets the mid-band gain with gm and places the zero`;
+    case 'r3':
+      return `${name} — in series with C3 across R1; places the feed-forward pole`;
+    case 'c1':
+      return `${name} — with R2 from COMP to ground; places the low-frequency zero (integrator capacitor)`;
+    case 'c2':
+      return `${name} — from COMP to ground; with R2 places the high-frequency pole`;
+    case 'c3':
+      return `${name} — across R1 with R3; places the feed-forward zero (phase boost)`;
+    case 'rb':
+      return `${name} — divider bottom; with R1 sets the DC output, and here it is part of the loop gain`;
+  }
+}
+
+/** What the part does, in words, for the compensator type and amplifier. */
+export function describePartRole(part: PartKey, type: CompensatorType, amplifier: Amplifier = 'opamp'): string {
   const name = PART_NAME[part];
+  if (amplifier === 'transconductance') return describeGmPartRole(part, name);
   switch (part) {
     case 'r1':
       return type === 'type1'
@@ -77,6 +98,7 @@ export function buildPartsList(
   parts: PartsResult,
   type: CompensatorType,
   designators: Partial<Record<string, string>> = {},
+  amplifier: Amplifier = 'opamp',
 ): PartRow[] {
   const rows: PartRow[] = [];
   for (const part of PART_KEYS) {
@@ -88,7 +110,7 @@ export function buildPartsList(
     rows.push({
       part,
       designator: designators[part]?.trim() || DEFAULT_DESIGNATOR[part],
-      role: describePartRole(part, type),
+      role: describePartRole(part, type, amplifier),
       kind,
       ideal,
       standard,

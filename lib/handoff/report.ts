@@ -6,12 +6,13 @@
  * revision number, its sign-off state and the dates.
  */
 import { CAUTIONS } from '@/lib/cautions';
-import { compensatorTitle, inputApplies, inputLabel, readInput, signoffLabel, STAGE_INPUTS, topologyLabel, type SignoffState } from '@/lib/catalog';
+import { AMPLIFIER_LABELS, compensatorTitle, inputApplies, MODULATOR_MODE_LABELS, inputLabel, readInput, signoffLabel, STAGE_INPUTS, topologyLabel, type SignoffState } from '@/lib/catalog';
 import type { AnalyzeRequest, AnalyzeResult, Margins } from '@/lib/engine/types';
 import { formatSi } from '@/lib/units/si';
 import { formatTolerance, PART_NAME, TOLERANCE_CONVENTION, schematicValue, type PartRow } from './parts-list';
 import { bodeSvg } from './svg-plot';
 import { timeDomainSections } from './report-time-domain';
+import { summarizeRange, worstCaseSentence, type RangeSummary } from '@/lib/range-summary';
 
 export interface ReportInput {
   design: { name: string; description: string; topology: string };
@@ -22,6 +23,32 @@ export interface ReportInput {
   parts: PartRow[];
   teamName: string;
   generatedAt?: Date;
+}
+
+/** The worst case across the operating range as a report section (corners and spread). */
+function rangeSection(s: RangeSummary): string {
+  const r = s.range;
+  const rangeRows = table([
+    ['Input voltage', `${r.vin.min} – ${r.vin.max} V`],
+    ['Load current', `${r.iout.min} – ${r.iout.max} A`],
+    ['Inductance', `±${pct(r.l.tol)}`],
+    ['Capacitance', `±${pct(r.c.tol)}`],
+    ['Capacitor ESR', `${si(r.rc.min, 'Ω')} – ${si(r.rc.max, 'Ω')}`],
+    ['Compensator parts', r.parts ? `R ±${pct(r.parts.resistorTol)}, C ±${pct(r.parts.capacitorTol)}` : 'their series’ tolerance'],
+    ['Targets', `PM ≥ ${s.targets.phaseMarginDeg}°, GM ≥ ${s.targets.gainMarginDb} dB`],
+  ]);
+  const p = s.spread.percentiles;
+  const pr = (q: typeof p.phaseMarginDeg, unit: string) => (q ? `${num(q.p1, unit)} / ${num(q.p50, unit)} / ${num(q.p99, unit)}` : '—');
+  const worst = table([
+    ['Worst phase margin', s.worst.phaseMarginDeg.value === null ? (s.worst.phaseMarginDeg.corner ? `no crossover at ${s.worst.phaseMarginDeg.corner}` : '—') : `${num(s.worst.phaseMarginDeg.value, '°')} at ${s.worst.phaseMarginDeg.corner}`],
+    ['Worst gain margin', s.worst.gainMarginDb.value === null ? 'no −180° crossing at any corner' : `${num(s.worst.gainMarginDb.value, 'dB')} at ${s.worst.gainMarginDb.corner}`],
+    ['Crossover over the corners', `${si(s.worst.crossoverHz.min, 'Hz')} – ${si(s.worst.crossoverHz.max, 'Hz')}`],
+    ['Corners in DCM', `${s.dcmCorners} of ${s.corners}`],
+    ['Spread PM p1 / p50 / p99', pr(p.phaseMarginDeg, '°')],
+    ['Spread GM p1 / p50 / p99', pr(p.gainMarginDb, 'dB')],
+    ['Builds meeting the targets', `${pct(s.spread.meetsTargets.share)} of ${s.spread.samples.toLocaleString('en-US')} (${s.spread.distribution}, seed ${s.spread.seed})`],
+  ]);
+  return `<p><b>${esc(worstCaseSentence(s))}</b></p><div class="cols"><div>${rangeRows}</div><div>${worst}</div></div><p class="muted small">Corners: every combination of the range's extremes, compensator at nominal. Spread: every part drawn within its tolerance at nominal line and load.</p>`;
 }
 
 const esc = (s: string) =>
@@ -48,6 +75,31 @@ function marginRows(m: Margins): [string, string][] {
   ];
 }
 
+/** Error amplifier: op-amp (ideal or a0/GBW) or transconductance (gm, ro). */
+const amplifierRows = (c: AnalyzeRequest['compensator']): [string, string][] => {
+  if (c.amplifier === 'transconductance') {
+    return [
+      ['Error amplifier', AMPLIFIER_LABELS.transconductance],
+      ['Transconductance gm', si(c.gm ?? null, 'S')],
+      ['Output resistance ro', c.ro ? si(c.ro, 'Ω') : 'infinite'],
+    ];
+  }
+  return [['Error amplifier', c.opamp ? `Op-amp, a0 ${c.opamp.a0.toPrecision(3)}, GBW ${si(c.opamp.gbw, 'Hz')}` : 'Op-amp (ideal)']];
+};
+
+/** Landmarks of the control mode: the current-mode sampling pair (Ridley 1991) and the DCM pole. */
+const modeLandmarkRows = (result: AnalyzeResult): [string, string][] => {
+  const rows: [string, string][] = [];
+  const m = result.modulator;
+  if (m?.mode === 'peak-current') {
+    if (m.samplingPoleHz !== null) rows.push(['Current-mode double pole (fsw/2)', si(m.samplingPoleHz, 'Hz')]);
+    rows.push(['Qp', m.qp === null ? '—' : m.qp.toFixed(2)], ['mc = 1 + Se/Sn', m.mc.toFixed(3)]);
+    if (m.samplingPoleHz !== null) rows.push(['External ramp for Qp = 1', si(m.seForQp1, 'V/s')], ['External ramp for stability', si(m.seMinStable, 'V/s')]);
+  }
+  if (result.dcmPoleHz !== null && result.dcmPoleHz !== undefined) rows.push(['DCM low-frequency pole', si(result.dcmPoleHz, 'Hz')]);
+  return rows;
+};
+
 /** The report as a complete HTML document. */
 export function buildReportHtml(r: ReportInput): string {
   const { input, result } = r;
@@ -60,11 +112,13 @@ export function buildReportHtml(r: ReportInput): string {
 
   const inputs = table([
     ['Topology', topologyLabel(cv.topology)],
+    ['Modulator', MODULATOR_MODE_LABELS[input.modulator.mode ?? 'voltage']],
     ...STAGE_INPUTS.filter((spec) => inputApplies(spec, input)).map((spec): [string, string] => {
       const v = readInput(input, spec);
       return [inputLabel(spec), v === 0 && spec.zeroMeans ? `0 (${spec.zeroMeans})` : si(v, spec.unit)];
     }),
     ['Compensator', compensatorTitle(comp.type)],
+    ...amplifierRows(comp),
     ['Resistor / capacitor series', `${result.parts.resistorSeries} / ${result.parts.capacitorSeries}`],
   ]);
 
@@ -80,6 +134,7 @@ export function buildReportHtml(r: ReportInput): string {
     ['Q', result.plant.q === null ? '—' : result.plant.q.toFixed(2)],
     ['ESR zero', si(result.plant.esrZeroHz, 'Hz')],
     ['RHP zero', si(result.plant.rhpZeroHz, 'Hz')],
+    ...modeLandmarkRows(result),
   ]);
 
   const snapped = marginRows(result.parts.snappedMargins);
@@ -103,6 +158,9 @@ export function buildReportHtml(r: ReportInput): string {
         .map((c) => `<li class="check ${c.level}"><span class="level">${esc(c.level)}</span> ${esc(c.message)}</li>`)
         .join('')}</ul>`
     : '<p>No Checks raised.</p>';
+
+  const summary = summarizeRange(input);
+  const across = summary.ok ? rangeSection(summary.value) : `<p>Worst case not available: ${esc(summary.message)}</p>`;
 
   const cautions = `<ul class="cautions">${CAUTIONS.map((c) => `<li><b>${esc(c.title)}.</b> ${esc(c.text)}</li>`).join('')}</ul>`;
 
@@ -174,6 +232,7 @@ ${r.revision.note ? `<p><b>Revision note:</b> ${esc(r.revision.note)}</p>` : ''}
   <div><h2>Operating point</h2>${operating}</div>
 </section>
 <section><h2>Margins</h2>${margins}</section>
+<section data-section="range"><h2>Across the operating range</h2>${across}</section>
 <section class="plot"><h2>Bode plot</h2>${plot}</section>
 ${timeDomainSections(input, result)}
 <section><h2>Parts</h2>${parts}</section>

@@ -7,6 +7,7 @@ import {
   TOPOLOGIES,
   type AnalyzeRequest,
   type FieldIssue,
+  type ModulatorInput,
 } from '@/lib/engine/types';
 
 /**
@@ -50,10 +51,25 @@ export const converterSchema = z.object({
   vd: finite('vd').default(0),
 });
 
-export const modulatorSchema = z.object({
+/**
+ * A modulator without `mode` is voltage mode (designs saved before modes existed).
+ * Voltage mode needs vramp; peak current mode needs ri (se defaults to 0).
+ */
+export const modulatorFieldsSchema = z.object({
   mode: modulatorModeSchema.optional(),
-  vramp: finite('vramp'),
+  vramp: finite('vramp').optional(),
+  ri: finite('ri').optional(),
+  se: finite('se').optional(),
 });
+export const modulatorSchema = modulatorFieldsSchema
+  .superRefine((m, ctx) => {
+    if (m.mode === 'peak-current') {
+      if (m.ri === undefined) ctx.addIssue({ code: 'custom', path: ['ri'], message: 'ri (current-sense gain, V/A) is required in peak current mode' });
+    } else if (m.vramp === undefined) {
+      ctx.addIssue({ code: 'custom', path: ['vramp'], message: 'vramp (PWM ramp, V) is required in voltage mode' });
+    }
+  })
+  .transform((m): ModulatorInput => (m.mode === 'peak-current' ? { mode: m.mode, ri: m.ri ?? 0, se: m.se ?? 0 } : { ...(m.mode ? { mode: m.mode } : {}), vramp: m.vramp ?? 0 }));
 
 export const feedbackSchema = z.object({ vref: finite('vref') });
 
@@ -66,6 +82,10 @@ export const compensatorSchema = z.object({
   c1: finite('c1'),
   c2: finite('c2').optional(),
   c3: finite('c3').optional(),
+  gm: finite('gm').optional(),
+  ro: finite('ro').optional(),
+  rb: finite('rb').optional(),
+  opamp: z.object({ a0: finite('a0'), gbw: finite('gbw') }).optional(),
 });
 
 export const partsOptionsSchema = z.object({

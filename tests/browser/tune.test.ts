@@ -247,6 +247,8 @@ describe.runIf(run)('Tune', () => {
     expect(await page.getByTestId('value-z0').inputValue()).toBe(zero0);
     // Moving a zero holds the integrator (the curve below it stays).
     expect(await page.getByTestId('value-integrator').inputValue()).toBe(integrator0);
+    // Back where it started: nothing to save.
+    await expect.poll(() => page.getByTestId('save-state').textContent()).toContain('No changes since r1');
 
     // Undo: each drag is one step, the last first.
     await dragBy(page, 'z0', -60, 0);
@@ -335,6 +337,8 @@ describe.runIf(run)('Tune', () => {
     await expect.poll(() => stop.inputValue()).toBe('1 kHz');
     // The loop is still above 0 dB at 1 kHz: the check says so instead of "no crossover".
     await expect.poll(() => page.getByTestId('tune').textContent()).toMatch(/crossover lies above the end of the sweep/);
+    expect(await page.getByTestId('tune').textContent()).not.toMatch(/no crossover/);
+    expect(await page.getByTestId('readout-fc').textContent()).toBe('> 1 kHz');
     await page.getByTestId('revision-note').fill('Sweep to 1 kHz');
     await page.getByTestId('save-revision').click();
     await expect.poll(() => page.getByTestId('save-state').textContent(), { timeout: 20_000 }).toContain('Saved as r2');

@@ -46,12 +46,15 @@ describe('checks (thresholds: common practice, CHECK-VALUES §4)', () => {
     expect(stageChecks(op).map((c) => [c.id, c.level])).toContainEqual(['duty-extreme', 'caution']);
   });
 
-  it('DCM at the given load is a risk', () => {
-    const op = computeOperatingPoint(makeRequest({ converter: { iout: 0.05 } }).converter);
-    expect(op.conduction).toBe('DCM');
-    const c = stageChecks(op).find((x) => x.id === 'dcm-at-load')!;
-    expect(c.level).toBe('risk');
+  it('below the CCM/DCM boundary the DCM model is used: a note, no risk', () => {
+    const req = makeRequest({ converter: { iout: 0.05 } });
+    expect(computeOperatingPoint(req.converter).conduction).toBe('DCM');
+    const r = analyze(req);
+    expect(r.operatingPoint.conduction).toBe('DCM');
+    const c = r.checks.find((x) => x.id === 'dcm-model')!;
+    expect(c.level).toBe('note');
     expect(c.message).toMatch(/DCM/);
+    expect(r.checks.some((x) => x.id === 'dcm-at-load')).toBe(false);
   });
 
   it('parts outside 1 kΩ…1 MΩ or below 10 pF get one note naming them', () => {

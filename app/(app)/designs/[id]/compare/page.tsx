@@ -14,6 +14,8 @@ import { formatDate } from '@/components/review/format';
 import { MarginDeltas } from '@/components/review/margin-deltas';
 import { StepCompare } from '@/components/time-domain/step-compare';
 import { describeStep, stepOf, stepResponseOf } from '@/lib/step-summary';
+import { RangeCompare } from '@/components/range/range-compare';
+import { summarizeRange } from '@/lib/range-summary';
 
 export const metadata: Metadata = { title: 'Compare' };
 
@@ -63,6 +65,9 @@ export default async function ComparePage({ params, searchParams }: Props) {
   const step = side(b).input.step ?? stepOf(side(a).input);
   const stepA = stepResponseOf(labelA, side(a).input, step);
   const stepB = stepResponseOf(labelB, side(b).input, step);
+  // Worst case across each revision's own operating range (corners and a fixed-seed spread).
+  const rangeA = summarizeRange(side(a).input);
+  const rangeB = summarizeRange(side(b).input);
 
   return (
     <div className="space-y-4" data-testid="compare">
@@ -104,6 +109,8 @@ export default async function ComparePage({ params, searchParams }: Props) {
       </div>
 
       <MarginDeltas deltas={deltas} labelA={labelA} labelB={labelB} />
+
+      <RangeCompare a={rangeA} b={rangeB} labelA={labelA} labelB={labelB} />
 
       {loopA && loopB ? (
         <ComparePlot a={loopA} b={loopB} />

@@ -44,7 +44,7 @@ export default async function HandoffPage({ params, searchParams }: Props) {
   const revision = revisions.find((x) => String(x.number) === r) ?? latest;
   const input = revision.input;
   const result = analyze(input);
-  const rows = buildPartsList(result.parts, input.compensator.type, design.designatorMap);
+  const rows = buildPartsList(result.parts, input.compensator.type, design.designatorMap, input.compensator.amplifier);
   const netlist = spiceNetlistFile({ designName: design.name, revision: revision.number, input });
   const state = getSignoffState(db, revision.id);
 
