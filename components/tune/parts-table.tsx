@@ -1,7 +1,7 @@
 'use client';
 
 import { memo } from 'react';
-import { E_SERIES_NAMES, type ESeriesName, type PartsOptions, type PartsResult, type Topology } from '@/lib/engine/types';
+import { E_SERIES_NAMES, type Amplifier, type ESeriesName, type PartsOptions, type PartsResult, type Topology } from '@/lib/engine/types';
 import { formatSi } from '@/lib/units/si';
 import type { PartKey } from './handles';
 import { parseSiField, toSiText } from './si-schema';
@@ -16,6 +16,17 @@ const ROWS: { key: keyof PartsResult['ideal']; name: string; unit: 'Ω' | 'F'; r
   { key: 'c3', name: 'C3', unit: 'F', role: 'in series with R3, across R1' },
   { key: 'rb', name: 'Rb', unit: 'Ω', role: 'lower divider resistor (sets Vout)' },
 ];
+
+/** Around a transconductance amplifier the network sits at its output and the divider is in the loop. */
+const GM_ROLES: Partial<Record<keyof PartsResult['ideal'], string>> = {
+  r1: 'divider top, output to the feedback pin',
+  r2: 'COMP to ground, in series with C1',
+  c1: 'COMP to ground, in series with R2',
+  c2: 'COMP to ground',
+  r3: 'in series with C3, across R1',
+  c3: 'in series with R3, across R1',
+  rb: 'divider bottom (sets Vout; in the loop gain)',
+};
 
 function SeriesSelect({ id, label, value, disabled, onChange }: { id: string; label: string; value: ESeriesName; disabled: boolean; onChange: (s: ESeriesName) => void }) {
   return (
@@ -40,6 +51,7 @@ function SeriesSelect({ id, label, value, disabled, onChange }: { id: string; la
 export const PartsTable = memo(function PartsTable({
   parts,
   topology,
+  amplifier = 'opamp',
   readOnly,
   lock,
   onSeriesChange,
@@ -48,6 +60,8 @@ export const PartsTable = memo(function PartsTable({
 }: {
   parts: PartsResult;
   topology: Topology;
+  /** The error amplifier; a transconductance stage gives the parts other roles. */
+  amplifier?: Amplifier;
   readOnly: boolean;
   /** The part that holds its value while the handles move. */
   lock: PartKey;
@@ -57,7 +71,9 @@ export const PartsTable = memo(function PartsTable({
   onLockChange: (part: PartKey) => void;
 }) {
   const options: PartsOptions = { resistorSeries: parts.resistorSeries, capacitorSeries: parts.capacitorSeries };
-  const rows = ROWS.filter((r) => parts.ideal[r.key] !== null && !(r.key === 'c2' && parts.ideal.c2 === 0));
+  const rows = ROWS.filter((r) => parts.ideal[r.key] !== null && !(r.key === 'c2' && parts.ideal.c2 === 0)).map((r) =>
+    amplifier === 'transconductance' ? { ...r, role: GM_ROLES[r.key] ?? r.role } : r,
+  );
   return (
     <div className="space-y-2">
       <div className="flex flex-wrap gap-3">
