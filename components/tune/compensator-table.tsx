@@ -1,18 +1,14 @@
 'use client';
 
 import { useState } from 'react';
-import type { CompensatorShape, CompensatorType } from '@/lib/engine/types';
+import { compensatorTitle } from '@/lib/catalog/compensators';
+import { COMPENSATOR_TYPES, type CompensatorShape, type CompensatorType } from '@/lib/engine/types';
 import { formatSi } from '@/lib/units/si';
 import type { HandleMove } from './handle-overlay';
 import { moveFrequency, setGainAt, type HandleSpec } from './handles';
 import { parseSiField, toSiText } from './si-schema';
 import { ValueCell } from './value-cell';
 
-const TYPE_NAMES: Record<CompensatorType, string> = {
-  type1: 'Type I (integrator)',
-  type2: 'Type II (one zero, one pole)',
-  type3: 'Type III (two zeros, two poles)',
-};
 
 const GLYPH: Record<HandleSpec['kind'], string> = { zero: '○', pole: '✕', gain: '◆' };
 
@@ -68,9 +64,9 @@ export function CompensatorTable({ shape, handles, readOnly, onShape, onStep, on
           data-testid="compensator-type"
           onChange={(e) => setTypeError(onTypeChange(e.target.value as CompensatorType))}
         >
-          {(Object.keys(TYPE_NAMES) as CompensatorType[]).map((t) => (
+          {COMPENSATOR_TYPES.map((t) => (
             <option key={t} value={t}>
-              {TYPE_NAMES[t]}
+              {compensatorTitle(t)}
             </option>
           ))}
         </select>

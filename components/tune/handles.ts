@@ -16,6 +16,7 @@
  */
 import { compensatorTransfer, partsFromShape, shapeFromParts } from '@/lib/engine/compensator';
 import { transferEvaluator } from '@/lib/engine/sweep';
+import { PARTS, compensatorEntry, presentLandmarks, type PartKey as CatalogPartKey } from '@/lib/catalog/compensators';
 import { formatSi } from '@/lib/units/si';
 import { EngineInputError, type CompensatorInput, type CompensatorShape, type CompensatorType, type FieldIssue } from '@/lib/engine/types';
 
@@ -34,11 +35,13 @@ export interface HandleSpec {
   gainDb?: number | null;
 }
 
+/** The parts that place each zero and pole the shape has (from the catalogue). */
 function poleZeroParts(shape: CompensatorShape): { zeros: string[]; poles: string[] } {
-  if (shape.type === 'type1') return { zeros: [], poles: [] };
-  if (shape.type === 'type2') return { zeros: ['R2·C1'], poles: ['C2'] };
-  const poles = shape.polesHz.length > 1 ? ['C2', 'R3·C3'] : ['R3·C3'];
-  return { zeros: ['R2·C1', '(R1+R3)·C3'], poles };
+  const entry = compensatorEntry(shape.type);
+  return {
+    zeros: presentLandmarks(entry.zeros, shape.zerosHz.length).map((l) => l.formula),
+    poles: presentLandmarks(entry.poles, shape.polesHz.length).map((l) => l.formula),
+  };
 }
 
 /**
@@ -83,7 +86,7 @@ export function handlesOf(shape: CompensatorShape, anchorHz: number | null): Han
     })),
   ];
   const hz = gainHandleHz(shape, anchorHz);
-  out.push({ id: 'gain', kind: 'gain', hz, label: `Gain at ${formatSi(hz, 'Hz')}`, parts: shape.type === 'type1' ? 'the integrator, R1·C1' : 'the integrator, R1·(C1+C2)', gainDb: compensatorGainDbAt(shape, hz) });
+  out.push({ id: 'gain', kind: 'gain', hz, label: `Gain at ${formatSi(hz, 'Hz')}`, parts: `the integrator, ${compensatorEntry(shape.type).gain.formula}`, gainDb: compensatorGainDbAt(shape, hz) });
   return out;
 }
 
@@ -150,14 +153,10 @@ export function dragShape(base: CompensatorShape, id: string, dxPx: number, dyPx
   return applyMove(base, id, moveFromDrag(base, id, dxPx, dyPx, scale));
 }
 
-/** Parts a compensator type has, in the order of the parts list. */
-export type PartKey = 'r1' | 'r2' | 'r3' | 'c1' | 'c2' | 'c3';
-const TYPE_PARTS: Record<CompensatorType, PartKey[]> = {
-  type1: ['r1', 'c1'],
-  type2: ['r1', 'r2', 'c1', 'c2'],
-  type3: ['r1', 'r2', 'r3', 'c1', 'c2', 'c3'],
-};
-export const partsOfType = (type: CompensatorType): PartKey[] => TYPE_PARTS[type];
+/** A compensator part (the divider's Rb is not one: it follows R1). */
+export type PartKey = Exclude<CatalogPartKey, 'rb'>;
+/** Parts a compensator type has, in the catalogue's order. */
+export const partsOfType = (type: CompensatorType): readonly PartKey[] => compensatorEntry(type).parts.filter((p): p is PartKey => p !== 'rb');
 
 /** A part that holds its value while the handles move; R1 unless the designer locks another. */
 export interface PartLock {
@@ -206,7 +205,6 @@ export function compensatorFromShape(shape: CompensatorShape, lock: PartLock | n
   return { ok: true, comp: { ...scaled, [lock.part]: lock.value } };
 }
 
-const PART_NAMES: Record<PartKey, string> = { r1: 'R1', r2: 'R2', r3: 'R3', c1: 'C1', c2: 'C2', c3: 'C3' };
 
 /**
  * The compensator with one part typed in; the poles, zeros and integrator follow from the
@@ -214,8 +212,8 @@ const PART_NAMES: Record<PartKey, string> = { r1: 'R1', r2: 'R2', r3: 'R3', c1: 
  * as the handles would be (poles above their zeros come from positive parts by construction).
  */
 export function withPart(comp: CompensatorInput, part: PartKey, value: number): { ok: true; comp: CompensatorInput } | { ok: false; message: string } {
-  const name = PART_NAMES[part];
-  if (!TYPE_PARTS[comp.type].includes(part)) return { ok: false, message: `${name} is not a part of this compensator type` };
+  const name = PARTS[part].name;
+  if (!partsOfType(comp.type).includes(part)) return { ok: false, message: `${name} is not a part of this compensator type` };
   if (!Number.isFinite(value)) return { ok: false, message: `${name} must be a number` };
   if (part === 'c2' ? value < 0 : !(value > 0)) return { ok: false, message: part === 'c2' ? 'C2 cannot be negative (0 = absent)' : `${name} must be above 0` };
   return { ok: true, comp: { ...comp, [part]: value } };

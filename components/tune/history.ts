@@ -41,10 +41,13 @@ export function redo<T>(h: History<T>): History<T> {
   return { past: [...h.past, h.present], present: h.future[0], future: h.future.slice(1) };
 }
 
-/** Drop a drag's last step when it ended where it began (commit at the start, replaces after). */
+/**
+ * Drop a drag's step when it ended where it began (commit at the start, replaces after); the
+ * state before the drag comes back exactly, not the rounding-level copy the drag left.
+ */
 export function settle<T>(h: History<T>, same: (a: T, b: T) => boolean): History<T> {
   const before = h.past[h.past.length - 1];
-  return before !== undefined && same(before, h.present) ? { ...h, past: h.past.slice(0, -1) } : h;
+  return before !== undefined && same(before, h.present) ? { ...h, past: h.past.slice(0, -1), present: before } : h;
 }
 
 /** The key press that undoes or redoes: Ctrl/⌘+Z, Ctrl/⌘+Shift+Z (and Ctrl+Y). */

@@ -1,21 +1,16 @@
 'use client';
 
 import { memo } from 'react';
-import { E_SERIES_NAMES, type Amplifier, type ESeriesName, type PartsOptions, type PartsResult, type Topology } from '@/lib/engine/types';
+import { PART_ORDER, PARTS, partRole } from '@/lib/catalog/compensators';
+import { E_SERIES_NAMES, type Amplifier, type CompensatorType, type ESeriesName, type PartsOptions, type PartsResult, type Topology } from '@/lib/engine/types';
 import { formatSi } from '@/lib/units/si';
 import type { PartKey } from './handles';
 import { parseSiField, toSiText } from './si-schema';
 import { ValueCell } from './value-cell';
 
-const ROWS: { key: keyof PartsResult['ideal']; name: string; unit: 'Ω' | 'F'; role: string }[] = [
-  { key: 'r1', name: 'R1', unit: 'Ω', role: 'output to inverting input' },
-  { key: 'r2', name: 'R2', unit: 'Ω', role: 'feedback, in series with C1' },
-  { key: 'c1', name: 'C1', unit: 'F', role: 'feedback, in series with R2' },
-  { key: 'c2', name: 'C2', unit: 'F', role: 'across the feedback path' },
-  { key: 'r3', name: 'R3', unit: 'Ω', role: 'in series with C3, across R1' },
-  { key: 'c3', name: 'C3', unit: 'F', role: 'in series with R3, across R1' },
-  { key: 'rb', name: 'Rb', unit: 'Ω', role: 'lower divider resistor (sets Vout)' },
-];
+/** Rows in the catalogue's order, with its names, units and roles. */
+const rowsFor = (type: CompensatorType) =>
+  PART_ORDER.map((key) => ({ key, name: PARTS[key].name, unit: PARTS[key].unit, role: partRole(type, key) }));
 
 /** Around a transconductance amplifier the network sits at its output and the divider is in the loop. */
 const GM_ROLES: Partial<Record<keyof PartsResult['ideal'], string>> = {
@@ -50,6 +45,7 @@ function SeriesSelect({ id, label, value, disabled, onChange }: { id: string; la
  */
 export const PartsTable = memo(function PartsTable({
   parts,
+  type,
   topology,
   amplifier = 'opamp',
   readOnly,
@@ -59,6 +55,7 @@ export const PartsTable = memo(function PartsTable({
   onLockChange,
 }: {
   parts: PartsResult;
+  type: CompensatorType;
   topology: Topology;
   /** The error amplifier; a transconductance stage gives the parts other roles. */
   amplifier?: Amplifier;
@@ -71,9 +68,9 @@ export const PartsTable = memo(function PartsTable({
   onLockChange: (part: PartKey) => void;
 }) {
   const options: PartsOptions = { resistorSeries: parts.resistorSeries, capacitorSeries: parts.capacitorSeries };
-  const rows = ROWS.filter((r) => parts.ideal[r.key] !== null && !(r.key === 'c2' && parts.ideal.c2 === 0)).map((r) =>
-    amplifier === 'transconductance' ? { ...r, role: GM_ROLES[r.key] ?? r.role } : r,
-  );
+  const rows = rowsFor(type)
+    .filter((r) => parts.ideal[r.key] !== null && !(r.key === 'c2' && parts.ideal.c2 === 0))
+    .map((r) => (amplifier === 'transconductance' ? { ...r, role: GM_ROLES[r.key] ?? r.role } : r));
   return (
     <div className="space-y-2">
       <div className="flex flex-wrap gap-3">

@@ -51,12 +51,25 @@ export interface TuneScreenProps {
   revisions: Pick<RevisionListItem, 'number' | 'note' | 'authorName' | 'createdAt'>[];
 }
 
-/** JSON with sorted keys, so two inputs compare equal whatever order their keys were written in. */
-function stableJson(v: unknown): string {
+/**
+ * JSON with sorted keys, so two inputs compare equal whatever order their keys were written in;
+ * with `digits`, numbers rounded to that many significant digits.
+ */
+function stableJson(v: unknown, digits?: number): string {
   return JSON.stringify(v, (_k, val) =>
-    val && typeof val === 'object' && !Array.isArray(val) ? Object.fromEntries(Object.entries(val).sort(([a], [b]) => a.localeCompare(b))) : val,
+    val && typeof val === 'object' && !Array.isArray(val)
+      ? Object.fromEntries(Object.entries(val).sort(([a], [b]) => a.localeCompare(b)))
+      : digits && typeof val === 'number' && Number.isFinite(val)
+        ? Number(val.toPrecision(digits))
+        : val,
   );
 }
+
+/**
+ * Inputs compare to 12 significant digits: a handle dragged away and back returns through
+ * floating-point products (~1e-16 off), which is the same circuit and no change to save.
+ */
+const compareJson = (v: unknown) => stableJson(v, 12);
 
 const NO_ISSUES: FieldIssue[] = [];
 
@@ -74,7 +87,7 @@ function Card({ title, children, className = '', aside }: { title: string; child
   );
 }
 
-const sameInput = (a: AnalyzeRequest, b: AnalyzeRequest) => a === b || stableJson(a) === stableJson(b);
+const sameInput = <T,>(a: T, b: T) => a === b || compareJson(a) === compareJson(b);
 
 export function TuneScreen({ designId, initialInput, savedInput, editFrom = null, shownRevision, latestRevision, mode, role, revisions }: TuneScreenProps) {
   // Scratch: any reader (viewer, reviewer, an earlier revision) edits and sees margins; nothing is saved.
@@ -88,12 +101,18 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
   const input = history.present;
   // The stage form keeps its own text; it is drawn again when undo, redo or leaving scratch change the stage under it.
   const [stageEpoch, setStageEpoch] = useState(0);
-  const edit = useCallback((fn: (i: DesignInput) => DesignInput) => setHistory((h) => commit(h, fn(h.present), sameInput)), []);
+  // An edit that lands back on the saved input (to rounding) takes the saved input itself.
+  const savedRef = useRef<{ json: string; input: DesignInput }>({ json: compareJson(withRange(savedInput ?? initialInput)), input: withRange(savedInput ?? initialInput) });
+  const snapToSaved = useCallback((next: DesignInput): DesignInput => (compareJson(next) === savedRef.current.json ? savedRef.current.input : next), []);
+  const edit = useCallback(
+    (fn: (i: DesignInput) => DesignInput) => setHistory((h) => commit(h, snapToSaved(fn(h.present)), sameInput)),
+    [snapToSaved],
+  );
   const setInput = edit;
   const dragCommitted = useRef(false);
   const [lockPart, setLockPart] = useState<PartKey>('r1');
   const [pmTarget, setPmTarget] = useState<number | null>(null);
-  const [saved, setSaved] = useState(() => ({ json: stableJson(withRange(savedInput ?? initialInput)), revision: shownRevision }));
+  const [saved, setSaved] = useState(() => ({ json: compareJson(withRange(savedInput ?? initialInput)), revision: shownRevision }));
   const [from, setFrom] = useState(editFrom);
   const [stageValid, setStageValid] = useState(true);
   const [dragging, setDragging] = useState<string | null>(null);
@@ -135,7 +154,7 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
     [cornerResult, prepared, across.view],
   );
 
-  const dirty = mode === 'edit' && (stableJson(input) !== saved.json || !stageValid);
+  const dirty = mode === 'edit' && (compareJson(input) !== saved.json || !stageValid);
   useLeaveGuard(dirty);
 
   const lock = useMemo<PartLock | null>(() => {
@@ -171,7 +190,11 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
     if (problem === null) dragCommitted.current = true;
   };
   const onDragEnd = () => {
-    if (dragCommitted.current) setHistory((h) => settle(h, sameInput));
+    if (dragCommitted.current)
+      setHistory((h) => {
+        const settled = settle(h, sameInput);
+        return settled.present === h.present ? replace(settled, snapToSaved(settled.present)) : settled;
+      });
     dragBase.current = null;
     dragCommitted.current = false;
     setDragging(null);
@@ -278,7 +301,8 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
   );
 
   const onSaved = (rev: SavedRevision, savedInput: AnalyzeRequest) => {
-    setSaved({ json: stableJson(savedInput), revision: rev.number });
+    setSaved({ json: compareJson(withRange(savedInput)), revision: rev.number });
+    savedRef.current = { json: compareJson(withRange(savedInput)), input: withRange(savedInput) };
     if (from !== null) {
       setFrom(null);
       // The address no longer asks to load the earlier revision (before SaveBar refreshes the page).
@@ -483,6 +507,7 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
           {parts ? (
             <PartsTable
               parts={parts}
+              type={input.compensator.type}
               topology={input.converter.topology}
               amplifier={input.compensator.amplifier}
               readOnly={readOnly}

@@ -247,6 +247,8 @@ describe.runIf(run)('Tune', () => {
     expect(await page.getByTestId('value-z0').inputValue()).toBe(zero0);
     // Moving a zero holds the integrator (the curve below it stays).
     expect(await page.getByTestId('value-integrator').inputValue()).toBe(integrator0);
+    // Back where it started: nothing to save.
+    await expect.poll(() => page.getByTestId('save-state').textContent()).toContain('No changes since r1');
 
     // Undo: each drag is one step, the last first.
     await dragBy(page, 'z0', -60, 0);

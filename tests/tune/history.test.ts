@@ -34,10 +34,12 @@ describe('Tune undo/redo history', () => {
     let h = startHistory({ v: 1 });
     h = commit(h, { v: 1 }, same);
     expect(h.past).toHaveLength(0);
+    const start = h.present;
     h = commit(h, { v: 2 }, same);
     h = replace(h, { v: 1 });
     h = settle(h, same);
     expect(h.past).toHaveLength(0);
+    expect(h.present).toBe(start); // the state before the drag itself, not a copy
   });
 
   it('keeps at most HISTORY_LIMIT steps', () => {
