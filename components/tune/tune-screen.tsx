@@ -19,6 +19,9 @@ import { PartsTable } from './parts-table';
 import { RevisionPicker } from './revision-picker';
 import { SaveBar } from './save-bar';
 import { StageForm } from './stage-form';
+import { AmplifierForm, type AmplifierValues } from './amplifier-form';
+import { dividerRb, partsFromShape } from '@/lib/engine/compensator';
+import { MODULATOR_MODE_LABELS } from '@/lib/catalog';
 import { StartingPointForm, type StartingPointRequest } from './starting-point-form';
 import { analyzeCompensator, analyzeCompensatorParts, prepareStage } from './tune-analysis';
 import { TunePlot } from './tune-plot';
@@ -259,7 +262,7 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
   const propose = (target: Omit<StartingPointRequest, 'type'> & { type: CompensatorType }): string | null => {
     if (!prepared.ok) return 'Fix the power stage first: the loop cannot be placed without it.';
     try {
-      const comp = proposeForPlant(prepared.value, { ...target, r1: input.compensator.r1 });
+      const comp = proposeForPlant(prepared.value, { ...target, r1: input.compensator.r1, fixed: shape.fixed });
       setHandleProblem(null);
       setInput((i) => ({ ...i, compensator: comp }));
       return null;
@@ -274,7 +277,8 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
     const fc = crossoverHz ?? targetFcHz;
     const pm = pmTarget ?? startPm.current ?? 60;
     try {
-      const placed = placeForType(prepared.value, { type, crossoverHz: fc, phaseMarginDeg: pm, r1: input.compensator.r1 });
+      if (type === 'type1' && input.compensator.amplifier === 'transconductance') return 'A transconductance amplifier is modelled for Type II and Type III: choose the op-amp first for Type I.';
+      const placed = placeForType(prepared.value, { type, crossoverHz: fc, phaseMarginDeg: pm, r1: input.compensator.r1, fixed: shape.fixed });
       setHandleProblem(null);
       setInput((i) => ({ ...i, compensator: placed.compensator }));
       return placed.note ?? `Placed for the same fc (${formatSi(fc, 'Hz')}) and PM target (${pm.toFixed(0)}°).`;
@@ -282,6 +286,23 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
       return firstMessage(err);
     }
   };
+
+  /** A new amplifier or new amplifier values: the placed poles and zeros stay, the parts follow. */
+  const onAmplifierChange = useCallback(
+    (values: AmplifierValues): string | null => {
+      if (values.amplifier === 'transconductance' && input.compensator.type === 'type1')
+        return 'A transconductance amplifier is modelled for Type II and Type III: choose one of them first.';
+      try {
+        const comp = partsFromShape({ ...shapeFromParts(input.compensator), fixed: values });
+        setHandleProblem(null);
+        setInput((i) => ({ ...i, compensator: comp }));
+        return null;
+      } catch (err) {
+        return firstMessage(err);
+      }
+    },
+    [input.compensator, setInput],
+  );
 
   const onSaved = (rev: SavedRevision, savedInput: AnalyzeRequest) => {
     setSaved({ json: compareJson(withRange(savedInput)), revision: rev.number });
@@ -392,6 +413,8 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
               bode={result.bode}
               margins={result.margins}
               plant={prepared.value.plant}
+              modulator={prepared.value.modulator}
+              dcmPoleHz={prepared.value.dcmPoleHz}
               handles={handles}
               sweep={sweepInUse}
               onWidenSweep={onWidenSweep}
@@ -450,7 +473,7 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
       </div>
 
       <div className="grid items-start gap-4 lg:grid-cols-2 xl:grid-cols-3">
-        <Card title="Power stage" aside={<span className="text-xs text-slate-500">{input.converter.topology}, voltage-mode</span>}>
+        <Card title="Power stage" aside={<span className="text-xs text-slate-500">{input.converter.topology}, {MODULATOR_MODE_LABELS[input.modulator.mode ?? 'voltage'].toLowerCase()}</span>}>
           <StageForm key={stageEpoch} value={stage} readOnly={readOnly} issues={stageIssues} onChange={onStageChange} onValidityChange={setStageValid} />
         </Card>
         <Card title="Compensator handles">
@@ -462,6 +485,15 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
             onStep={onStep}
             onTypeChange={onTypeChange}
           />
+          <div className="mt-4">
+            <AmplifierForm
+              key={`${stageEpoch}|${input.compensator.amplifier ?? 'opamp'}`}
+              compensator={input.compensator}
+              rbDefault={dividerRb(input.compensator.r1, input.feedback.vref, input.converter.vout)}
+              readOnly={readOnly}
+              onChange={onAmplifierChange}
+            />
+          </div>
           {!readOnly && (
             <details className="mt-4 rounded-md border border-slate-200 p-3" open={saved.revision === null}>
               <summary className="cursor-pointer text-sm font-semibold text-slate-800">Starting point</summary>
@@ -483,6 +515,7 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
               parts={parts}
               type={input.compensator.type}
               topology={input.converter.topology}
+              amplifier={input.compensator.amplifier}
               readOnly={readOnly}
               lock={lock?.part ?? 'r1'}
               onSeriesChange={onSeriesChange}
