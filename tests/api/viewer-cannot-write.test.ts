@@ -15,6 +15,8 @@ const API = path.resolve(import.meta.dirname, '../../app/api');
 // (password, personal API tokens, accepting an invitation addressed to them).
 const READ_ONLY = new Set([
   '/api/analyze',
+  '/api/analyze/transient',
+  '/api/analyze/switching',
   '/api/analyze/corners',
   '/api/analyze/spread',
   '/api/session/team',
