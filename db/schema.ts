@@ -75,8 +75,23 @@ export const designs = sqliteTable(
     updatedAt: integer('updated_at', { mode: 'timestamp_ms' })
       .notNull()
       .default(sql`(unixepoch('subsec') * 1000)`),
+    /**
+     * Number and sign-off state of the latest revision, kept by triggers on revisions and
+     * signoff_events (migration designs_list_triggers) so the list filters and sorts on indexes.
+     * Both null until the first save.
+     */
+    latestRevision: integer('latest_revision'),
+    signoffState: text('signoff_state', { enum: SIGNOFF_STATES }),
   },
-  (t) => [index('designs_team').on(t.teamId)],
+  // One index per sort of the designs list (the row id breaks ties, as in every index).
+  (t) => [
+    index('designs_team').on(t.teamId),
+    index('designs_team_updated').on(t.teamId, t.updatedAt),
+    index('designs_team_name').on(t.teamId, sql`${t.name} COLLATE NOCASE`),
+    index('designs_team_topology').on(t.teamId, t.topology),
+    index('designs_team_latest_revision').on(t.teamId, t.latestRevision),
+    index('designs_team_signoff').on(t.teamId, t.signoffState),
+  ],
 );
 
 export const revisions = sqliteTable(

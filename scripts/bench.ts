@@ -1,6 +1,11 @@
 /**
- * Engine benchmark (`npm run bench`): median wall time of named cases, printed with targets.
- * Not a test: nothing fails on a slow machine. Add a case by pushing to BENCH_CASES.
+ * `npm run bench`: printed timings with their targets, in sections —
+ *   engine   median wall time of named engine cases (add one by pushing to BENCH_CASES);
+ *   list     the designs list's query on 10 vs 10,000 designs (scripts/bench/list.ts);
+ *   load     autocannon against the production build (scripts/bench/load.ts);
+ *   browser  Chromium, cold cache: first drawn loop on Tune, JavaScript per page (scripts/bench/browser.ts).
+ * `npm run bench -- --only load` (or engine, list, browser; comma-separated) runs some sections.
+ * Not a test: nothing fails on a slow machine.
  */
 import os from 'node:os';
 import { analyze, analyzeLoop, preparePlant } from '@/lib/engine/analyze';
@@ -10,6 +15,9 @@ import { simulateStepResponse } from '@/lib/engine/step-response';
 import { simulatorFor } from '@/lib/engine/switching-check';
 import type { AnalyzeRequest, CompensatorShape } from '@/lib/engine/types';
 import { tuneDragCase } from '@/components/tune/drag-bench';
+import { loadSection, printLoad } from './bench/load';
+import { browserSection, printBrowser } from './bench/browser';
+import { listSection, printList } from './bench/list';
 import { defaultRange } from '@/lib/engine/range';
 import { runSpread } from '@/lib/engine/spread';
 import { analyzeCorners } from '@/lib/engine/corners';
@@ -197,12 +205,27 @@ export const BENCH_CASES: BenchCase[] = [
   },
 ];
 
-const main = () => {
-  const load = os.loadavg()[0];
-  console.log(`Phasewright engine benchmark — node ${process.version}, ${os.cpus().length} cores, load average ${load.toFixed(1)}`);
-  if (load > os.cpus().length) console.log('  (the machine is busy: medians include other processes; "best" is closer to the engine alone)');
-  // `npm run bench -- spread` runs only the cases whose name contains "spread".
-  const only = process.argv[2];
+const SECTIONS = ['engine', 'list', 'load', 'browser'] as const;
+type Section = (typeof SECTIONS)[number];
+
+function chosenSections(argv: string[]): Section[] {
+  const i = argv.indexOf('--only');
+  const raw = i >= 0 ? argv[i + 1] : argv.find((a) => a.startsWith('--only='))?.slice(7);
+  if (!raw) return caseFilter(argv) ? ['engine'] : [...SECTIONS];
+  const wanted = raw.split(',').map((s) => s.trim());
+  const bad = wanted.filter((w) => !SECTIONS.includes(w as Section));
+  if (bad.length) throw new Error(`unknown section ${bad.join(', ')}: choose from ${SECTIONS.join(', ')}`);
+  return SECTIONS.filter((s) => wanted.includes(s));
+}
+
+/** `npm run bench -- spread` runs only the engine cases whose name contains "spread". */
+function caseFilter(argv: string[]): string | undefined {
+  return argv.find((a, k) => !a.startsWith('--') && argv[k - 1] !== '--only');
+}
+
+const engineSection = () => {
+  console.log('\nEngine');
+  const only = caseFilter(process.argv.slice(2));
   for (const c of BENCH_CASES.filter((b) => !only || b.name.includes(only))) {
     const { medianUs, p90Us, bestUs } = measure(c, c.batches, c.warmup);
     const verdict =
@@ -212,4 +235,20 @@ const main = () => {
   if (sink === undefined) console.log('(nothing computed)');
 };
 
-main();
+const main = async () => {
+  const sections = chosenSections(process.argv.slice(2));
+  const load = os.loadavg()[0];
+  console.log(`Phasewright benchmark (${sections.join(', ')}) — node ${process.version}, ${os.cpus().length} cores, load average ${load.toFixed(1)}`);
+  if (load > os.cpus().length) console.log('  (the machine is busy: medians include other processes; "best" is closer to the engine alone)');
+  const t0 = Date.now();
+  if (sections.includes('engine')) engineSection();
+  if (sections.includes('list')) printList(listSection());
+  if (sections.includes('load')) printLoad(await loadSection());
+  if (sections.includes('browser')) printBrowser(await browserSection());
+  console.log(`\nBench took ${((Date.now() - t0) / 1000).toFixed(0)} s.`);
+};
+
+main().catch((err) => {
+  console.error(err);
+  process.exit(1);
+});

@@ -28,9 +28,10 @@ if (fs.existsSync('scripts/fake-smtp.ts')) {
 
 console.log('› Building the app');
 run('npx', ['next', 'build']);
+run('node', ['scripts/precompress.mjs']);
 
 console.log(`› Serving Phasewright on http://localhost:${port}`);
-const server = spawn('npx', ['next', 'start', '-p', port], { stdio: 'inherit', env });
+const server = spawn('node', ['scripts/serve.mjs'], { stdio: 'inherit', env });
 children.push(server);
 const stop = () => children.forEach((c) => c.kill('SIGTERM'));
 process.on('SIGINT', stop);

@@ -71,6 +71,8 @@ export interface BodePlotProps {
   showLegend?: boolean;
   height?: number;
   className?: string;
+  /** Passed to PlotlyChart: hold Plotly back, be told when it has drawn, hide its loading text. */
+  plotly?: { load?: boolean; onDrawn?: () => void; placeholder?: boolean };
   'aria-label'?: string;
 }
 
@@ -117,6 +119,7 @@ export function BodePlot(props: BodePlotProps) {
       layout={layout}
       className={className}
       onSize={(s) => setWidth(s.width)}
+      {...props.plotly}
       data-testid="bode-plot"
       aria-label={props['aria-label'] ?? 'Bode plot'}
     >

@@ -57,8 +57,8 @@ export interface BodeContent {
 }
 
 export const BENCH_GREY = TRACE_COLORS.bench;
-const GUIDE = TRACE_COLORS.guide;
-const GRID = TRACE_COLORS.grid;
+export const GUIDE = TRACE_COLORS.guide;
+export const GRID = TRACE_COLORS.grid;
 
 /** Range holding the values (and `must`), widened to whole `step`s plus `pad`, so no tick sits on an edge. */
 function niceRange(values: Iterable<number>, step: number, pad: number, fallback: [number, number], must: number): [number, number] {
@@ -98,7 +98,7 @@ export function computeRanges({ f, series, bench = [] }: BodeContent): Ranges {
 }
 
 /** Ticks at 1, 2, 5 × 10^k inside the range; only the decades carry a label (10 Hz, 1 kHz, …). */
-function frequencyTicks(r: Ranges): { tickvals: number[]; ticktext: string[] } {
+export function frequencyTicks(r: Ranges): { tickvals: number[]; ticktext: string[] } {
   const tickvals: number[] = [];
   const ticktext: string[] = [];
   for (let e = Math.floor(r.x[0]); e <= Math.ceil(r.x[1]); e++) {

@@ -17,7 +17,8 @@ import type { Config, Data, Layout } from 'plotly.js-dist-min';
 type PlotlyModule = typeof import('plotly.js-dist-min');
 
 let plotlyPromise: Promise<PlotlyModule> | null = null;
-const loadPlotly = () => (plotlyPromise ??= import('plotly.js-dist-min').then((m) => (m.default ?? m) as PlotlyModule));
+/** Start fetching and evaluating Plotly (once); later calls share the same promise. */
+export const loadPlotly = () => (plotlyPromise ??= import('plotly.js-dist-min').then((m) => (m.default ?? m) as PlotlyModule));
 
 export interface PlotlyChartProps {
   data: Data[];
@@ -26,6 +27,12 @@ export interface PlotlyChartProps {
   className?: string;
   /** Called with the container size whenever it changes (before the plot is redrawn). */
   onSize?: (size: { width: number; height: number }) => void;
+  /** False holds Plotly back (a caller drawing its own first picture); default true. */
+  load?: boolean;
+  /** Called once, after Plotly's first draw has finished. */
+  onDrawn?: () => void;
+  /** Show "Loading plot…" until Plotly is ready (default true). */
+  placeholder?: boolean;
   children?: React.ReactNode;
   'data-testid'?: string;
   'aria-label'?: string;
@@ -33,13 +40,16 @@ export interface PlotlyChartProps {
 
 const BASE_CONFIG: Partial<Config> = { displaylogo: false, responsive: false, displayModeBar: false, scrollZoom: false };
 
-export function PlotlyChart({ data, layout, config, className, onSize, children, ...rest }: PlotlyChartProps) {
+export function PlotlyChart({ data, layout, config, className, onSize, load = true, onDrawn, placeholder = true, children, ...rest }: PlotlyChartProps) {
   const boxRef = useRef<HTMLDivElement>(null);
   const plotRef = useRef<HTMLDivElement>(null);
   const latest = useRef({ data, layout, config });
   const frame = useRef<number | null>(null);
   const [ready, setReady] = useState(false);
   const plotly = useRef<PlotlyModule | null>(null);
+  const drawn = useRef(false);
+  const onDrawnRef = useRef(onDrawn);
+  onDrawnRef.current = onDrawn;
   latest.current = { data, layout, config };
 
   const draw = () => {
@@ -50,11 +60,16 @@ export function PlotlyChart({ data, layout, config, className, onSize, children,
       const P = plotly.current;
       if (!el || !P) return;
       const { data: d, layout: l, config: c } = latest.current;
-      void P.react(el, d, { ...l, width: el.clientWidth || undefined }, { ...BASE_CONFIG, ...c });
+      void P.react(el, d, { ...l, width: el.clientWidth || undefined }, { ...BASE_CONFIG, ...c }).then(() => {
+        if (drawn.current) return;
+        drawn.current = true;
+        onDrawnRef.current?.();
+      });
     });
   };
 
   useEffect(() => {
+    if (!load) return;
     let alive = true;
     loadPlotly().then((P) => {
       if (!alive) return;
@@ -62,6 +77,13 @@ export function PlotlyChart({ data, layout, config, className, onSize, children,
       setReady(true);
       draw();
     });
+    return () => {
+      alive = false;
+    };
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [load]);
+
+  useEffect(() => {
     const el = plotRef.current;
     const box = boxRef.current;
     const ro = new ResizeObserver(() => {
@@ -70,7 +92,6 @@ export function PlotlyChart({ data, layout, config, className, onSize, children,
     });
     if (box) ro.observe(box);
     return () => {
-      alive = false;
       ro.disconnect();
       if (frame.current !== null) cancelAnimationFrame(frame.current);
       if (el && plotly.current) plotly.current.purge(el);
@@ -89,7 +110,7 @@ export function PlotlyChart({ data, layout, config, className, onSize, children,
   return (
     <div ref={boxRef} role="group" className={`relative ${className ?? ''}`} data-plot-ready={ready ? 'true' : 'false'} {...rest}>
       <div ref={plotRef} className="absolute inset-0" />
-      {!ready && <div className="absolute inset-0 grid place-items-center text-sm text-slate-400">Loading plot…</div>}
+      {!ready && placeholder && <div className="absolute inset-0 grid place-items-center text-sm text-slate-400">Loading plot…</div>}
       {children}
     </div>
   );

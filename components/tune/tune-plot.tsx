@@ -1,9 +1,10 @@
 'use client';
 
-import { useCallback, useMemo, useState, type ReactNode } from 'react';
+import { useCallback, useEffect, useMemo, useState, type ReactNode } from 'react';
 import type { Data } from 'plotly.js-dist-min';
 import { BodePlot, type BenchOverlay, type BodeSeries, type PlotGeometry, type PlotMarker } from '@/components/plot/bode-plot';
 import { around } from '@/components/plot/label-placement';
+import { PlotFrame } from '@/components/plot/plot-frame';
 import { interpolateLogF } from '@/lib/engine/margins';
 import { TRACE_COLORS } from '@/lib/catalog/traces';
 import { formatSi } from '@/lib/units/si';
@@ -61,14 +62,36 @@ export function TunePlot({ bode, margins, plant, handles, sweep, onWidenSweep, h
   const [shown, setShown] = useState<Record<TraceId, boolean>>({ loop: true, plant: true, compensator: true });
   const [benchShown, setBenchShown] = useState(true); // Bench data toggle
 
+  // First picture: until Plotly has loaded and drawn, the frame and every curve are plain SVG
+  // (PlotFrame, LiveCurves) laid out on the same geometry, so Plotly takes over without a jump.
+  // Plotly is fetched only after that first paint: evaluating it blocks the page for a while.
+  const [plotlyDrawn, setPlotlyDrawn] = useState(false);
+  const [loadPlotly, setLoadPlotly] = useState(false);
+  const svgOnly = !plotlyDrawn;
+  useEffect(() => {
+    const t = setTimeout(() => setLoadPlotly(true), 3000); // in case the overlay is never painted (hidden tab)
+    return () => clearTimeout(t);
+  }, []);
+  const onFirstPaint = useCallback(() => setLoadPlotly(true), []);
+  const onPlotlyDrawn = useCallback(() => {
+    if (performance.getEntriesByName(PLOTLY_DRAWN_MARK).length === 0) performance.mark(PLOTLY_DRAWN_MARK);
+    setPlotlyDrawn(true);
+  }, []);
+
   const all = useMemo(() => TRACES.map((t) => toSeries(t, bode[t.id], shown)), [bode, shown]);
   // While a handle is dragged Plotly keeps only the power stage, which does not move, and the
   // loop and compensator are drawn live above it (LiveCurves); Plotly takes them back on release.
   const plantOnly = useMemo(() => TRACES.map((t) => toSeries(t, t.id === 'plant' ? bode.plant : NO_TRACE, shown)), [bode.plant, shown]);
   const series = dragging ? plantOnly : all;
   const live = useMemo<LiveCurve[]>(
-    () => (dragging ? all.filter((s) => s.id !== 'plant' && s.visible).map((s) => ({ id: s.id, color: s.color, width: s.width ?? 2, magDb: s.magDb, phaseDeg: s.phaseDeg })) : []),
-    [all, dragging],
+    () =>
+      dragging || svgOnly
+        ? all
+            .filter((s) => (svgOnly || s.id !== 'plant') && s.visible)
+            .reverse() // the loop on top, as Plotly draws it
+            .map((s) => ({ id: s.id, color: s.color, width: s.width ?? 2, magDb: s.magDb, phaseDeg: s.phaseDeg }))
+        : [],
+    [all, dragging, svgOnly],
   );
 
   // Handles ride on the compensator curve, or on the loop when the compensator is hidden.
@@ -145,10 +168,13 @@ export function TunePlot({ bode, margins, plant, handles, sweep, onWidenSweep, h
         freezeRanges={dragging}
         showLegend={false}
         height={480}
+        plotly={{ load: loadPlotly, onDrawn: onPlotlyDrawn, placeholder: false }}
         aria-label="Bode plot of the loop gain, power stage and compensator"
         overlay={(g) => (
           <>
-            {dragging && <LiveCurves geometry={g} f={bode.f} curves={live} margins={margins} color={TRACE_COLORS.loop} />}
+            {svgOnly && <PlotFrame geometry={g} />}
+            {(dragging || svgOnly) && <LiveCurves geometry={g} f={bode.f} curves={live} margins={margins} color={TRACE_COLORS.loop} />}
+            {svgOnly && <AfterFirstPaint onPainted={onFirstPaint} />}
             <HandleOverlay
               geometry={g}
               handles={placed}
@@ -172,3 +198,21 @@ export function TunePlot({ bode, margins, plant, handles, sweep, onWidenSweep, h
     </div>
   );
 }
+
+/**
+ * Marks `phasewright:first-loop` on the performance timeline (the bench reads it) once the
+ * SVG loop has been painted, then lets Plotly load.
+ */
+function AfterFirstPaint({ onPainted }: { onPainted: () => void }) {
+  useEffect(() => {
+    const frame = requestAnimationFrame(() => {
+      if (performance.getEntriesByName(FIRST_LOOP_MARK).length === 0) performance.mark(FIRST_LOOP_MARK);
+      setTimeout(onPainted, 0);
+    });
+    return () => cancelAnimationFrame(frame);
+  }, [onPainted]);
+  return null;
+}
+
+export const FIRST_LOOP_MARK = 'phasewright:first-loop';
+export const PLOTLY_DRAWN_MARK = 'phasewright:plotly-drawn';

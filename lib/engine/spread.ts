@@ -147,8 +147,9 @@ export const runSpread = (
     const c1u = drawUnit(rnd, normal);
     const c2u = drawUnit(rnd, normal);
     const c3u = drawUnit(rnd, normal);
+    // Every other field of the compensator (amplifier, its model) is kept as entered.
     const sampled: CompensatorInput = {
-      type: comp.type,
+      ...comp,
       r1: comp.r1 * (1 + rt * r1u),
       r2: part(comp.r2, rt, r2u),
       r3: part(comp.r3, rt, r3u),

@@ -59,6 +59,23 @@ describe('GET /api/designs', () => {
   });
 });
 
+describe('GET /api/designs pages, filters and sorts on the server', () => {
+  it('answers one page with the total', async () => {
+    const body = await (await clients.viewer.fetch('/api/designs?sort=name&dir=asc&topology=buck')).json();
+    expect(body).toMatchObject({ total: expect.any(Number), page: 1, pageSize: 100 });
+    expect(body.designs.every((d: { topology: string }) => d.topology === 'buck')).toBe(true);
+    const names = body.designs.map((d: { name: string }) => d.name.toLowerCase());
+    expect(names).toEqual([...names].sort());
+  });
+
+  it('400 naming the parameter that does not fit', async () => {
+    const res = await clients.viewer.fetch('/api/designs?sort=colour&page=0');
+    expect(res.status).toBe(400);
+    const paths = (await res.json()).issues.map((i: { path: string }) => i.path);
+    expect(paths).toEqual(expect.arrayContaining(['sort', 'page']));
+  });
+});
+
 describe('POST /api/designs', () => {
   const body = { name: 'Sensor rail', description: 'made by a test', topology: 'buck' };
 

@@ -28,7 +28,7 @@ export function buildIfStale() {
   const buildId = path.join(ROOT, DIST, 'BUILD_ID');
   const built = fs.existsSync(buildId) ? fs.statSync(buildId).mtimeMs : 0;
   const newest = Math.max(...SOURCES.map(newestMtime));
-  if (built > newest && process.env.CI !== 'true') return;
+  if (built > newest && process.env.CI !== 'true') return precompressStatic();
   console.log('[app-server] building the app for tests (next build)…');
   const r = spawnSync('npx', ['next', 'build'], {
     cwd: ROOT,
@@ -37,6 +37,13 @@ export function buildIfStale() {
     encoding: 'utf8',
   });
   if (r.status !== 0) throw new Error(`next build failed:\n${r.stdout}\n${r.stderr}`);
+  precompressStatic();
+}
+
+/** The static files' .br/.gz, as `npm run build` writes them (scripts/precompress.mjs); skips done ones. */
+export function precompressStatic() {
+  const r = spawnSync(process.execPath, ['scripts/precompress.mjs'], { cwd: ROOT, env: { ...process.env, NEXT_DIST_DIR: DIST }, encoding: 'utf8' });
+  if (r.status !== 0) throw new Error(`precompress failed:\n${r.stdout}\n${r.stderr}`);
 }
 
 export function freePort(): Promise<number> {
@@ -57,7 +64,7 @@ export interface RunningApp {
   stop: () => Promise<void>;
 }
 
-/** Start `next start` on a fresh seeded database; resolves when it answers. */
+/** Start the production server (scripts/serve.mjs, as `npm start`) on a fresh seeded database; resolves when it answers. */
 export async function startApp(extraEnv: Record<string, string> = {}): Promise<RunningApp> {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'phasewright-test-'));
   const dbPath = path.join(dir, 'test.db');
@@ -72,9 +79,10 @@ export async function startApp(extraEnv: Record<string, string> = {}): Promise<R
     NEXTAUTH_SECRET: 'test-secret-not-for-production',
     SMTP_PORT: String(smtpPort),
     PORT: String(port),
+    HOST: '127.0.0.1',
     ...extraEnv,
   };
-  const child: ChildProcess = spawn(path.join(ROOT, 'node_modules/.bin/next'), ['start', '-p', String(port), '-H', '127.0.0.1'], {
+  const child: ChildProcess = spawn(process.execPath, ['scripts/serve.mjs'], {
     cwd: ROOT,
     env,
     stdio: ['ignore', 'pipe', 'pipe'],
@@ -85,14 +93,14 @@ export async function startApp(extraEnv: Record<string, string> = {}): Promise<R
   const baseUrl = `http://127.0.0.1:${port}`;
   const deadline = Date.now() + 60_000;
   for (;;) {
-    if (child.exitCode !== null) throw new Error(`next start exited early:\n${log}`);
+    if (child.exitCode !== null) throw new Error(`the server exited early:\n${log}`);
     try {
       const res = await fetch(`${baseUrl}/api/auth/csrf`);
       if (res.ok) break;
     } catch {
       /* not up yet */
     }
-    if (Date.now() > deadline) throw new Error(`next start did not answer within 60 s:\n${log}`);
+    if (Date.now() > deadline) throw new Error(`the server did not answer within 60 s:\n${log}`);
     await new Promise((r) => setTimeout(r, 250));
   }
   return {

@@ -14,7 +14,7 @@ export class Client {
     }
   }
 
-  private cookieHeader() {
+  cookieHeader() {
     return [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
   }
 

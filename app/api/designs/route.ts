@@ -1,12 +1,16 @@
 import { NextResponse } from 'next/server';
 import { getDb } from '@/db/client';
-import { createDesign, listDesigns } from '@/db/queries';
+import { createDesign, listDesignsPage } from '@/db/queries';
 import { can } from '@/lib/auth';
-import { parseJson, withUser } from '@/lib/api';
-import { designCreateSchema } from '@/lib/validation/design';
+import { HttpError, parseJson, withUser } from '@/lib/api';
+import { designCreateSchema, parseDesignListQuery } from '@/lib/validation/design';
+import { zodIssues } from '@/lib/validation/analyze';
 
-export const GET = withUser(async (_req, { user }) => {
-  return NextResponse.json({ designs: listDesigns(getDb(), user.teamId) });
+/** One page (100 rows) of the team's designs: ?q, topology, status, sort, dir, page. */
+export const GET = withUser(async (req, { user }) => {
+  const query = parseDesignListQuery(new URL(req.url).searchParams);
+  if (!query.success) throw new HttpError(400, 'The list parameters do not fit', zodIssues(query.error));
+  return NextResponse.json(listDesignsPage(getDb(), user.teamId, query.data));
 });
 
 export const POST = withUser(

@@ -1,0 +1,76 @@
+/**
+ * List section of `npm run bench`: the designs list's query (listDesignsPage, 100 rows) on a team
+ * of 10 and of 10,000 designs, for the default order, a sort by name and a text filter. The
+ * target is flatness: 10,000 designs within 3× the time of 10 (common practice for "flat" on a
+ * noisy machine; the text filter reads every row of the team and is shown, not held to it).
+ */
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { openDatabase } from '@/db/connection';
+import { createTeam, createUser, listDesignsPage } from '@/db/queries';
+import { designs, memberships } from '@/db/schema';
+import { readDesignListQuery, type DesignListQuery } from '@/lib/designs-list-query';
+
+export interface ListRow {
+  name: string;
+  smallUs: number;
+  largeUs: number;
+  held: boolean;
+}
+
+function teamOf(size: number) {
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'phasewright-bench-'));
+  const db = openDatabase(path.join(dir, 'bench.db'));
+  const team = createTeam(db, { name: 'Bench', slug: 'bench' }).id;
+  const owner = createUser(db, { email: 'bench@example.test', name: 'Bench Owner', password: 'long enough' }).id;
+  db.insert(memberships).values({ userId: owner, teamId: team, role: 'designer' }).run();
+  const topologies = ['buck', 'boost', 'buck-boost'] as const;
+  db.transaction((tx) => {
+    for (let i = 0; i < size; i++)
+      tx.insert(designs)
+        .values({ teamId: team, ownerId: owner, name: `Rail ${i}`, description: i % 7 ? '' : 'FPGA core', topology: topologies[i % 3], updatedAt: new Date(1e12 + i * 1000), latestRevision: i % 3 ? 1 : null, signoffState: i % 3 ? 'draft' : null })
+        .run();
+  });
+  return { db, team, cleanup: () => (db.$client.close(), fs.rmSync(dir, { recursive: true, force: true })) };
+}
+
+function timeUs(run: () => unknown, n = 200) {
+  for (let i = 0; i < 20; i++) run();
+  const times: number[] = [];
+  for (let i = 0; i < n; i++) {
+    const t0 = process.hrtime.bigint();
+    run();
+    times.push(Number(process.hrtime.bigint() - t0) / 1e3);
+  }
+  return times.sort((a, b) => a - b)[n >> 1];
+}
+
+export function listSection(): ListRow[] {
+  const small = teamOf(10);
+  const large = teamOf(10_000);
+  const cases: { name: string; query: DesignListQuery; held: boolean }[] = [
+    { name: 'page 1, newest first', query: readDesignListQuery({}), held: true },
+    { name: 'page 1, by name', query: readDesignListQuery({ sort: 'name' }), held: true },
+    { name: 'page 1, buck only, by sign-off state', query: readDesignListQuery({ topology: 'buck', sort: 'signoffState' }), held: true },
+    { name: 'text filter "fpga"', query: readDesignListQuery({ q: 'fpga' }), held: false },
+  ];
+  const rows = cases.map((c) => ({
+    name: c.name,
+    smallUs: timeUs(() => listDesignsPage(small.db, small.team, c.query)),
+    largeUs: timeUs(() => listDesignsPage(large.db, large.team, c.query)),
+    held: c.held,
+  }));
+  small.cleanup();
+  large.cleanup();
+  return rows;
+}
+
+export function printList(rows: ListRow[]) {
+  console.log('\nDesigns list query (listDesignsPage, 100 rows): median of 200 calls, a team of 10 vs 10,000 designs');
+  for (const r of rows) {
+    const ratio = r.largeUs / r.smallUs;
+    const verdict = r.held ? `target ≤ 3×: ${ratio <= 3 ? 'within target' : 'ABOVE target'}` : 'shown, no target (reads every row of the team)';
+    console.log(`- ${r.name}: ${r.smallUs.toFixed(0)} µs vs ${r.largeUs.toFixed(0)} µs (${ratio.toFixed(1)}×); ${verdict}`);
+  }
+}

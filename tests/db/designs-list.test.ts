@@ -1,0 +1,91 @@
+/**
+ * The designs list pages, filters and sorts in SQL: the mirrored latest revision and sign-off
+ * state follow saves and sign-off events, and every sort reads an index (no sort of the
+ * whole team per request).
+ */
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { sql } from 'drizzle-orm';
+import { createDesign, createRevision, createTeam, createUser, listDesignsPage, submitForReview } from '@/db/queries';
+import type { Db } from '@/db/connection';
+import { designs, memberships } from '@/db/schema';
+import { DESIGN_SORTS, designListQuerySchema, type DesignListQuery } from '@/lib/validation/design';
+import { sampleRevisionBody } from '../support/sample-revision';
+import { tempDb } from '../support/temp-db';
+
+let db: Db;
+let cleanup: () => void;
+let team: number;
+let other: number;
+let designer: number;
+let reviewer: number;
+const q = (over: Partial<DesignListQuery> = {}): DesignListQuery => ({ ...designListQuerySchema.parse({}), ...over });
+
+beforeEach(() => {
+  ({ db, cleanup } = tempDb());
+  team = createTeam(db, { name: 'T', slug: 't' }).id;
+  other = createTeam(db, { name: 'O', slug: 'o' }).id;
+  designer = createUser(db, { email: 'd@example.test', name: 'Dana Designer', password: 'long enough' }).id;
+  reviewer = createUser(db, { email: 'r@example.test', name: 'Remy Reviewer', password: 'long enough' }).id;
+  db.insert(memberships).values({ userId: designer, teamId: team, role: 'designer' }).run();
+  db.insert(memberships).values({ userId: reviewer, teamId: team, role: 'reviewer' }).run();
+  // 250 designs in the team, 5 in another team; updated_at spread so the order is known.
+  const topologies = ['buck', 'boost', 'buck-boost'] as const;
+  for (let i = 0; i < 250; i++)
+    db.insert(designs)
+      .values({ teamId: team, ownerId: designer, name: `Rail ${String(i).padStart(3, '0')}`, description: i % 10 === 0 ? 'for 100% load' : '', topology: topologies[i % 3], updatedAt: new Date(1e12 + i * 1000) })
+      .run();
+  for (let i = 0; i < 5; i++) createDesign(db, designer, other, { name: `Other ${i}`, topology: 'buck' });
+});
+afterEach(() => cleanup());
+
+describe('listDesignsPage', () => {
+  it('serves 100 rows a page, newest first, and clamps a page past the end', () => {
+    const p1 = listDesignsPage(db, team, q());
+    expect(p1).toMatchObject({ total: 250, page: 1, pageSize: 100 });
+    expect(p1.designs).toHaveLength(100);
+    expect(p1.designs[0].name).toBe('Rail 249');
+    const p3 = listDesignsPage(db, team, q({ page: 3 }));
+    expect(p3.designs).toHaveLength(50);
+    expect(p3.designs.at(-1)?.name).toBe('Rail 000');
+    expect(listDesignsPage(db, team, q({ page: 99 })).page).toBe(3);
+  });
+
+  it('filters by text (name, description, owner; % taken literally), topology and state', () => {
+    expect(listDesignsPage(db, team, q({ q: 'rail 12' })).total).toBe(10); // 120–129
+    expect(listDesignsPage(db, team, q({ q: '100%' })).total).toBe(25);
+    expect(listDesignsPage(db, team, q({ q: '%' })).total).toBe(25);
+    expect(listDesignsPage(db, team, q({ q: 'dana' })).total).toBe(250);
+    expect(listDesignsPage(db, team, q({ topology: 'boost' })).total).toBe(83);
+    expect(listDesignsPage(db, team, q({ status: 'unsaved' })).total).toBe(250);
+    expect(listDesignsPage(db, team, q({ status: 'draft' })).total).toBe(0);
+    expect(listDesignsPage(db, other, q()).total).toBe(5);
+  });
+
+  it('mirrors the latest revision and its sign-off state', () => {
+    const id = listDesignsPage(db, team, q({ q: 'Rail 007' })).designs[0].id;
+    const r1 = createRevision(db, { teamId: team, designId: id, baseNumber: null, ...sampleRevisionBody(), authorId: designer, note: '' });
+    expect(listDesignsPage(db, team, q({ status: 'draft' })).designs.map((d) => [d.id, d.latestRevision])).toEqual([[id, 1]]);
+    submitForReview(db, { teamId: team, designId: id, revisionId: r1.id, number: 1 }, { actorId: designer, reviewerId: reviewer, message: '' });
+    expect(listDesignsPage(db, team, q({ status: 'in-review' })).designs[0]).toMatchObject({ id, signoffState: 'in-review' });
+    createRevision(db, { teamId: team, designId: id, baseNumber: 1, ...sampleRevisionBody(), authorId: designer, note: '' });
+    expect(listDesignsPage(db, team, q({ status: 'draft' })).designs[0]).toMatchObject({ id, latestRevision: 2, signoffState: 'draft' });
+    expect(listDesignsPage(db, team, q({ sort: 'latestRevision', dir: 'desc' })).designs[0].id).toBe(id);
+  });
+
+  it('sorts by every column both ways, ties broken by id', () => {
+    expect(listDesignsPage(db, team, q({ sort: 'name', dir: 'asc' })).designs[0].name).toBe('Rail 000');
+    expect(listDesignsPage(db, team, q({ sort: 'name', dir: 'desc' })).designs[0].name).toBe('Rail 249');
+    const byTopology = listDesignsPage(db, team, q({ sort: 'topology', page: 3 })).designs;
+    expect(byTopology.at(-1)?.topology).toBe('buck-boost');
+  });
+
+  it.each(DESIGN_SORTS)('sorting by %s reads an index, not a temporary sort', (sort) => {
+    const column = { name: 'name COLLATE NOCASE', topology: 'topology', latestRevision: 'latest_revision', signoffState: 'signoff_state', updatedAt: 'updated_at' }[sort];
+    const plan = db
+      .all<{ detail: string }>(sql.raw(`EXPLAIN QUERY PLAN SELECT d.id FROM designs d JOIN users u ON u.id = d.owner_id WHERE d.team_id = 1 ORDER BY d.${column} DESC, d.id DESC LIMIT 100`))
+      .map((r) => r.detail)
+      .join('\n');
+    expect(plan).toMatch(/USING INDEX designs_team_/);
+    expect(plan).not.toMatch(/TEMP B-TREE/);
+  });
+});
