@@ -174,7 +174,8 @@ const isResistor = (p: PartKey) => p.startsWith('r');
 export function scaleImpedance(comp: CompensatorInput, k: number): CompensatorInput {
   const r = (v: number | undefined) => (v === undefined ? undefined : v * k);
   const c = (v: number | undefined) => (v === undefined ? undefined : v / k);
-  const out: CompensatorInput = { type: comp.type, r1: comp.r1 * k, c1: comp.c1 / k };
+  // The amplifier's own values (op-amp model) are not parts of the network and stay.
+  const out: CompensatorInput = { type: comp.type, r1: comp.r1 * k, c1: comp.c1 / k, ...(comp.amplifier ? { amplifier: comp.amplifier } : {}), ...(comp.opamp ? { opamp: comp.opamp } : {}) };
   if (comp.type !== 'type1') Object.assign(out, { r2: r(comp.r2), c2: c(comp.c2) });
   if (comp.type === 'type3') Object.assign(out, { r3: r(comp.r3), c3: c(comp.c3) });
   return out;
@@ -193,7 +194,9 @@ export function compensatorFromShape(shape: CompensatorShape, lock: PartLock | n
     if (err instanceof EngineInputError) return { ok: false, issues: err.issues };
     throw err;
   }
-  if (!lock || lock.part === 'r1' || !(lock.value > 0)) return { ok: true, comp };
+  // Around a gm amplifier the gain is gm·H·Zo: scaling the network's impedance would change
+  // it, so R1 (with gm and Rb) holds there.
+  if (!lock || lock.part === 'r1' || !(lock.value > 0) || comp.amplifier === 'transconductance') return { ok: true, comp };
   const now = comp[lock.part];
   if (now === undefined || !(now > 0)) return { ok: true, comp };
   const k = isResistor(lock.part) ? lock.value / now : now / lock.value;

@@ -4,7 +4,8 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { memo, useEffect, useRef } from 'react';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
-import type { AnalyzeRequest, FieldIssue } from '@/lib/engine/types';
+import type { AnalyzeRequest, FieldIssue, ModulatorInput, ModulatorMode } from '@/lib/engine/types';
+import { MODE_OPTIONS } from '@/lib/catalog';
 import { siText, toSiText } from './si-schema';
 import { TextField } from './text-field';
 
@@ -19,9 +20,11 @@ interface FieldSpec {
   bound?: 'positive' | 'nonNegative';
   /** Shown without a prefix (0.8 rather than 800m). */
   plain?: boolean;
+  /** Only in this modulator mode; absent means always. */
+  mode?: ModulatorMode;
 }
 
-type StageField = 'vin' | 'vout' | 'iout' | 'fsw' | 'l' | 'rl' | 'c' | 'rc' | 'vd' | 'vramp' | 'vref';
+type StageField = 'vin' | 'vout' | 'iout' | 'fsw' | 'l' | 'rl' | 'c' | 'rc' | 'vd' | 'vramp' | 'ri' | 'se' | 'vref';
 
 const FIELDS: readonly FieldSpec[] = [
   { name: 'vin', plain: true, label: 'Input voltage Vin', unit: 'V', path: 'converter.vin' },
@@ -33,7 +36,9 @@ const FIELDS: readonly FieldSpec[] = [
   { name: 'c', label: 'Output capacitance C', unit: 'F', path: 'converter.c' },
   { name: 'rc', label: 'Capacitor ESR', unit: 'Ω', path: 'converter.rc', bound: 'nonNegative' },
   { name: 'vd', plain: true, label: 'Diode drop Vd', unit: 'V', path: 'converter.vd', hint: '0 = synchronous', bound: 'nonNegative' },
-  { name: 'vramp', plain: true, label: 'PWM ramp Vramp', unit: 'V', path: 'modulator.vramp' },
+  { name: 'vramp', plain: true, label: 'PWM ramp Vramp', unit: 'V', path: 'modulator.vramp', mode: 'voltage' },
+  { name: 'ri', plain: true, label: 'Current-sense gain Ri', unit: 'V/A', path: 'modulator.ri', mode: 'peak-current' },
+  { name: 'se', label: 'External ramp Se', unit: 'V/s', path: 'modulator.se', hint: '0 = none', bound: 'nonNegative', mode: 'peak-current' },
   { name: 'vref', plain: true, label: 'Reference Vref', unit: 'V', path: 'feedback.vref' },
 ];
 
@@ -57,7 +62,10 @@ const numbersOf = (s: Stage): Record<StageField, number> => ({
   c: s.converter.c,
   rc: s.converter.rc ?? 0,
   vd: s.converter.vd ?? 0,
+  // The other mode's fields keep a starting value for when the designer switches to it.
   vramp: s.modulator.mode === 'peak-current' ? 1 : s.modulator.vramp,
+  ri: s.modulator.mode === 'peak-current' ? s.modulator.ri : 0.1,
+  se: s.modulator.mode === 'peak-current' ? s.modulator.se : 0,
   vref: s.feedback.vref,
 });
 
@@ -66,9 +74,13 @@ const toText = (s: Stage): StageText => {
   return Object.fromEntries(FIELDS.map((f) => [f.name, f.plain ? String(Number(n[f.name].toPrecision(6))) : toSiText(n[f.name], 6)])) as StageText;
 };
 
-const fromValues = (v: StageValues, topology: AnalyzeRequest['converter']['topology']): Stage => ({
+/** The modulator for a mode; a voltage-mode modulator stays without `mode`, as saved designs have it. */
+const modulatorOf = (v: StageValues, mode: ModulatorMode): ModulatorInput =>
+  mode === 'peak-current' ? { mode, ri: v.ri, se: v.se } : { vramp: v.vramp };
+
+const fromValues = (v: StageValues, topology: AnalyzeRequest['converter']['topology'], mode: ModulatorMode): Stage => ({
   converter: { topology, vin: v.vin, vout: v.vout, iout: v.iout, fsw: v.fsw, l: v.l, rl: v.rl, c: v.c, rc: v.rc, vd: v.vd },
-  modulator: { vramp: v.vramp },
+  modulator: modulatorOf(v, mode),
   feedback: { vref: v.vref },
 });
 
@@ -86,13 +98,15 @@ export interface StageFormProps {
   onValidityChange: (valid: boolean) => void;
 }
 
-/** Power stage, modulator and reference inputs; SI-prefix text, checked as typed. */
+/** Power stage, modulator (voltage or peak current mode) and reference inputs; SI-prefix text, checked as typed. */
 export const StageForm = memo(function StageForm({ value, readOnly, issues, onChange, onValidityChange }: StageFormProps) {
   const topology = value.converter.topology;
+  const mode: ModulatorMode = value.modulator.mode ?? 'voltage';
   const start = useRef({ text: toText(value), values: numbersOf(value) });
   const {
     register,
     watch,
+    getValues,
     formState: { errors },
   } = useForm<StageText, unknown, StageValues>({
     resolver: zodResolver(stageFormSchema),
@@ -106,14 +120,30 @@ export const StageForm = memo(function StageForm({ value, readOnly, issues, onCh
     const sub = watch((text) => {
       const r = stageFormSchema.safeParse(text);
       callbacks.current.onValidityChange(r.success);
-      if (r.success) callbacks.current.onChange(fromValues(keepUntouched(r.data, text, start.current.text, start.current.values), topology));
+      if (r.success) callbacks.current.onChange(fromValues(keepUntouched(r.data, text, start.current.text, start.current.values), topology, mode));
     });
     return () => sub.unsubscribe();
-  }, [watch, topology]);
+  }, [watch, topology, mode]);
+
+  const onModeChange = (next: ModulatorMode) => {
+    const text = getValues();
+    const r = stageFormSchema.safeParse(text);
+    if (r.success) callbacks.current.onChange(fromValues(keepUntouched(r.data, text, start.current.text, start.current.values), topology, next));
+  };
 
   return (
     <fieldset className="grid grid-cols-2 gap-x-3 gap-y-2" disabled={readOnly} aria-label="Power stage">
-      {FIELDS.map((f) => {
+      <label className="col-span-2 flex items-center gap-2 text-xs text-slate-600" htmlFor="stage-mode">
+        Modulator
+        <select id="stage-mode" data-testid="modulator-mode" className="input py-1 text-xs" value={mode} onChange={(e) => onModeChange(e.target.value as ModulatorMode)}>
+          {MODE_OPTIONS.map((o) => (
+            <option key={o.value} value={o.value}>
+              {o.label}
+            </option>
+          ))}
+        </select>
+      </label>
+      {FIELDS.filter((f) => f.mode === undefined || f.mode === mode).map((f) => {
         const engineError = issues.find((i) => i.path === f.path)?.message;
         return (
           <TextField

@@ -8,7 +8,7 @@ import { PlotFrame } from '@/components/plot/plot-frame';
 import { interpolateLogF } from '@/lib/engine/margins';
 import { TRACE_COLORS } from '@/lib/catalog/traces';
 import { formatSi } from '@/lib/units/si';
-import type { BodeData, Margins, SweepOptions, TransferSummary } from '@/lib/engine/types';
+import type { BodeData, Margins, ModulatorSummary, SweepOptions, TransferSummary } from '@/lib/engine/types';
 import { HANDLE_SIZE, HandleOverlay, placeHandles, type DragOffset, type HandleMove, type PlacedHandle } from './handle-overlay';
 import type { HandleSpec } from './handles';
 import { clipBenchToSweep } from './sweep-range';
@@ -26,6 +26,10 @@ interface Props {
   bode: BodeData;
   margins: Margins;
   plant: TransferSummary;
+  /** The modulator at the operating point: labels the current-mode double pole at fsw/2. */
+  modulator?: ModulatorSummary;
+  /** DCM low-frequency pole, Hz (null in CCM). */
+  dcmPoleHz?: number | null;
   handles: HandleSpec[];
   /** The sweep the curves were computed on; bench data outside it is not drawn. */
   sweep: SweepOptions;
@@ -58,7 +62,7 @@ const toSeries = (t: (typeof TRACES)[number], trace: { magDb: number[]; phaseDeg
 });
 
 /** The Tune Bode plot: trace toggles, power-stage features marked, compensator handles on top. */
-export function TunePlot({ bode, margins, plant, handles, sweep, onWidenSweep, holdRangesKey, dragging, readOnly, bench, rangeTraces, rangeToggle, ...events }: Props) {
+export function TunePlot({ bode, margins, plant, modulator, dcmPoleHz, handles, sweep, onWidenSweep, holdRangesKey, dragging, readOnly, bench, rangeTraces, rangeToggle, ...events }: Props) {
   const [shown, setShown] = useState<Record<TraceId, boolean>>({ loop: true, plant: true, compensator: true });
   const [benchShown, setBenchShown] = useState(true); // Bench data toggle
 
@@ -113,14 +117,22 @@ export function TunePlot({ bode, margins, plant, handles, sweep, onWidenSweep, h
     const at = (hz: number) => interpolateLogF(bode.f, markerCurve.magDb, hz);
     const inRange = (hz: number | null): hz is number => hz !== null && hz >= bode.f[0] && hz <= bode.f[bode.f.length - 1];
     const out: PlotMarker[] = [];
-    if (inRange(plant.resonanceHz))
+    // In peak current mode the plant's quadratic is the sampling pair at fsw/2 (Ridley), not the LC pair;
+    // in DCM the LC pair is gone and one low-frequency pole takes its place.
+    const sampling = modulator?.mode === 'peak-current' ? modulator.samplingPoleHz : null;
+    if (sampling !== null && sampling !== undefined) {
+      const hz = Math.min(sampling, bode.f[bode.f.length - 1]);
+      const qp = modulator?.mode === 'peak-current' && modulator.qp !== null ? `, Qp ${modulator.qp.toFixed(2)}` : '';
+      out.push({ id: 'fsw2', hz, magDb: at(hz), kind: 'pole', label: `Current-mode double pole fsw/2${qp}`, color: TRACE_COLORS.plant });
+    } else if (inRange(plant.resonanceHz))
       out.push({ id: 'lc', hz: plant.resonanceHz, magDb: at(plant.resonanceHz), kind: 'pole', label: 'LC resonance', color: TRACE_COLORS.plant });
+    if (inRange(dcmPoleHz ?? null)) out.push({ id: 'dcm', hz: dcmPoleHz!, magDb: at(dcmPoleHz!), kind: 'pole', label: 'DCM pole', color: TRACE_COLORS.plant });
     if (inRange(plant.esrZeroHz))
       out.push({ id: 'esr', hz: plant.esrZeroHz, magDb: at(plant.esrZeroHz), kind: 'zero', label: 'ESR zero', color: TRACE_COLORS.plant });
     if (inRange(plant.rhpZeroHz))
       out.push({ id: 'rhp', hz: plant.rhpZeroHz, magDb: at(plant.rhpZeroHz), kind: 'zero', label: 'RHP zero', color: TRACE_COLORS.rhp });
     return out;
-  }, [plant, bode.f, markerCurve]);
+  }, [plant, bode.f, markerCurve, modulator, dcmPoleHz]);
 
   const marks = useMemo(() => ({ ...margins, color: TRACE_COLORS.loop }), [margins]);
   // Bench points outside the sweep have no model curve beside them: they are not drawn.

@@ -19,11 +19,16 @@ import { PartsTable } from './parts-table';
 import { RevisionPicker } from './revision-picker';
 import { SaveBar } from './save-bar';
 import { StageForm } from './stage-form';
+import { AmplifierForm, type AmplifierValues } from './amplifier-form';
+import { dividerRb, partsFromShape } from '@/lib/engine/compensator';
+import { MODULATOR_MODE_LABELS } from '@/lib/catalog';
 import { StartingPointForm, type StartingPointRequest } from './starting-point-form';
 import { analyzeCompensator, analyzeCompensatorParts, prepareStage } from './tune-analysis';
 import { TunePlot } from './tune-plot';
 import { useBenchOverlay } from '@/lib/queries/bench';
 import { useLeaveGuard } from './use-leave-guard';
+import { TuneViewSwitch, type TuneView } from '@/components/time-domain/tune-view-switch';
+import { TimeDomainView } from '@/components/time-domain/time-domain-view';
 import { withRange, type MarginTargets, type OperatingRange } from '@/lib/engine/range';
 import { cornerTraces } from '@/components/range/corner-traces';
 import { CornerViewToggle, RangePanel } from '@/components/range/range-panel';
@@ -115,6 +120,7 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
   const [dragging, setDragging] = useState<string | null>(null);
   const [handleProblem, setHandleProblem] = useState<string | null>(null);
   const dragBase = useRef<CompensatorShape | null>(null);
+  const [view, setView] = useState<TuneView>('loop');
 
   const { converter, modulator, feedback, sweep } = input;
   const stage = useMemo(() => ({ converter, modulator, feedback, sweep }), [converter, modulator, feedback, sweep]);
@@ -122,6 +128,7 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
   // Stable callbacks keep the memoised stage form and parts table still while a handle is dragged.
   const onStageChange = useCallback((next: Pick<AnalyzeRequest, 'converter' | 'modulator' | 'feedback'>) => setInput((i) => ({ ...i, ...next })), [setInput]);
   const onSeriesChange = useCallback((options: PartsOptions) => setInput((i) => ({ ...i, parts: options })), [setInput]);
+  const onStepChange = useCallback((step: NonNullable<AnalyzeRequest['step']>) => setInput((i) => ({ ...i, step })), [setInput]);
   const loop = useMemo(() => (prepared.ok ? analyzeCompensator(prepared.value, input.compensator) : null), [prepared, input.compensator]);
   // Snapped parts and their margins may lag a frame behind a drag.
   const deferredComp = useDeferredValue(input.compensator);
@@ -255,7 +262,7 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
   const propose = (target: Omit<StartingPointRequest, 'type'> & { type: CompensatorType }): string | null => {
     if (!prepared.ok) return 'Fix the power stage first: the loop cannot be placed without it.';
     try {
-      const comp = proposeForPlant(prepared.value, { ...target, r1: input.compensator.r1 });
+      const comp = proposeForPlant(prepared.value, { ...target, r1: input.compensator.r1, fixed: shape.fixed });
       setHandleProblem(null);
       setInput((i) => ({ ...i, compensator: comp }));
       return null;
@@ -270,7 +277,8 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
     const fc = crossoverHz ?? targetFcHz;
     const pm = pmTarget ?? startPm.current ?? 60;
     try {
-      const placed = placeForType(prepared.value, { type, crossoverHz: fc, phaseMarginDeg: pm, r1: input.compensator.r1 });
+      if (type === 'type1' && input.compensator.amplifier === 'transconductance') return 'A transconductance amplifier is modelled for Type II and Type III: choose the op-amp first for Type I.';
+      const placed = placeForType(prepared.value, { type, crossoverHz: fc, phaseMarginDeg: pm, r1: input.compensator.r1, fixed: shape.fixed });
       setHandleProblem(null);
       setInput((i) => ({ ...i, compensator: placed.compensator }));
       return placed.note ?? `Placed for the same fc (${formatSi(fc, 'Hz')}) and PM target (${pm.toFixed(0)}°).`;
@@ -278,6 +286,23 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
       return firstMessage(err);
     }
   };
+
+  /** A new amplifier or new amplifier values: the placed poles and zeros stay, the parts follow. */
+  const onAmplifierChange = useCallback(
+    (values: AmplifierValues): string | null => {
+      if (values.amplifier === 'transconductance' && input.compensator.type === 'type1')
+        return 'A transconductance amplifier is modelled for Type II and Type III: choose one of them first.';
+      try {
+        const comp = partsFromShape({ ...shapeFromParts(input.compensator), fixed: values });
+        setHandleProblem(null);
+        setInput((i) => ({ ...i, compensator: comp }));
+        return null;
+      } catch (err) {
+        return firstMessage(err);
+      }
+    },
+    [input.compensator, setInput],
+  );
 
   const onSaved = (rev: SavedRevision, savedInput: AnalyzeRequest) => {
     setSaved({ json: compareJson(withRange(savedInput)), revision: rev.number });
@@ -379,13 +404,17 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
         </div>
       </div>
 
-      <div className="grid items-start gap-4 xl:grid-cols-[minmax(0,1fr)_22rem]">
+      <TuneViewSwitch view={view} onView={setView} />
+      {view === 'time' && <TimeDomainView input={input} bode={result?.bode ?? null} readOnly={readOnly} onStepChange={onStepChange} />}
+      <div className={`grid items-start gap-4 xl:grid-cols-[minmax(0,1fr)_22rem] ${view === 'loop' ? '' : 'hidden'}`}>
         <section className="card p-3" aria-label="Bode plot">
           {result && prepared.ok ? (
             <TunePlot
               bode={result.bode}
               margins={result.margins}
               plant={prepared.value.plant}
+              modulator={prepared.value.modulator}
+              dcmPoleHz={prepared.value.dcmPoleHz}
               handles={handles}
               sweep={sweepInUse}
               onWidenSweep={onWidenSweep}
@@ -444,7 +473,7 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
       </div>
 
       <div className="grid items-start gap-4 lg:grid-cols-2 xl:grid-cols-3">
-        <Card title="Power stage" aside={<span className="text-xs text-slate-500">{input.converter.topology}, voltage-mode</span>}>
+        <Card title="Power stage" aside={<span className="text-xs text-slate-500">{input.converter.topology}, {MODULATOR_MODE_LABELS[input.modulator.mode ?? 'voltage'].toLowerCase()}</span>}>
           <StageForm key={stageEpoch} value={stage} readOnly={readOnly} issues={stageIssues} onChange={onStageChange} onValidityChange={setStageValid} />
         </Card>
         <Card title="Compensator handles">
@@ -456,6 +485,15 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
             onStep={onStep}
             onTypeChange={onTypeChange}
           />
+          <div className="mt-4">
+            <AmplifierForm
+              key={`${stageEpoch}|${input.compensator.amplifier ?? 'opamp'}`}
+              compensator={input.compensator}
+              rbDefault={dividerRb(input.compensator.r1, input.feedback.vref, input.converter.vout)}
+              readOnly={readOnly}
+              onChange={onAmplifierChange}
+            />
+          </div>
           {!readOnly && (
             <details className="mt-4 rounded-md border border-slate-200 p-3" open={saved.revision === null}>
               <summary className="cursor-pointer text-sm font-semibold text-slate-800">Starting point</summary>
@@ -477,6 +515,7 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
               parts={parts}
               type={input.compensator.type}
               topology={input.converter.topology}
+              amplifier={input.compensator.amplifier}
               readOnly={readOnly}
               lock={lock?.part ?? 'r1'}
               onSeriesChange={onSeriesChange}

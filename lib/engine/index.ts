@@ -57,7 +57,7 @@ export type { ClosedLoopResponses } from './closed-loop';
 export { simulateLoopStep, stepMetrics } from './linear-loop';
 export type { LoopBlocks, LoopInput, LoopStepInput, LoopTimeResponse, StepMetrics } from './linear-loop';
 export { DEFAULT_STEP_BAND, isVoltageMode, simulateStepResponse, stageBeforeStep } from './step-response';
-export type { StepDefinition, StepKind, StepResponseResult } from './step-response';
+export type { StepKind, StepResponseResult } from './step-response';
 export { createSwitchingSim } from './switching';
 export type { CycleRecord, Sample, SwitchControl, SwitchingSetup, SwitchingSim } from './switching';
 export {

@@ -15,7 +15,7 @@
  * 0.5·f0 and f0), poles at the ESR zero (when below fsw/2) and at fsw/2, then the
  * integrator frequency scaled so |T(fc)| = 1. The target PM is not used by these rules.
  */
-import { compensatorTransfer, partsFromShape } from './compensator';
+import { compensatorTransfer, partsFromShape, shapeFromParts } from './compensator';
 import { marginsForCompensator, preparePlant, type PreparedPlant, type StageRequest } from './analyze';
 import { formatSi } from '@/lib/units/si';
 import { transferEvaluator } from './sweep';
@@ -34,6 +34,8 @@ export interface StartingPointTarget {
   type: CompensatorType;
   /** The fixed top resistor R1, Ω. */
   r1: number;
+  /** The amplifier's own values (amplifier, gm, ro, Rb, op-amp model), kept in the result. */
+  fixed?: CompensatorShape['fixed'];
 }
 
 export interface KFactorInput {
@@ -195,10 +197,14 @@ const plantAt = (prepared: PreparedPlant, hz: number) => {
 
 /** Pole-zero placement by the rules in the module header. */
 const poleZeroShape = (prepared: PreparedPlant, target: StartingPointTarget): CompensatorShape => {
-  const f0 = prepared.plant.resonanceHz ?? target.crossoverHz / 5;
+  // The plant's low-frequency landmark: the LC resonance in voltage mode (CCM); the load pole
+  // in current mode or DCM, where the LC pair has split (the quadratic there is the sampling
+  // pair at fsw/2, not a place for zeros).
+  const lcMode = prepared.modulator.mode === 'voltage' && prepared.operatingPoint.conduction === 'CCM';
+  const f0 = (lcMode ? prepared.plant.resonanceHz : (prepared.dcmPoleHz ?? prepared.plant.polesHz.find((f) => f > 0) ?? null)) ?? target.crossoverHz / 5;
   const half = prepared.converter.fsw / 2;
   const esr = prepared.plant.esrZeroHz;
-  const base = { type: target.type, r1: target.r1, integratorHz: 1 };
+  const base = { type: target.type, r1: target.r1, integratorHz: 1, ...(target.fixed ? { fixed: target.fixed } : {}) };
   if (target.type === 'type1') return { ...base, zerosHz: [], polesHz: [] };
   if (target.type === 'type2') {
     const fp = esr !== null && esr < half ? Math.max(esr, 2 * f0) : half;
@@ -222,7 +228,12 @@ export const proposeForPlant = (prepared: PreparedPlant, target: StartingPointTa
   if (target.method === 'k-factor') {
     const boostDeg = target.phaseMarginDeg - p.phaseDeg - 90;
     try {
-      return kFactorParts({ type: target.type, crossoverHz: fc, gain: 1 / p.mag, r1: target.r1, boostDeg }).compensator;
+      // A transconductance stage has the op-amp stage's shape with 1/R1 replaced by gm·H0.
+      const fixed = target.fixed;
+      const gmStage = fixed?.amplifier === 'transconductance' && fixed.gm !== undefined && fixed.rb !== undefined;
+      const r1 = gmStage ? (target.r1 + fixed.rb!) / (fixed.gm! * fixed.rb!) : target.r1;
+      const placed = kFactorParts({ type: target.type, crossoverHz: fc, gain: 1 / p.mag, r1, boostDeg }).compensator;
+      return fixed ? partsFromShape({ ...shapeFromParts(placed), r1: target.r1, fixed }) : placed;
     } catch (err) {
       if (!(err instanceof EngineInputError)) throw err;
       const reach = reachOf(prepared, target.type, fc, target.phaseMarginDeg);

@@ -11,21 +11,10 @@ import { marginsForCompensator, preparePlant, type PreparedPlant } from './analy
 import { loopBlocks } from './closed-loop';
 import { simulateLoopStep, stepMetrics } from './linear-loop';
 import { computeDuty, computeOperatingPoint, withLossDefaults } from './steady-state';
-import { EngineInputError, type AnalyzeRequest, type ConverterInput, type FieldIssue, type ModulatorInput } from './types';
+import { EngineInputError, type AnalyzeRequest, type ConverterInput, type FieldIssue, type ModulatorInput, type StepDefinition } from './types';
 
-export type StepKind = 'load' | 'line';
-
-export interface StepDefinition {
-  kind: StepKind;
-  /** Load current (A) or input voltage (V) before the step. */
-  from: number;
-  /** … and after it. */
-  to: number;
-  /** A/s or V/s; absent or null = ideal step. */
-  slew?: number | null;
-  /** Settling band relative to vout (0.01 = ±1 %). */
-  band?: number;
-}
+export type StepKind = StepDefinition['kind'];
+export type { StepDefinition };
 
 export const DEFAULT_STEP_BAND = 0.01;
 
@@ -54,6 +43,8 @@ export interface StepResponseResult {
 const STEP_POINTS = 1200;
 /** Output excursion above which a small-signal reading is doubtful (common practice). */
 const SMALL_SIGNAL_LIMIT = 0.1;
+/** Difference between the linearised and the true final duty above which the step is flagged (2 points of duty). */
+const DUTY_LINEARITY_LIMIT = 0.02;
 
 const stepIssues = (step: StepDefinition): FieldIssue[] => {
   const issues: FieldIssue[] = [];
@@ -85,7 +76,7 @@ export const isVoltageMode = (modulator: ModulatorInput): boolean => {
 const pct = (x: number) => `${(x * 100).toFixed(1)} %`;
 
 /** Reasons the stage after the step is outside the CCM averaged model. */
-const endStateReasons = (before: ConverterInput, step: StepDefinition): string[] => {
+const endStateReasons = (before: ConverterInput, step: StepDefinition, modelFinalDuty: number | null): string[] => {
   const after = step.kind === 'load' ? { ...before, iout: step.to } : { ...before, vin: step.to };
   const reasons: string[] = [];
   if (step.kind === 'load' && step.to === 0) {
@@ -93,7 +84,13 @@ const endStateReasons = (before: ConverterInput, step: StepDefinition): string[]
     return reasons;
   }
   try {
-    computeDuty(after);
+    const dAfter = computeDuty(after);
+    // The linearised loop settles at D + d̂; the stage after the step needs its own duty.
+    if (modelFinalDuty !== null && Math.abs(dAfter - modelFinalDuty) > DUTY_LINEARITY_LIMIT) {
+      reasons.push(
+        `the step moves the operating point too far for a linear model: after it the stage needs a duty of ${pct(dAfter)}, the linearised loop settles at ${pct(modelFinalDuty)}`,
+      );
+    }
     const op = computeOperatingPoint(after);
     if (op.conduction === 'DCM') {
       reasons.push(
@@ -127,11 +124,11 @@ export const simulateStepResponse = (request: AnalyzeRequest, step: StepDefiniti
   const rampS = slew ? Math.abs(amplitude) / slew : 0;
   const blocks = loopBlocks(prepared, request.compensator);
   const bandV = band * converter.vout;
-  // Window: the ramp plus 15 periods of fc; longer while the response has not settled.
-  let durationS = rampS + 15 / fc;
+  // Window: the ramp plus 6 periods of fc; longer while the response has not settled.
+  let durationS = rampS + 6 / fc;
   let sim = simulateLoopStep(blocks, { input: step.kind, amplitude, slewPerS: slew, durationS, points: STEP_POINTS });
   let metrics = stepMetrics(sim.t, sim.v, sim.vFinal, bandV);
-  for (let k = 0; k < 3 && (metrics.settlingTime === null || metrics.settlingTime > 0.7 * durationS); k++) {
+  for (let k = 0; k < 3 && (metrics.settlingTime === null || metrics.settlingTime > 0.6 * durationS); k++) {
     durationS *= 3;
     sim = simulateLoopStep(blocks, { input: step.kind, amplitude, slewPerS: slew, durationS, points: STEP_POINTS });
     metrics = stepMetrics(sim.t, sim.v, sim.vFinal, bandV);
@@ -147,7 +144,7 @@ export const simulateStepResponse = (request: AnalyzeRequest, step: StepDefiniti
     if (hi >= 1) outsideModel.push(`the duty cycle would reach ${pct(hi)}; it saturates at 100 %, so the real deviation is larger and the recovery slower than shown`);
     if (lo <= 0) outsideModel.push(`the duty cycle would fall to ${pct(lo)}; it stops at 0 %, so the real deviation is larger and the recovery slower than shown`);
   }
-  outsideModel.push(...endStateReasons(converter, step));
+  outsideModel.push(...endStateReasons(converter, step, duty ? duty[duty.length - 1] : null));
   if (Math.abs(metrics.peakDeviation) > SMALL_SIGNAL_LIMIT * converter.vout) {
     outsideModel.push(`the output moves by ${pct(Math.abs(metrics.peakDeviation) / converter.vout)} of vout; beyond about 10 % a small-signal result is only indicative (common practice)`);
   }

@@ -22,8 +22,8 @@ import { withLossDefaults } from './steady-state';
 import { wrapDeg } from './transfer';
 import { EngineInputError, type AnalyzeRequest, type ConverterInput } from './types';
 
-/** Most switching cycles one request may simulate (about a second of work). */
-export const MAX_SWITCHING_CYCLES = 20_000;
+/** Most switching cycles one request may simulate (a second or two of work on one core). */
+export const MAX_SWITCHING_CYCLES = 10_000;
 /** Fewest and most injection frequencies per check. */
 export const MAX_INJECTIONS = 8;
 /** Samples per switching period. */

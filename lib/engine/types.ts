@@ -122,6 +122,19 @@ export interface SweepOptions {
   points: number;
 }
 
+/** A load or line step for the step response and the switching check (stored with a revision). */
+export interface StepDefinition {
+  kind: 'load' | 'line';
+  /** Load current (A) or input voltage (V) before the step. */
+  from: number;
+  /** … and after it. */
+  to: number;
+  /** A/s or V/s; absent or null = ideal step. */
+  slew?: number | null;
+  /** Settling band relative to vout (0.01 = ±1 %). */
+  band?: number;
+}
+
 export interface AnalyzeRequest {
   converter: ConverterInput;
   modulator: ModulatorInput;
@@ -129,6 +142,8 @@ export interface AnalyzeRequest {
   compensator: CompensatorInput;
   parts?: PartsOptions;
   sweep?: SweepOptions;
+  /** The step the designer checks on Tune's closed-loop view; the analysis ignores it. */
+  step?: StepDefinition;
 }
 
 export interface OperatingPoint {

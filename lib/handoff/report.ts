@@ -1,7 +1,8 @@
 /**
  * The printable report of a revision: one self-contained HTML page (inline CSS and SVG, no
  * script, no external fetch) that the browser prints to PDF. It shows the inputs, the
- * operating point, the Bode plots, the margins, the parts, the Checks, the cautions, the
+ * operating point, the Bode plots, the margins, the step response and the switching check of
+ * the model, the parts, the Checks, the cautions, the
  * revision number, its sign-off state and the dates.
  */
 import { CAUTIONS } from '@/lib/cautions';
@@ -10,6 +11,7 @@ import type { AnalyzeRequest, AnalyzeResult, Margins } from '@/lib/engine/types'
 import { formatSi } from '@/lib/units/si';
 import { formatTolerance, PART_NAME, TOLERANCE_CONVENTION, schematicValue, type PartRow } from './parts-list';
 import { bodeSvg } from './svg-plot';
+import { timeDomainSections } from './report-time-domain';
 import { summarizeRange, worstCaseSentence, type RangeSummary } from '@/lib/range-summary';
 
 export interface ReportInput {
@@ -232,6 +234,7 @@ ${r.revision.note ? `<p><b>Revision note:</b> ${esc(r.revision.note)}</p>` : ''}
 <section><h2>Margins</h2>${margins}</section>
 <section data-section="range"><h2>Across the operating range</h2>${across}</section>
 <section class="plot"><h2>Bode plot</h2>${plot}</section>
+${timeDomainSections(input, result)}
 <section><h2>Parts</h2>${parts}</section>
 <section><h2>Checks</h2>${checks}</section>
 <section><h2>Cautions</h2>${cautions}</section>

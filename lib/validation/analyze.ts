@@ -101,6 +101,17 @@ export const sweepSchema = z
   })
   .refine((s) => s.fStop > s.fStart, { message: 'fStop must be above fStart', path: ['fStop'] });
 
+/** A load or line step (the closed-loop view's; saved with a revision, ignored by the analysis). */
+export const stepSchema = z.object({
+  kind: z.enum(['load', 'line'], { error: 'kind must be "load" or "line"' }),
+  from: finite('from'),
+  to: finite('to'),
+  slew: finite('slew').refine((v) => v > 0, 'slew must be above 0 (leave it out for an ideal step)').nullable().optional(),
+  band: finite('band')
+    .refine((v) => v > 0 && v < 0.5, 'band is relative to vout: above 0 and below 0.5 (0.01 = ±1 %)')
+    .optional(),
+});
+
 export const analyzeRequestSchema = z.object({
   converter: converterSchema,
   modulator: modulatorSchema,
@@ -108,6 +119,7 @@ export const analyzeRequestSchema = z.object({
   compensator: compensatorSchema,
   parts: partsOptionsSchema.optional(),
   sweep: sweepSchema.optional(),
+  step: stepSchema.optional(),
 });
 
 /**
@@ -164,5 +176,6 @@ const contractChecks: [
   SameKeys<P['compensator'], Req['compensator']>,
   SameKeys<P['parts'], Req['parts']>,
   SameKeys<P['sweep'], Req['sweep']>,
-] = [true, true, true, true, true, true, true, true];
+  SameKeys<P['step'], Req['step']>,
+] = [true, true, true, true, true, true, true, true, true];
 void contractChecks;

@@ -13,6 +13,7 @@
 import Complex from 'complex.js';
 import { describe, expect, it } from 'vitest';
 import { analyze, preparePlant } from '@/lib/engine/analyze';
+import { proposeForPlant } from '@/lib/engine/starting-point';
 import { compensatorImpedances, compensatorTransfer, partsFromShape, shapeFromParts, summarizeCompensator } from '@/lib/engine/compensator';
 import { peakCurrentParameters } from '@/lib/engine/control';
 import { computeOperatingPoint } from '@/lib/engine/steady-state';
@@ -319,5 +320,31 @@ describe('backward compatibility', () => {
     expect(a.margins).toEqual(b.margins);
     expect(a.modulator).toEqual({ mode: 'voltage', vramp: 1.5, gain: 1 / 1.5 });
     expect(a.compensator.amplifier).toBe('opamp');
+  });
+});
+
+describe('starting point follows the mode and the amplifier', () => {
+  const cmBoostGm: AnalyzeRequest = {
+    converter: { topology: 'boost', vin: 5, vout: 12, iout: 0.5, fsw: 400e3, l: 10e-6, rl: 0.03, c: 44e-6, rc: 0.005, vd: 0.4 },
+    modulator: { mode: 'peak-current', ri: 0.1, se: 3e4 },
+    feedback: { vref: 1.2 },
+    compensator: { type: 'type2', amplifier: 'transconductance', gm: 1e-3, ro: 2e6, rb: 40e3 / 9, r1: 40e3, r2: 10e3, c1: 10e-9, c2: 100e-12 },
+  };
+
+  it('K factor around a gm amplifier meets the target fc and PM (ro aside), keeping gm and Rb', () => {
+    const prepared = preparePlant(cmBoostGm);
+    const fixed = shapeFromParts(cmBoostGm.compensator).fixed;
+    const comp = proposeForPlant(prepared, { type: 'type2', crossoverHz: 8e3, phaseMarginDeg: 60, method: 'k-factor', r1: 40e3, fixed: { ...fixed, ro: undefined } });
+    expect(comp.amplifier).toBe('transconductance');
+    expect(comp.gm).toBe(1e-3);
+    const m = analyze({ ...cmBoostGm, compensator: comp }).margins;
+    expectRel(m.crossoverHz, 8e3, 0.01, 'fc');
+    expectAbs(m.phaseMarginDeg, 60, 0.5, 'PM');
+  });
+
+  it('pole-zero rules in current mode place the zero at the load pole, not at the sampling pair', () => {
+    const prepared = preparePlant(cmBoostGm);
+    const comp = proposeForPlant(prepared, { type: 'type2', crossoverHz: 8e3, phaseMarginDeg: 60, method: 'pole-zero', r1: 40e3, fixed: shapeFromParts(cmBoostGm.compensator).fixed });
+    expectRel(shapeFromParts(comp).zerosHz[0], prepared.plant.polesHz[0], 1e-9, 'zero at the load pole');
   });
 });

@@ -52,7 +52,16 @@ describe('printable report', () => {
 
   it('draws the Bode plots as inline SVG', () => {
     expect(html).toMatch(/<svg[^>]+role="img"/);
-    expect((html.match(/<polyline/g) ?? []).length).toBe(6); // loop, stage, compensator × 2 panels
+    // Bode: loop, stage, compensator × 2 panels; switching check: the model's loop × 2 panels.
+    expect((html.match(/<polyline/g) ?? []).length).toBe(8);
+  });
+
+  it('includes the step response and the switching check of the model', () => {
+    expect(html).toContain('<h2>Step response</h2>');
+    expect(html).toMatch(/Peak deviation<\/th><td>−\d/);
+    expect(html).toContain('aria-label="Step response: load 1.5 → 3 A');
+    expect(html).toContain('<h2>Switching check of the model</h2>');
+    expect((html.match(/<tr><td>[\d.]+ kHz<\/td><td>/g) ?? []).length).toBeGreaterThanOrEqual(5);
   });
 
   it('escapes names', () => {

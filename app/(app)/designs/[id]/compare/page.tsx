@@ -12,6 +12,8 @@ import { ComparePlot, type CompareLoop } from '@/components/review/compare-plot'
 import { DiffTable } from '@/components/review/diff-table';
 import { formatDate } from '@/components/review/format';
 import { MarginDeltas } from '@/components/review/margin-deltas';
+import { StepCompare } from '@/components/time-domain/step-compare';
+import { describeStep, stepOf, stepResponseOf } from '@/lib/step-summary';
 import { RangeCompare } from '@/components/range/range-compare';
 import { summarizeRange } from '@/lib/range-summary';
 
@@ -59,6 +61,10 @@ export default async function ComparePage({ params, searchParams }: Props) {
   const loopA = loopOf(labelA, side(a).input, side(a).summary);
   const loopB = loopOf(labelB, side(b).input, side(b).summary);
   const states = listSignoffStates(db, design.id);
+  // Both revisions answer the same step: B's own (or A's, or half to full load).
+  const step = side(b).input.step ?? stepOf(side(a).input);
+  const stepA = stepResponseOf(labelA, side(a).input, step);
+  const stepB = stepResponseOf(labelB, side(b).input, step);
   // Worst case across each revision's own operating range (corners and a fixed-seed spread).
   const rangeA = summarizeRange(side(a).input);
   const rangeB = summarizeRange(side(b).input);
@@ -111,6 +117,8 @@ export default async function ComparePage({ params, searchParams }: Props) {
       ) : (
         <p className="card p-4 text-sm text-rose-700">The loop of {loopA ? labelB : labelA} could not be computed from its saved input.</p>
       )}
+
+      {stepA && stepB && <StepCompare a={stepA} b={stepB} title={describeStep(step)} />}
 
       <DiffTable rows={rows} labelA={labelA} labelB={labelB} />
     </div>
