@@ -271,7 +271,7 @@ describe.runIf(run)('Tune', () => {
     await expect.poll(() => page.locator('#stage-vin').inputValue()).toBe(vin);
     await screenshot(page, 'tune-undo');
     await page.context().close();
-  });
+  }, 300_000); // six drags, four undo steps: slow on a loaded 2-core machine
 
   it('takes typed part values (SI prefixes) and holds a locked part while the handles move the others', async () => {
     const own = await savedDesign(designer, 'Browser parts rail');
