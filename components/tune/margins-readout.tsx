@@ -11,7 +11,8 @@ const TONE: Record<Tone, string> = {
 };
 
 // Common practice: PM ≥ 45° and GM ≥ 10 dB are comfortable; below 30° / 6 dB is a risk.
-const pmTone = (pm: number | null): Tone => (pm === null ? 'none' : pm < 30 ? 'risk' : pm < 45 ? 'caution' : 'good');
+// Judged on the value as shown (0.1°), as the Checks are.
+const pmTone = (pm: number | null): Tone => (pm === null ? 'none' : Math.round(pm * 10) / 10 < 30 ? 'risk' : Math.round(pm * 10) / 10 < 45 ? 'caution' : 'good');
 const gmTone = (gm: number | null): Tone => (gm === null ? 'none' : gm < 6 ? 'risk' : gm < 10 ? 'caution' : 'good');
 
 function Item({ label, value, tone = 'none', hint, testId }: { label: string; value: string; tone?: Tone; hint?: string; testId: string }) {

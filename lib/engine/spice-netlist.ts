@@ -25,6 +25,8 @@ export interface SpiceNetlistOptions {
   pointsPerDecade?: number;
   /** Gain of the ideal op-amp (VCVS), default 1e8. */
   opAmpGain?: number;
+  /** Lower divider resistor, Ω; defaults to the exact value for Vout (a built board uses a standard one). */
+  rb?: number;
 }
 
 /** A value as SPICE reads it (plain decimal or exponent form, 12 significant digits). */
@@ -44,7 +46,7 @@ export const buildSpiceNetlist = (req: AnalyzeRequest, options: SpiceNetlistOpti
   const inverted = cv.topology === 'buck-boost';
   const sign = inverted ? -1 : 1;
   const comp = req.compensator;
-  const rb = dividerRb(comp.r1, req.feedback.vref, cv.vout);
+  const rb = options.rb ?? dividerRb(comp.r1, req.feedback.vref, cv.vout);
   const fStart = options.fStart ?? req.sweep?.fStart ?? 10;
   const fStop = options.fStop ?? req.sweep?.fStop ?? cv.fsw / 2;
   const ppd = options.pointsPerDecade ?? 20;

@@ -16,6 +16,8 @@ export interface ReportInput {
   signoff: { state: string; at: Date | null; by: string | null };
   input: AnalyzeRequest;
   result: AnalyzeResult;
+  /** The loop with the standard part values (what will be built); defaults to the ideal one. */
+  builtBode?: AnalyzeResult['bode'];
   parts: PartRow[];
   teamName: string;
   generatedAt?: Date;
@@ -118,14 +120,15 @@ export function buildReportHtml(r: ReportInput): string {
 
   const cautions = `<ul class="cautions">${CAUTIONS.map((c) => `<li><b>${esc(c.title)}.</b> ${esc(c.text)}</li>`).join('')}</ul>`;
 
-  const plot = bodeSvg(result.bode, {
+  const plot = bodeSvg(r.builtBode ?? result.bode, {
     id: 'report-bode',
-    title: `Bode plot of ${title}`,
+    title: `Bode plot of ${title} with the standard part values`,
     parts: true,
     width: 700,
     panelHeight: 220,
-    crossoverHz: result.margins.crossoverHz,
+    crossoverHz: r.builtBode ? result.parts.snappedMargins.crossoverHz : result.margins.crossoverHz,
   });
+  const builtNote = `<p class="muted small" data-testid="report-built-note">Build with the standard values. The plot, the “Standard values” margins, the parts list and the SPICE netlist all use them; the ideal values are shown for reference only.</p>`;
 
   const signoffLine =
     r.signoff.at && r.signoff.state !== 'draft'
@@ -185,8 +188,8 @@ ${r.revision.note ? `<p><b>Revision note:</b> ${esc(r.revision.note)}</p>` : ''}
   <div><h2>Inputs</h2>${inputs}</div>
   <div><h2>Operating point</h2>${operating}</div>
 </section>
-<section><h2>Margins</h2>${margins}</section>
-<section class="plot"><h2>Bode plot</h2>${plot}</section>
+<section><h2>Margins</h2>${margins}${builtNote}</section>
+<section class="plot"><h2>Bode plot (standard values, as built)</h2>${plot}</section>
 <section><h2>Parts</h2>${parts}</section>
 <section><h2>Checks</h2>${checks}</section>
 <section><h2>Cautions</h2>${cautions}</section>

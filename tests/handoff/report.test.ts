@@ -53,6 +53,11 @@ describe('printable report', () => {
     expect(html).not.toContain('<5 V>');
   });
 
+  it('plots the loop as built (standard values) and says that every export uses them', () => {
+    expect(html).toContain('Bode plot (standard values, as built)');
+    expect(html).toMatch(/data-testid="report-built-note">Build with the standard values\./);
+  });
+
   it('says draft without a date for a draft', () => {
     const d = buildExport('report', ctx({ signoff: { state: 'draft', at: null, by: null } })).body;
     expect(d).toMatch(/data-testid="report-signoff">Draft</);

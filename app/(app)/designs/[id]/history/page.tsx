@@ -48,8 +48,10 @@ export default async function HistoryPage({ params, searchParams }: Props) {
   const latest = revisions[revisions.length - 1];
   const selected = revisions.find((x) => String(x.number) === r) ?? latest;
   const state = states.get(selected.number) ?? 'draft';
+  const events = listSignoffEvents(db, selected.id);
+  const waitingFor = state === 'in-review' ? (events.findLast((e) => e.state === 'in-review')?.reviewerName ?? null) : null;
   const timeline: TimelineItem[] = [
-    ...listSignoffEvents(db, selected.id).map((e) => ({
+    ...events.map((e) => ({
       kind: 'event' as const,
       id: e.id,
       at: e.createdAt.toISOString(),
@@ -79,6 +81,7 @@ export default async function HistoryPage({ params, searchParams }: Props) {
         timeline={timeline}
         reviewers={reviewers}
         may={{ submit: can.editDesigns(user.role), decide: can.review(user.role), remark: can.remark(user.role) }}
+        waitingFor={waitingFor}
         compareWith={selected.baseNumber ?? (selected.number > 1 ? selected.number - 1 : null)}
         decideBlockedReason={isAuthor ? `You wrote r${selected.number}, so someone else must approve it or request changes.` : null}
       />
