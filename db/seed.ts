@@ -46,7 +46,7 @@ export function seedDemo(db: Db) {
       const user = getUserByEmail(t, email)!;
       t.insert(memberships).values({ userId: user.id, teamId: lab.id, role }).onConflictDoNothing().run();
     }
-    const existing = new Set(listDesigns(t, team.id).map((d) => d.name));
+    const existing = new Set(listDesigns(t, team.id, { archived: 'all' }).map((d) => d.name));
     for (const demo of DEMO_DESIGNS) {
       if (existing.has(demo.name)) continue;
       const sample = SAMPLE_DESIGNS.find((s) => s.key === demo.sample);

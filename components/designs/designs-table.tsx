@@ -16,7 +16,7 @@ const COLUMNS: { key: SortKey; label: string }[] = [
   { key: 'updatedAt', label: 'Updated' },
 ];
 
-export function DesignsTable({ designs }: { designs: DesignListItem[] }) {
+export function DesignsTable({ designs, emptyText = 'No designs yet.' }: { designs: DesignListItem[]; emptyText?: string }) {
   const [filter, setFilter] = useState('');
   const [topology, setTopology] = useState<string>('all');
   const [sort, setSort] = useState<{ key: SortKey; dir: 1 | -1 }>({ key: 'updatedAt', dir: -1 });
@@ -78,6 +78,7 @@ export function DesignsTable({ designs }: { designs: DesignListItem[] }) {
                 <Link href={`/designs/${d.id}`} className="font-medium text-indigo-700 hover:underline">
                   {d.name}
                 </Link>
+                {d.archivedAt && <span className="ml-2 rounded bg-slate-200 px-1.5 py-0.5 text-xs text-slate-600">archived</span>}
                 {d.description && <div className="text-xs text-slate-500">{d.description}</div>}
               </td>
               <td>{topologyLabel(d.topology)}</td>
@@ -93,7 +94,7 @@ export function DesignsTable({ designs }: { designs: DesignListItem[] }) {
           {rows.length === 0 && (
             <tr>
               <td colSpan={5} className="py-10 text-center text-slate-500">
-                {designs.length === 0 ? 'No designs yet.' : 'No design matches the filter.'}
+                {designs.length === 0 ? emptyText : 'No design matches the filter.'}
               </td>
             </tr>
           )}

@@ -63,7 +63,7 @@ function Card({ title, children, className = '', aside }: { title: string; child
 
 export function TuneScreen({ designId, initialInput, savedInput, editFrom = null, shownRevision, latestRevision, mode, role, revisions }: TuneScreenProps) {
   const readOnly = mode !== 'edit';
-  const bench = useBenchOverlay(designId); // Bench data overlay (Handoff, issue 6)
+  const bench = useBenchOverlay(designId, shownRevision); // the shown revision's bench data (Handoff)
   const [input, setInput] = useState<AnalyzeRequest>(initialInput);
   const [saved, setSaved] = useState({ json: stableJson(savedInput ?? initialInput), revision: shownRevision });
   const [from, setFrom] = useState(editFrom);

@@ -29,3 +29,11 @@ export const designUpdateSchema = designCreateSchema
 
 export type DesignCreate = z.infer<typeof designCreateSchema>;
 export type DesignUpdate = z.infer<typeof designUpdateSchema>;
+
+/** Query of GET /api/designs: ?archived=active|archived|all (default active), ?waiting=me. */
+export const designListQuerySchema = z.object({
+  archived: z.enum(['active', 'archived', 'all'], { error: 'archived must be "active", "archived" or "all"' }).default('active'),
+  waiting: z.enum(['me'], { error: 'waiting must be "me"' }).optional(),
+});
+
+export type DesignListQuery = z.infer<typeof designListQuerySchema>;

@@ -2,11 +2,19 @@ import { NextResponse } from 'next/server';
 import { getDb } from '@/db/client';
 import { createDesign, listDesigns } from '@/db/queries';
 import { can } from '@/lib/auth';
-import { parseJson, withUser } from '@/lib/api';
-import { designCreateSchema } from '@/lib/validation/design';
+import { HttpError, parseJson, withUser } from '@/lib/api';
+import { zodIssues } from '@/lib/validation/analyze';
+import { designCreateSchema, designListQuerySchema } from '@/lib/validation/design';
 
-export const GET = withUser(async (_req, { user }) => {
-  return NextResponse.json({ designs: listDesigns(getDb(), user.teamId) });
+/** Designs of the team: ?archived=active (default) | archived | all, ?waiting=me (in review, asking me). */
+export const GET = withUser(async (req, { user }) => {
+  const q = designListQuerySchema.safeParse(Object.fromEntries(new URL(req.url).searchParams));
+  if (!q.success) throw new HttpError(400, 'The list filter is not understood', zodIssues(q.error));
+  const designs = listDesigns(getDb(), user.teamId, {
+    archived: q.data.archived,
+    waitingForUserId: q.data.waiting === 'me' ? user.id : undefined,
+  });
+  return NextResponse.json({ designs });
 });
 
 export const POST = withUser(

@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { listRevisions, listSignoffStates } from '@/db/queries';
+import { listRemarks, listRevisions, listSignoffStates } from '@/db/queries';
+import { can } from '@/lib/auth';
 import { loadDesignPage } from '@/lib/design-page';
 import { analyze } from '@/lib/engine/analyze';
 import type { AnalyzeRequest } from '@/lib/engine/types';
@@ -8,6 +9,7 @@ import { diffRevisions, marginDeltas, type RevisionSide } from '@/lib/revision-d
 import type { RevisionSummary } from '@/lib/revision-summary';
 import { SignoffBadge } from '@/components/designs/signoff-badge';
 import { ComparePicker } from '@/components/review/compare-picker';
+import { CompareRemarks, type CompareRemark } from '@/components/review/compare-remarks';
 import { ComparePlot, type CompareLoop } from '@/components/review/compare-plot';
 import { DiffTable } from '@/components/review/diff-table';
 import { formatDate } from '@/components/review/format';
@@ -28,7 +30,7 @@ function loopOf(label: string, input: AnalyzeRequest, summary: RevisionSummary):
 
 export default async function ComparePage({ params, searchParams }: Props) {
   const [{ id }, q] = await Promise.all([params, searchParams]);
-  const { db, design } = await loadDesignPage(id);
+  const { user, db, design } = await loadDesignPage(id);
 
   const revisions = listRevisions(db, design.id);
   if (revisions.length < 2)
@@ -57,6 +59,9 @@ export default async function ComparePage({ params, searchParams }: Props) {
   const loopA = loopOf(labelA, side(a).input, side(a).summary);
   const loopB = loopOf(labelB, side(b).input, side(b).summary);
   const states = listSignoffStates(db, design.id);
+  const remarks: CompareRemark[] = [a, ...(a.number === b.number ? [] : [b])]
+    .flatMap((r) => listRemarks(db, r.id).map((m) => ({ id: m.id, number: r.number, authorName: m.authorName, body: m.body, comparedWith: m.comparedWith, at: m.createdAt.toISOString() })))
+    .sort((x, y) => x.at.localeCompare(y.at) || x.id - y.id);
 
   return (
     <div className="space-y-4" data-testid="compare">
@@ -104,6 +109,8 @@ export default async function ComparePage({ params, searchParams }: Props) {
       ) : (
         <p className="card p-4 text-sm text-rose-700">The loop of {loopA ? labelB : labelA} could not be computed from its saved input.</p>
       )}
+
+      <CompareRemarks designId={design.id} a={a.number} b={b.number} remarks={remarks} canRemark={can.remark(user.role)} />
 
       <DiffTable rows={rows} labelA={labelA} labelB={labelB} />
     </div>

@@ -60,7 +60,13 @@ export default async function HistoryPage({ params, searchParams }: Props) {
       reviewerName: e.state === 'in-review' ? e.reviewerName : null,
       text: e.message,
     })),
-    ...listRemarks(db, selected.id).map((m) => ({ kind: 'remark' as const, id: m.id, at: m.createdAt.toISOString(), who: m.authorName, text: m.body })),
+    ...listRemarks(db, selected.id).map((m) => ({
+      kind: 'remark' as const,
+      id: m.id,
+      at: m.createdAt.toISOString(),
+      who: m.authorName,
+      text: m.comparedWith ? `(on Compare with r${m.comparedWith}) ${m.body}` : m.body,
+    })),
   ].sort((x, y) => x.at.localeCompare(y.at));
 
   const reviewers = listTeamMembers(db, user.teamId)

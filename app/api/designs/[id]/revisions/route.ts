@@ -5,7 +5,7 @@ import { analyze } from '@/lib/engine/analyze';
 import type { AnalyzeRequest } from '@/lib/engine/types';
 import { can } from '@/lib/auth';
 import { HttpError, parseJson, withUser } from '@/lib/api';
-import { requireDesign } from '@/lib/design-access';
+import { requireActiveDesign, requireDesign } from '@/lib/design-access';
 import { summarizeAnalysis } from '@/lib/revision-summary';
 import { revisionCreateSchema } from '@/lib/validation/revision';
 
@@ -19,7 +19,7 @@ export const GET = withUser<P>(async (_req, { user, params }) => {
 /** Save a new immutable revision; the server re-runs the analysis it stores. */
 export const POST = withUser<P>(
   async (req, { user, params }) => {
-    const design = requireDesign(user, params.id);
+    const design = requireActiveDesign(user, params.id);
     const body = await parseJson(req, revisionCreateSchema);
     const input = body.input as unknown as AnalyzeRequest;
     if (input.converter.topology !== design.topology)
