@@ -23,6 +23,8 @@ export const users = sqliteTable('users', {
   email: text('email').notNull().unique(),
   name: text('name').notNull(),
   passwordHash: text('password_hash').notNull(),
+  /** Bumped by sign-out, a password change and a removal from a team; a session token carrying an older version is refused. */
+  sessionVersion: integer('session_version').notNull().default(0),
   createdAt: createdAt(),
 });
 
@@ -30,6 +32,8 @@ export const teams = sqliteTable('teams', {
   id: integer('id').primaryKey({ autoIncrement: true }),
   name: text('name').notNull(),
   slug: text('slug').notNull().unique(),
+  /** Whether the team's admins may also review and decide sign-offs (lib/signoff-policy.ts). */
+  adminsMayReview: integer('admins_may_review', { mode: 'boolean' }).notNull().default(false),
   createdAt: createdAt(),
 });
 
@@ -176,9 +180,54 @@ export const auditLog = sqliteTable(
   (t) => [index('audit_log_team').on(t.teamId)],
 );
 
+/**
+ * An invitation to join a team, sent by e-mail whether or not the address has
+ * an account (so the admin never learns which); accepted by the addressee.
+ */
+export const invitations = sqliteTable(
+  'invitations',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    teamId: integer('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    email: text('email').notNull(),
+    role: text('role', { enum: ROLES }).notNull(),
+    /** SHA-256 of the token in the mailed link (the token itself is never stored). */
+    tokenHash: text('token_hash').notNull().unique(),
+    invitedBy: integer('invited_by')
+      .notNull()
+      .references(() => users.id),
+    expiresAt: integer('expires_at', { mode: 'timestamp_ms' }).notNull(),
+    acceptedAt: integer('accepted_at', { mode: 'timestamp_ms' }),
+    createdAt: createdAt(),
+  },
+  (t) => [index('invitations_team').on(t.teamId)],
+);
+
+/** Personal API tokens: `Authorization: Bearer <token>` acts as the user. Only a SHA-256 of the token is kept. */
+export const apiTokens = sqliteTable(
+  'api_tokens',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    userId: integer('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    name: text('name').notNull(),
+    tokenHash: text('token_hash').notNull().unique(),
+    /** The first characters of the token, to tell tokens apart on the settings page. */
+    prefix: text('prefix').notNull(),
+    lastUsedAt: integer('last_used_at', { mode: 'timestamp_ms' }),
+    createdAt: createdAt(),
+  },
+  (t) => [index('api_tokens_user').on(t.userId)],
+);
+
 /** Messages captured by the local fake SMTP server (demo and tests). */
 export const mailbox = sqliteTable('mailbox', {
   id: integer('id').primaryKey({ autoIncrement: true }),
+  /** The team the message is about (X-Phasewright-Team header), null when none. */
+  teamId: integer('team_id'),
   fromAddress: text('from_address').notNull(),
   toAddress: text('to_address').notNull(),
   subject: text('subject').notNull(),
@@ -221,3 +270,5 @@ export type Remark = typeof remarks.$inferSelect;
 export type BenchData = typeof benchData.$inferSelect;
 export type AuditEntry = typeof auditLog.$inferSelect;
 export type MailMessage = typeof mailbox.$inferSelect;
+export type Invitation = typeof invitations.$inferSelect;
+export type ApiToken = typeof apiTokens.$inferSelect;

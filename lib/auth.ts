@@ -2,9 +2,10 @@ import 'server-only';
 import { cookies } from 'next/headers';
 import { redirect } from 'next/navigation';
 import { getServerSession, type NextAuthOptions } from 'next-auth';
+import { decode } from 'next-auth/jwt';
 import CredentialsProvider from 'next-auth/providers/credentials';
 import { getDb } from '@/db/client';
-import { listTeamsForUser, verifyCredentials } from '@/db/queries';
+import { getSessionUser, listTeamsForUser, verifyCredentials } from '@/db/queries';
 import type { Role } from '@/db/schema';
 import { getAuthSecret } from './auth-secret';
 
@@ -78,26 +79,82 @@ export interface CurrentUser {
   teams: { teamId: number; teamName: string; role: Role }[];
 }
 
+// next-auth's cookie name; the __Secure- prefix is used when the app is served over https.
+const SESSION_COOKIES = ['__Secure-next-auth.session-token', 'next-auth.session-token'];
+
+/** The raw session token, joined when next-auth split a large one into `.0`, `.1`, … chunks. */
+async function readSessionToken(): Promise<string | null> {
+  let jar;
+  try {
+    jar = await cookies();
+  } catch {
+    return null; // outside a request scope
+  }
+  for (const name of SESSION_COOKIES) {
+    const whole = jar.get(name)?.value;
+    if (whole) return whole;
+    const chunks: string[] = [];
+    for (let i = 0; ; i++) {
+      const part = jar.get(`${name}.${i}`)?.value;
+      if (!part) break;
+      chunks.push(part);
+    }
+    if (chunks.length) return chunks.join('');
+  }
+  return null;
+}
+
+/**
+ * Decrypted session tokens, keyed by the token itself. Decrypting (key derivation + AES-GCM)
+ * is most of the cost of a session check; a token's content never changes, so its payload is
+ * kept until it expires (at most a few minutes, a bounded number of entries). What may change
+ * — membership, role, the user's name — is read from the database on every request.
+ */
+const TOKEN_CACHE_MS = 5 * 60_000;
+const TOKEN_CACHE_MAX = 1000;
+const tokenCache = new Map<string, { userId: number; keepUntilMs: number }>();
+
+async function userIdFromToken(token: string): Promise<number | null> {
+  const now = Date.now();
+  const hit = tokenCache.get(token);
+  if (hit && hit.keepUntilMs > now) return hit.userId;
+  if (hit) tokenCache.delete(token);
+  let payload;
+  try {
+    payload = await decode({ token, secret: authOptions.secret ?? getAuthSecret() });
+  } catch {
+    return null; // tampered, signed with another secret, or expired
+  }
+  const userId = Number(payload?.userId);
+  const expMs = typeof payload?.exp === 'number' ? payload.exp * 1000 : now;
+  if (!Number.isInteger(userId) || userId <= 0 || expMs <= now) return null;
+  if (tokenCache.size >= TOKEN_CACHE_MAX) tokenCache.clear();
+  tokenCache.set(token, { userId, keepUntilMs: Math.min(expMs, now + TOKEN_CACHE_MS) });
+  return userId;
+}
+
 /**
  * The signed-in user with the current team (cookie `pw-team`, else their
  * first team) and their role in it; null without a session or without any team.
+ * Costs one indexed query per request (user + memberships); the token's decryption is cached.
  */
 export async function getCurrentUser(): Promise<CurrentUser | null> {
-  const session = await getSession();
-  const id = session?.user?.id;
-  if (!id) return null;
-  const teams = listTeamsForUser(getDb(), id);
-  if (teams.length === 0) return null;
+  const token = await readSessionToken();
+  if (!token) return null;
+  const id = await userIdFromToken(token);
+  if (id === null) return null;
+  const found = getSessionUser(getDb(), id);
+  if (!found || found.teams.length === 0) return null;
   const wanted = await readTeamCookie();
-  const current = teams.find((t) => t.teamId === wanted) ?? teams[0];
+  const current = found.teams.find((t) => t.teamId === wanted) ?? found.teams[0];
   return {
     id,
-    email: session.user.email ?? '',
-    name: session.user.name ?? '',
+    email: found.email,
+    name: found.name,
     teamId: current.teamId,
     teamName: current.teamName,
     role: current.role,
-    teams: teams.map((t) => ({ teamId: t.teamId, teamName: t.teamName, role: t.role })),
+    teams: found.teams.map((t) => ({ teamId: t.teamId, teamName: t.teamName, role: t.role })),
   };
 }
 

@@ -50,8 +50,11 @@ export function startFakeSmtp(opts: FakeSmtpOptions): Promise<FakeSmtp> {
           const parsed = parseMail(raw);
           const from = session.envelope.mailFrom ? session.envelope.mailFrom.address : parsed.from;
           const db = dbFor();
+          const teamHeader = Number(parsed.headers.get('x-phasewright-team'));
+          const teamId = Number.isInteger(teamHeader) && teamHeader > 0 ? teamHeader : null;
           for (const rcpt of session.envelope.rcptTo) {
             storeMail(db, {
+              teamId,
               fromAddress: from.toLowerCase(),
               toAddress: rcpt.address.toLowerCase(),
               subject: parsed.subject,

@@ -16,6 +16,8 @@ export interface OutgoingMail {
   /** A quoted message from a person (shown set apart). */
   quote?: string;
   link?: { label: string; url: string };
+  /** The team the message is about; sent as X-Phasewright-Team so the demo mailbox can show each team its own mail. */
+  teamId?: number;
 }
 
 export const MAIL_FROM = process.env.MAIL_FROM ?? 'Phasewright <noreply@phasewright.local>';
@@ -73,7 +75,13 @@ export async function sendMail(m: OutgoingMail): Promise<{ sent: boolean; error?
     return { sent: false, error: 'SMTP_PORT is not a port number' };
   }
   try {
-    await t.sendMail({ from: MAIL_FROM, to: m.to, subject: m.subject, ...renderMail(m) });
+    await t.sendMail({
+      from: MAIL_FROM,
+      to: m.to,
+      subject: m.subject,
+      ...renderMail(m),
+      ...(m.teamId ? { headers: { 'X-Phasewright-Team': String(m.teamId) } } : {}),
+    });
     return { sent: true };
   } catch (err) {
     const error = err instanceof Error ? err.message : String(err);
@@ -83,18 +91,12 @@ export async function sendMail(m: OutgoingMail): Promise<{ sent: boolean; error?
 }
 
 /**
- * The app's public origin for links in mail: NEXTAUTH_URL when set, else the
- * origin of the request being served (forwarded headers first), else localhost.
+ * The app's public origin for links in mail: PHASEWRIGHT_PUBLIC_URL, else
+ * NEXTAUTH_URL, else http://localhost:PORT. Never a request header: a crafted
+ * Host or X-Forwarded-Host must not put another site's address in a mail.
  */
 export async function appBaseUrl(): Promise<string> {
-  if (process.env.NEXTAUTH_URL) return process.env.NEXTAUTH_URL.replace(/\/+$/, '');
-  try {
-    const { headers } = await import('next/headers');
-    const h = await headers();
-    const host = h.get('x-forwarded-host') ?? h.get('host');
-    if (host) return `${h.get('x-forwarded-proto') ?? 'http'}://${host}`;
-  } catch {
-    /* outside a request */
-  }
+  const configured = process.env.PHASEWRIGHT_PUBLIC_URL || process.env.NEXTAUTH_URL;
+  if (configured) return configured.replace(/\/+$/, '');
   return `http://localhost:${process.env.PORT ?? 3000}`;
 }

@@ -22,11 +22,13 @@ const label = (r: RevisionMailRef) => `${r.designName} r${r.number}`;
 export async function notifyReviewRequested(m: {
   to: { email: string; name: string };
   by: string;
+  teamId: number;
   revision: RevisionMailRef;
   message: string;
 }) {
   return sendMail({
     to: m.to.email,
+    teamId: m.teamId,
     subject: `Review requested: ${label(m.revision)}`,
     paragraphs: [`Hello ${m.to.name},`, `${m.by} asks you to review ${label(m.revision)} and sign it off.`],
     quote: m.message || undefined,
@@ -37,6 +39,7 @@ export async function notifyReviewRequested(m: {
 export async function notifyDecision(m: {
   to: { email: string; name: string };
   by: string;
+  teamId: number;
   revision: RevisionMailRef;
   decision: 'approve' | 'request-changes';
   message: string;
@@ -44,6 +47,7 @@ export async function notifyDecision(m: {
   const approved = m.decision === 'approve';
   return sendMail({
     to: m.to.email,
+    teamId: m.teamId,
     subject: `${approved ? 'Approved' : 'Changes requested'}: ${label(m.revision)}`,
     paragraphs: [
       `Hello ${m.to.name},`,
@@ -56,9 +60,10 @@ export async function notifyDecision(m: {
   });
 }
 
-export async function notifyAddedToTeam(m: { to: string; name: string; teamName: string; role: string; by: string }) {
+export async function notifyAddedToTeam(m: { to: string; name: string; teamId: number; teamName: string; role: string; by: string }) {
   return sendMail({
     to: m.to,
+    teamId: m.teamId,
     subject: `You were added to ${m.teamName} on Phasewright`,
     paragraphs: [`Hello ${m.name},`, `${m.by} added you to the team ${m.teamName} as ${m.role}.`],
     link: { label: 'Open Phasewright', url: `${await appBaseUrl()}/designs` },

@@ -21,7 +21,7 @@ export default async function AppLayout({ children }: { children: React.ReactNod
             <NavLink href="/designs">Designs</NavLink>
             <NavLink href="/cautions">Limits and cautions</NavLink>
             {user.role === 'admin' && <NavLink href="/admin">Team</NavLink>}
-            {user.role === 'admin' && demo && <NavLink href="/mailbox">Mailbox</NavLink>}
+            {demo && <NavLink href="/mailbox">Mailbox</NavLink>}
           </nav>
           <div className="ml-auto flex items-center gap-3">
             <TeamSwitcher current={user.teamId} teams={user.teams} />

@@ -24,9 +24,12 @@ export interface SignoffPanelProps {
   authorName: string;
   timeline: TimelineItem[];
   reviewers: { id: number; name: string; role: string }[];
-  /** What the signed-in user may do here (decided on the server; the routes check again). */
+  /**
+   * What the signed-in user may do here, now: the answers of lib/signoff-policy.ts
+   * (checkSubmit / checkDecide, state included) computed on the server; the routes ask it again.
+   */
   may: { submit: boolean; decide: boolean; remark: boolean };
-  /** Why deciding is not offered to a reviewer (e.g. they wrote the revision). */
+  /** Why deciding is not offered to a reviewer (they wrote it, submitted it, or it was sent to someone else). */
   decideBlockedReason?: string | null;
   /** Compare with the revision this one was based on, when there is one. */
   compareWith?: number | null;
@@ -44,6 +47,7 @@ export function SignoffPanel(p: SignoffPanelProps) {
   const router = useRouter();
   const [pending, startTransition] = useTransition();
   const [error, setError] = useState<{ field: string; message: string } | null>(null);
+  // '' = nobody named: any reviewer of the team may decide.
   const [reviewerId, setReviewerId] = useState<number | ''>(p.reviewers[0]?.id ?? '');
   const [submitMessage, setSubmitMessage] = useState('');
   const [decisionMessage, setDecisionMessage] = useState('');
@@ -62,8 +66,8 @@ export function SignoffPanel(p: SignoffPanelProps) {
       router.refresh();
     });
 
-  const canSubmitNow = p.may.submit && (p.state === 'draft' || p.state === 'changes-requested');
-  const canDecideNow = p.may.decide && p.state === 'in-review' && !p.decideBlockedReason;
+  const canSubmitNow = p.may.submit;
+  const canDecideNow = p.may.decide;
 
   return (
     <section className="card" aria-labelledby="signoff-heading" data-testid="signoff-panel">
@@ -88,7 +92,7 @@ export function SignoffPanel(p: SignoffPanelProps) {
               aria-label="Submit for review"
               onSubmit={(e) => {
                 e.preventDefault();
-                send('submit', { reviewerId: Number(reviewerId), message: submitMessage }, () => setSubmitMessage(''));
+                send('submit', { reviewerId: reviewerId === '' ? null : Number(reviewerId), message: submitMessage }, () => setSubmitMessage(''));
               }}
             >
               <h3 className="text-sm font-semibold">{p.state === 'changes-requested' ? 'Submit again for review' : 'Submit for review'}</h3>
@@ -103,8 +107,9 @@ export function SignoffPanel(p: SignoffPanelProps) {
                     id="reviewer"
                     className={`input ${error?.field === 'reviewerId' ? 'input-error' : ''}`}
                     value={reviewerId}
-                    onChange={(e) => setReviewerId(Number(e.target.value))}
+                    onChange={(e) => setReviewerId(e.target.value === '' ? '' : Number(e.target.value))}
                   >
+                    <option value="">Any reviewer of the team</option>
                     {p.reviewers.map((r) => (
                       <option key={r.id} value={r.id}>
                         {r.name} ({r.role})
@@ -121,7 +126,7 @@ export function SignoffPanel(p: SignoffPanelProps) {
                     value={submitMessage}
                     onChange={(e) => setSubmitMessage(e.target.value)}
                   />
-                  <button type="submit" className="btn-primary" disabled={pending || !reviewerId}>
+                  <button type="submit" className="btn-primary" disabled={pending}>
                     Submit r{p.number} for review
                   </button>
                 </>
@@ -129,7 +134,7 @@ export function SignoffPanel(p: SignoffPanelProps) {
             </form>
           )}
 
-          {p.state === 'in-review' && p.may.decide && p.decideBlockedReason && (
+          {p.decideBlockedReason && (
             <p className="rounded-md bg-slate-50 px-3 py-2 text-sm text-slate-600">{p.decideBlockedReason}</p>
           )}
 
@@ -172,7 +177,7 @@ export function SignoffPanel(p: SignoffPanelProps) {
             </p>
           )}
 
-          {!canSubmitNow && !canDecideNow && p.state !== 'in-review' && (
+          {!canSubmitNow && !canDecideNow && !p.decideBlockedReason && p.state !== 'in-review' && (
             <p className="text-sm text-slate-500">{idleText(p)}</p>
           )}
 

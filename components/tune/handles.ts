@@ -1,11 +1,22 @@
 /**
- * Handles of the compensator: its zeros (○), poles (✕) and a mid-band gain
- * handle, as seen through the engine's CompensatorShape (R1 held fixed).
- * Moving a zero or pole changes its frequency; moving the gain scales the
- * integrator frequency, which lifts the whole compensator curve.
+ * Handles of the compensator: its zeros (○), poles (✕) and a gain handle, as seen
+ * through the engine's CompensatorShape.
+ *
+ * They behave as the straight-line (asymptotic) Bode plot teaches: the integrator
+ * ωi/s sets the low-frequency curve, and each zero or pole bends the curve from its
+ * own frequency upwards. So moving a zero or pole holds the integrator and changes
+ * the curve on its far (high-frequency) side only; a pole moved down lowers the gain
+ * above it, a zero moved down raises it. The gain handle scales the integrator, which
+ * lifts or lowers the whole curve; it sits on the compensator curve at its own
+ * frequency and reads |Gc| there.
+ *
+ * Which part holds its value when a handle moves is the lock (R1 by default): the
+ * poles and zeros fix every time constant, and the remaining freedom, the impedance
+ * level (R × k, C ÷ k), is set by the locked part.
  */
-import { partsFromShape, shapeFromParts, summarizeCompensator } from '@/lib/engine/compensator';
-import { EngineInputError, type CompensatorInput, type CompensatorShape, type FieldIssue } from '@/lib/engine/types';
+import { compensatorTransfer, partsFromShape, shapeFromParts } from '@/lib/engine/compensator';
+import { transferEvaluator } from '@/lib/engine/sweep';
+import { EngineInputError, type CompensatorInput, type CompensatorShape, type CompensatorType, type FieldIssue } from '@/lib/engine/types';
 
 export type HandleKind = 'zero' | 'pole' | 'gain';
 
@@ -14,7 +25,7 @@ export interface HandleSpec {
   kind: HandleKind;
   /** Frequency the handle sits at, Hz. */
   hz: number;
-  /** Short label: "Zero 1", "Pole 2", "Gain". */
+  /** Short label: "Zero 1", "Pole 2", "Gain at 12 kHz". */
   label: string;
   /** The parts this handle sets. */
   parts: string;
@@ -27,17 +38,29 @@ function poleZeroParts(shape: CompensatorShape): { zeros: string[]; poles: strin
   return { zeros: ['R2·C1', '(R1+R3)·C3'], poles };
 }
 
-/** Where the gain handle sits: mid-way (in log f) between the highest zero and the first pole above it. */
-export function gainHandleHz(shape: CompensatorShape, crossoverHz: number | null): number {
+/**
+ * Where the gain handle sits: mid-way (in log f) between the highest zero and the first
+ * pole above it; three times the zero without such a pole; for Type I (no zero or pole)
+ * at `anchorHz`, a frequency the caller keeps still while the gain changes (e.g. the LC
+ * resonance), so the handle moves only up and down.
+ */
+export function gainHandleHz(shape: CompensatorShape, anchorHz: number | null): number {
   const zTop = shape.zerosHz.length ? Math.max(...shape.zerosHz) : null;
   const above = shape.polesHz.filter((p) => zTop === null || p > zTop);
   const pLow = above.length ? Math.min(...above) : null;
   if (zTop !== null && pLow !== null) return Math.sqrt(zTop * pLow);
   if (zTop !== null) return zTop * 3;
-  return crossoverHz ?? shape.integratorHz;
+  return anchorHz ?? shape.integratorHz;
 }
 
-export function handlesOf(shape: CompensatorShape, crossoverHz: number | null): HandleSpec[] {
+/** |Gc(j2πf)| of a shape, dB (exact, not asymptotic); null when the shape cannot be built. */
+export function compensatorGainDbAt(shape: CompensatorShape, hz: number): number | null {
+  const r = compensatorFromShape(shape);
+  if (!r.ok) return null;
+  return transferEvaluator(compensatorTransfer(r.comp), hz)(hz).magDb;
+}
+
+export function handlesOf(shape: CompensatorShape, anchorHz: number | null): HandleSpec[] {
   const names = poleZeroParts(shape);
   const many = (n: number) => n > 1;
   const out: HandleSpec[] = [
@@ -56,48 +79,118 @@ export function handlesOf(shape: CompensatorShape, crossoverHz: number | null): 
       parts: names.poles[i] ?? '',
     })),
   ];
-  out.push({ id: 'gain', kind: 'gain', hz: gainHandleHz(shape, crossoverHz), label: 'Gain', parts: 'integrator (R1·(C1+C2))' });
+  out.push({ id: 'gain', kind: 'gain', hz: gainHandleHz(shape, anchorHz), label: 'Gain', parts: 'integrator, R1·(C1+C2)' });
   return out;
 }
 
-/** The shape with its mid-band gain changed by `deltaDb` (integrator frequency scaled; Gc is proportional to it). */
+/** The shape with its whole curve moved by `deltaDb` (integrator frequency scaled; Gc is proportional to it). */
 export function shiftGain(shape: CompensatorShape, deltaDb: number): CompensatorShape {
   return { ...shape, integratorHz: shape.integratorHz * 10 ** (deltaDb / 20) };
 }
 
-const midbandDb = (shape: CompensatorShape): number | null => {
-  try {
-    return summarizeCompensator(partsFromShape(shape)).midbandGainDb;
-  } catch {
-    return null;
-  }
-};
+/** The shape with |Gc| at `hz` set to `gainDb` (integrator scaled; null when the shape cannot be built). */
+export function setGainAt(shape: CompensatorShape, hz: number, gainDb: number): CompensatorShape | null {
+  const now = compensatorGainDbAt(shape, hz);
+  return now === null ? null : shiftGain(shape, gainDb - now);
+}
 
 /**
- * The shape with one zero or pole moved to `hz`, the mid-band gain held: moving
- * a zero reshapes the phase without lifting the flat part of the curve (and so
- * without shifting the crossover much).
+ * The shape with one zero or pole moved to `hz`, the integrator held: the curve below the
+ * lower of the old and new frequency stays (asymptotically) where it was, the curve above
+ * both moves by the ratio of the two (down for a pole moved down, up for a zero moved down).
  */
 export function moveFrequency(shape: CompensatorShape, id: string, hz: number): CompensatorShape {
   const i = Number(id.slice(1));
-  const moved = id.startsWith('z')
-    ? { ...shape, zerosHz: shape.zerosHz.map((v, k) => (k === i ? hz : v)) }
-    : id.startsWith('p')
-      ? { ...shape, polesHz: shape.polesHz.map((v, k) => (k === i ? hz : v)) }
-      : shape;
-  const before = midbandDb(shape);
-  const after = midbandDb(moved);
-  return before === null || after === null ? moved : shiftGain(moved, before - after);
+  if (id.startsWith('z')) return { ...shape, zerosHz: shape.zerosHz.map((v, k) => (k === i ? hz : v)) };
+  if (id.startsWith('p')) return { ...shape, polesHz: shape.polesHz.map((v, k) => (k === i ? hz : v)) };
+  return shape;
 }
 
-/** Parts for a shape, or the reason the shape cannot be built (a pole at or below its zero). */
-export function compensatorFromShape(shape: CompensatorShape): { ok: true; comp: CompensatorInput } | { ok: false; issues: FieldIssue[] } {
+/** Pixels per decade of frequency and per dB of magnitude, as the plot draws them during a drag. */
+export interface DragScale {
+  pxPerDecade: number;
+  pxPerDb: number;
+}
+
+/**
+ * A handle moved by a pointer offset from where the drag started (screen px; y grows
+ * downwards): a zero or pole by dx/pxPerDecade decades, the gain by −dy/pxPerDb dB. Moves are
+ * relative to the handle, never to the pointer's absolute place, so with the same scale a
+ * drag of +a px followed by one of −a px returns to the start (up to rounding, ~1e-15).
+ */
+export function dragShape(base: CompensatorShape, id: string, dxPx: number, dyPx: number, scale: DragScale): CompensatorShape {
+  if (id === 'gain') return shiftGain(base, -dyPx / scale.pxPerDb);
+  const handle = id.startsWith('z') ? base.zerosHz[Number(id.slice(1))] : base.polesHz[Number(id.slice(1))];
+  if (handle === undefined) return base;
+  return moveFrequency(base, id, handle * 10 ** (dxPx / scale.pxPerDecade));
+}
+
+/** Parts a compensator type has, in the order of the parts list. */
+export type PartKey = 'r1' | 'r2' | 'r3' | 'c1' | 'c2' | 'c3';
+const TYPE_PARTS: Record<CompensatorType, PartKey[]> = {
+  type1: ['r1', 'c1'],
+  type2: ['r1', 'r2', 'c1', 'c2'],
+  type3: ['r1', 'r2', 'r3', 'c1', 'c2', 'c3'],
+};
+export const partsOfType = (type: CompensatorType): PartKey[] => TYPE_PARTS[type];
+
+/** A part that holds its value while the handles move; R1 unless the designer locks another. */
+export interface PartLock {
+  part: PartKey;
+  /** The value it holds, Ω or F. */
+  value: number;
+}
+
+const isResistor = (p: PartKey) => p.startsWith('r');
+
+/**
+ * Every part multiplied by the impedance level k (resistors × k, capacitors ÷ k): every time
+ * constant, and so every pole, zero and the integrator frequency, stays.
+ */
+export function scaleImpedance(comp: CompensatorInput, k: number): CompensatorInput {
+  const r = (v: number | undefined) => (v === undefined ? undefined : v * k);
+  const c = (v: number | undefined) => (v === undefined ? undefined : v / k);
+  const out: CompensatorInput = { type: comp.type, r1: comp.r1 * k, c1: comp.c1 / k };
+  if (comp.type !== 'type1') Object.assign(out, { r2: r(comp.r2), c2: c(comp.c2) });
+  if (comp.type === 'type3') Object.assign(out, { r3: r(comp.r3), c3: c(comp.c3) });
+  return out;
+}
+
+/**
+ * Parts for a shape, or the reason the shape cannot be built (a pole at or below its zero).
+ * With a lock, the impedance level is chosen so the locked part keeps its value; a lock on a
+ * part the type does not have, or on an absent C2, is ignored (R1 then holds).
+ */
+export function compensatorFromShape(shape: CompensatorShape, lock: PartLock | null = null): { ok: true; comp: CompensatorInput } | { ok: false; issues: FieldIssue[] } {
+  let comp: CompensatorInput;
   try {
-    return { ok: true, comp: partsFromShape(shape) };
+    comp = partsFromShape(shape);
   } catch (err) {
     if (err instanceof EngineInputError) return { ok: false, issues: err.issues };
     throw err;
   }
+  if (!lock || lock.part === 'r1' || !(lock.value > 0)) return { ok: true, comp };
+  const now = comp[lock.part];
+  if (now === undefined || !(now > 0)) return { ok: true, comp };
+  const k = isResistor(lock.part) ? lock.value / now : now / lock.value;
+  const scaled = scaleImpedance(comp, k);
+  // The locked part gets its value exactly, not k·v rounded.
+  return { ok: true, comp: { ...scaled, [lock.part]: lock.value } };
+}
+
+const PART_NAMES: Record<PartKey, string> = { r1: 'R1', r2: 'R2', r3: 'R3', c1: 'C1', c2: 'C2', c3: 'C3' };
+
+/**
+ * The compensator with one part typed in; the poles, zeros and integrator follow from the
+ * parts. C2 may be 0 (absent); every other part must be above 0. The new shape is checked
+ * as the handles would be (poles above their zeros come from positive parts by construction).
+ */
+export function withPart(comp: CompensatorInput, part: PartKey, value: number): { ok: true; comp: CompensatorInput } | { ok: false; message: string } {
+  const name = PART_NAMES[part];
+  if (!TYPE_PARTS[comp.type].includes(part)) return { ok: false, message: `${name} is not a part of this compensator type` };
+  if (!Number.isFinite(value)) return { ok: false, message: `${name} must be a number` };
+  if (part === 'c2' ? value < 0 : !(value > 0)) return { ok: false, message: part === 'c2' ? 'C2 cannot be negative (0 = absent)' : `${name} must be above 0` };
+  return { ok: true, comp: { ...comp, [part]: value } };
 }
 
 export { shapeFromParts };

@@ -1,10 +1,11 @@
-import { desc, eq } from 'drizzle-orm';
+import { and, desc, eq } from 'drizzle-orm';
 import type { Db } from '../connection';
 import { mailbox } from '../schema';
 
 /** Messages the local fake SMTP server caught (demo and tests only). */
 
 export interface CaughtMail {
+  teamId?: number | null;
   fromAddress: string;
   toAddress: string;
   subject: string;
@@ -29,4 +30,24 @@ export function getMail(db: Db, id: number) {
 /** Messages to one address, newest first (addresses compared lower-case). */
 export function listMailTo(db: Db, address: string, limit = 50) {
   return db.select().from(mailbox).where(eq(mailbox.toAddress, address.trim().toLowerCase())).orderBy(desc(mailbox.id)).limit(limit).all();
+}
+
+/** One user's own mail about one team (the demo mailbox page), newest first. */
+export function listMailForMember(db: Db, address: string, teamId: number, limit = 200) {
+  return db
+    .select()
+    .from(mailbox)
+    .where(and(eq(mailbox.toAddress, address.trim().toLowerCase()), eq(mailbox.teamId, teamId)))
+    .orderBy(desc(mailbox.id))
+    .limit(limit)
+    .all();
+}
+
+/** One message, only when it is the user's own mail about that team. */
+export function getMailForMember(db: Db, id: number, address: string, teamId: number) {
+  return db
+    .select()
+    .from(mailbox)
+    .where(and(eq(mailbox.id, id), eq(mailbox.toAddress, address.trim().toLowerCase()), eq(mailbox.teamId, teamId)))
+    .get();
 }

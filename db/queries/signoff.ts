@@ -1,15 +1,24 @@
 import { alias } from 'drizzle-orm/sqlite-core';
 import { and, asc, desc, eq } from 'drizzle-orm';
 import type { Db } from '../connection';
-import { revisions, signoffEvents, users, type SignoffState } from '../schema';
+import {
+  checkDecide,
+  checkDecisionMessage,
+  checkSubmit,
+  type PolicyRefusal,
+  type SignoffFacts,
+  type TeamSignoffSettings,
+} from '../../lib/signoff-policy';
+import { memberships, revisions, signoffEvents, teams, users, type Role, type SignoffState } from '../schema';
 import { writeAudit } from './audit';
 
 /**
  * Sign-off of a revision: an append-only list of events, the latest giving
  * the state (no event = draft). Allowed moves:
- *   draft / changes-requested → in-review   (submit, naming a reviewer)
- *   in-review → approved / changes-requested (decision by someone other than the author)
+ *   draft / changes-requested → in-review   (submit, naming a reviewer or nobody)
+ *   in-review → approved / changes-requested (decision; who may: lib/signoff-policy.ts)
  */
+export { SUBMITTABLE_FROM } from '../../lib/signoff-policy';
 
 /** A sign-off move the current state does not allow, or a reviewer who may not review; maps to 422. */
 export class SignoffRuleError extends Error {
@@ -29,8 +38,6 @@ export class SignoffForbiddenError extends Error {
     this.name = 'SignoffForbiddenError';
   }
 }
-
-export const SUBMITTABLE_FROM: readonly SignoffState[] = ['draft', 'changes-requested'];
 
 export type Decision = 'approve' | 'request-changes';
 
@@ -132,52 +139,83 @@ function insertEvent(
   return row;
 }
 
+function policyError(a: PolicyRefusal): Error {
+  return a.status === 403 ? new SignoffForbiddenError(a.reason) : new SignoffRuleError(a.field, a.reason);
+}
+
+/** The team's sign-off settings (admins reviewing or not). */
+export function getTeamSignoffSettings(db: Db, teamId: number): TeamSignoffSettings {
+  const row = db.select({ adminsMayReview: teams.adminsMayReview }).from(teams).where(eq(teams.id, teamId)).get();
+  return { adminsMayReview: row?.adminsMayReview ?? false };
+}
+
+export function setTeamSignoffSettings(db: Db, actorId: number, teamId: number, s: TeamSignoffSettings) {
+  db.update(teams).set({ adminsMayReview: s.adminsMayReview }).where(eq(teams.id, teamId)).run();
+  writeAudit(db, { teamId, userId: actorId, action: 'team.signoff-settings', entityType: 'team', entityId: teamId, detail: { ...s } });
+}
+
+function roleIn(db: Db, userId: number, teamId: number): Role | null {
+  return (
+    db
+      .select({ role: memberships.role })
+      .from(memberships)
+      .where(and(eq(memberships.userId, userId), eq(memberships.teamId, teamId)))
+      .get()?.role ?? null
+  );
+}
+
+/** What the sign-off policy looks at for one revision: state, author, latest submission. */
+export function getSignoffFacts(db: Db, revisionId: number): SignoffFacts {
+  return {
+    state: getSignoffState(db, revisionId),
+    authorId: revisionAuthor(db, revisionId) ?? 0,
+    submission: latestSubmission(db, revisionId) ?? null,
+  };
+}
+
 /**
- * Ask a reviewer to sign off a revision. The reviewer must be a team member
- * who may review (checked by the caller's `isReviewer`), and neither the
- * revision's author nor the one asking.
+ * Submit a revision for review, naming a reviewer or nobody (then any
+ * reviewer of the team decides). The rules are lib/signoff-policy.ts's,
+ * checked here inside the write transaction.
  */
-export function submitForReview(
-  db: Db,
-  ref: RevisionRef,
-  s: { actorId: number; reviewerId: number; message: string; isReviewer: (userId: number) => boolean },
-) {
+export function submitForReview(db: Db, ref: RevisionRef, s: { actorId: number; reviewerId: number | null; message: string }) {
   return db.transaction(
     (tx) => {
       const txDb = tx as unknown as Db;
-      const from = getSignoffState(txDb, ref.revisionId);
-      if (!SUBMITTABLE_FROM.includes(from))
-        throw new SignoffRuleError('state', `r${ref.number} is ${from}; only a draft or a revision with changes requested can be submitted`);
-      if (!s.isReviewer(s.reviewerId))
-        throw new SignoffRuleError('reviewerId', 'Choose a reviewer or admin of this team');
-      if (s.reviewerId === revisionAuthor(txDb, ref.revisionId))
-        throw new SignoffRuleError('reviewerId', `The reviewer cannot be the author of r${ref.number}`);
-      if (s.reviewerId === s.actorId) throw new SignoffRuleError('reviewerId', 'Ask someone other than yourself');
-      return insertEvent(txDb, ref, { state: 'in-review', actorId: s.actorId, reviewerId: s.reviewerId, message: s.message, from });
+      const facts = getSignoffFacts(txDb, ref.revisionId);
+      const team = getTeamSignoffSettings(txDb, ref.teamId);
+      const actorRole = roleIn(txDb, s.actorId, ref.teamId);
+      if (!actorRole) throw new SignoffForbiddenError('You are not a member of this team');
+      const reviewer = s.reviewerId == null ? null : { id: s.reviewerId, role: roleIn(txDb, s.reviewerId, ref.teamId) };
+      const answer = checkSubmit({ id: s.actorId, role: actorRole }, team, facts, reviewer);
+      if (!answer.ok) throw policyError(answer);
+      return insertEvent(txDb, ref, { state: 'in-review', actorId: s.actorId, reviewerId: s.reviewerId, message: s.message, from: facts.state });
     },
     { behavior: 'immediate' },
   );
 }
 
 /**
- * Approve or request changes on a revision in review. Nobody decides on a
- * revision they wrote. A request for changes must say what to change.
- * Returns the event plus who to tell: the author and whoever submitted it.
+ * Approve or request changes on a revision in review, by the named reviewer
+ * (or any team reviewer when none was named); never its author or whoever
+ * submitted it (lib/signoff-policy.ts). Returns the event plus who to tell:
+ * the author and whoever submitted it.
  */
 export function decideSignoff(db: Db, ref: RevisionRef, d: { actorId: number; decision: Decision; message: string }) {
   return db.transaction(
     (tx) => {
       const txDb = tx as unknown as Db;
-      const from = getSignoffState(txDb, ref.revisionId);
-      const authorId = revisionAuthor(txDb, ref.revisionId);
-      if (authorId === d.actorId) throw new SignoffForbiddenError(`You wrote r${ref.number}; someone else must sign it off`);
-      if (from !== 'in-review')
-        throw new SignoffRuleError('state', `r${ref.number} is ${from}; only a revision in review can be approved or sent back`);
-      if (d.decision === 'request-changes' && !d.message.trim())
-        throw new SignoffRuleError('message', 'Say what should change');
-      const submitterId = latestSubmission(txDb, ref.revisionId)?.actorId ?? null;
-      const event = insertEvent(txDb, ref, { state: DECISION_STATE[d.decision], actorId: d.actorId, message: d.message, from });
-      const notify = [...new Set([authorId, submitterId].filter((x): x is number => x != null && x !== d.actorId))];
+      const facts = getSignoffFacts(txDb, ref.revisionId);
+      const team = getTeamSignoffSettings(txDb, ref.teamId);
+      const actorRole = roleIn(txDb, d.actorId, ref.teamId);
+      if (!actorRole) throw new SignoffForbiddenError('You are not a member of this team');
+      const answer = checkDecide({ id: d.actorId, role: actorRole }, team, facts);
+      if (!answer.ok) throw policyError(answer);
+      const msg = checkDecisionMessage(d.decision, d.message);
+      if (!msg.ok) throw policyError(msg);
+      const submitterId = facts.submission?.actorId ?? null;
+      const event = insertEvent(txDb, ref, { state: DECISION_STATE[d.decision], actorId: d.actorId, message: d.message, from: facts.state });
+      const notify = [...new Set([facts.authorId, submitterId].filter((x): x is number => x != null && x !== 0 && x !== d.actorId))];
       return { event, notifyUserIds: notify };
     },
     { behavior: 'immediate' },

@@ -50,6 +50,26 @@ export function listTeamsForUser(db: Db, userId: number) {
     .all();
 }
 
+/**
+ * The session check's one query: the user and every team they belong to (role, name),
+ * oldest membership first; null when the user no longer exists. Indexed by users' primary
+ * key and memberships (user_id, team_id).
+ */
+export function getSessionUser(db: Db, userId: number) {
+  const rows = db
+    .select({ email: users.email, name: users.name, teamId: teams.id, teamName: teams.name, role: memberships.role })
+    .from(users)
+    .leftJoin(memberships, eq(memberships.userId, users.id))
+    .leftJoin(teams, eq(teams.id, memberships.teamId))
+    .where(eq(users.id, userId))
+    .orderBy(asc(memberships.id))
+    .all();
+  if (rows.length === 0) return null;
+  const teamsOf: { teamId: number; teamName: string; role: Role }[] = [];
+  for (const r of rows) if (r.teamId !== null && r.teamName !== null && r.role !== null) teamsOf.push({ teamId: r.teamId, teamName: r.teamName, role: r.role });
+  return { email: rows[0].email, name: rows[0].name, teams: teamsOf };
+}
+
 export function getMembership(db: Db, userId: number, teamId: number) {
   return db
     .select()

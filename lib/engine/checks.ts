@@ -10,7 +10,8 @@
  *   gain-margin-low        caution / risk   GM < 10 dB / GM < 6 dB
  *   multiple-crossovers    caution          more than one 0 dB crossing
  *   conditional-stability  risk             phase below −180° below fc while |T| > 0 dB
- *   no-crossover           risk             |T| never falls through 0 dB in the sweep
+ *   crossover-above-sweep  caution / risk   |T| still above 0 dB at the sweep's end (risk when the end is at or above fsw/2)
+ *   no-crossover           risk             |T| never reaches 0 dB in the sweep
  *   duty-extreme           caution          D outside 5–95 %
  *   dcm-at-load            risk             the load is below the CCM/DCM boundary
  *   part-range             note             R below 1 kΩ or above 1 MΩ, C below 10 pF
@@ -37,15 +38,29 @@ export const loopChecks = (args: {
   const fc = margins.crossoverHz;
   const gainCrossings = margins.crossings.filter((c) => c.kind === 'gain');
 
-  if (fc === null) {
-    const above = loop.magDb.length > 0 && loop.magDb[loop.magDb.length - 1] > 0;
+  const n = loop.f.length;
+  const endHz = n > 0 ? loop.f[n - 1] : null;
+  const aboveAtEnd = n > 0 && loop.magDb[n - 1] > 0;
+  if (aboveAtEnd && endHz !== null) {
+    // The loop is still above 0 dB where the sweep stops: its (highest) crossover lies beyond.
+    const pastHalf = endHz >= fsw / 2 * (1 - 1e-9);
+    const where = pastHalf ? `above the end of the sweep (${hz(endHz)}), and so above fsw/2 (${hz(fsw / 2)})` : `above the end of the sweep (${hz(endHz)})`;
     out.push({
-      id: 'no-crossover',
-      level: 'risk',
-      message: above
-        ? `The loop gain stays above 0 dB up to the end of the sweep (${hz(loop.f[loop.f.length - 1])}): there is no crossover to judge. Lower the compensator gain (raise R1 relative to R2, or lower the integrator frequency).`
-        : `The loop gain never reaches 0 dB in the sweep: there is no crossover, so the loop corrects slowly and margins cannot be read. Raise the compensator gain or extend the sweep.`,
+      id: 'crossover-above-sweep',
+      level: pastHalf ? 'risk' : 'caution',
+      message: pastHalf
+        ? `The loop gain is still ${db(loop.magDb[n - 1])} at the end of the sweep: the crossover lies ${where}, where the averaged model no longer holds and the loop reacts to switching ripple. Lower the compensator gain (the ◆ handle) to bring fc down to about fsw/10 (${hz(fsw / 10)}).`
+        : `The loop gain is still ${db(loop.magDb[n - 1])} at the end of the sweep: the crossover lies ${where}. Extend the sweep to see it, or lower the compensator gain.`,
     });
+  }
+  if (fc === null) {
+    if (!aboveAtEnd) {
+      out.push({
+        id: 'no-crossover',
+        level: 'risk',
+        message: `The loop gain never reaches 0 dB in the sweep: there is no crossover, so the loop corrects slowly and margins cannot be read. Raise the compensator gain or extend the sweep.`,
+      });
+    }
   } else {
     if (fc > fsw / 2) {
       out.push({

@@ -46,3 +46,4 @@ export {
 export type { SectionedTransfer } from './transfer';
 export { loopChecks, partChecks, stageChecks } from './checks';
 export { compensatorIssues, stageIssues, validateRequest } from './validate';
+export { BODE_SIGNIFICANT_DIGITS, roundBode, roundSignificant } from './precision';

@@ -164,6 +164,10 @@ export interface BodeTrace {
   phaseDeg: number[];
 }
 
+/**
+ * Sampled Bode data (log-spaced). POST /api/analyze answers every array rounded to 6
+ * significant digits (see precision.ts) and leaves `bode` out when asked for no arrays.
+ */
 export interface BodeData {
   f: number[];
   loop: BodeTrace;
@@ -190,6 +194,7 @@ export interface AnalyzeResult {
   /** Phase of the loop gain at fsw/2, degrees (unwrapped as the sweep). */
   phaseAtHalfFswDeg: number | null;
   parts: PartsResult;
+  /** Absent from POST /api/analyze's answer when the request asks for no arrays. */
   bode: BodeData;
   checks: Check[];
 }

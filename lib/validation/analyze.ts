@@ -59,6 +59,26 @@ export const analyzeRequestSchema = z.object({
     .optional(),
 });
 
+/**
+ * What the answer to POST /api/analyze carries: `output: { arrays: false }` in the body or
+ * `?arrays=0` in the URL leaves the Bode arrays out (margins, landmarks, parts and checks only).
+ * Kept apart from the request schema so a revision's stored input never holds it.
+ */
+export const analyzeOutputSchema = z
+  .object({ arrays: z.boolean({ error: 'output.arrays must be true or false' }).default(true) })
+  .default({ arrays: true });
+
+export function parseAnalyzeOutput(body: unknown, url: URL) {
+  const raw = body && typeof body === 'object' && 'output' in body ? body.output : undefined;
+  const r = analyzeOutputSchema.safeParse(raw);
+  if (!r.success) return { ok: false as const, issues: zodIssues(r.error).map((i) => ({ ...i, path: i.path === '(body)' ? 'output' : `output.${i.path}` })) };
+  const q = url.searchParams.get('arrays');
+  if (q !== null && !['0', '1', 'true', 'false'].includes(q))
+    return { ok: false as const, issues: [{ path: 'arrays', message: 'the arrays query parameter must be 0, 1, true or false' }] };
+  const arrays = q === null ? r.data.arrays : q === '1' || q === 'true';
+  return { ok: true as const, data: { arrays } };
+}
+
 export type AnalyzeRequestInput = z.input<typeof analyzeRequestSchema>;
 
 /** Parse into the engine's request type (defaults applied). */

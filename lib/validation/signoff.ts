@@ -3,7 +3,13 @@ import { z } from 'zod';
 const message = z.string({ error: 'message must be text' }).trim().max(4000, 'message must be at most 4000 characters');
 
 export const submitForReviewSchema = z.object({
-  reviewerId: z.number({ error: 'reviewerId must be the id of a reviewer' }).int().positive('reviewerId must be the id of a reviewer'),
+  /** The reviewer who must decide; null or absent leaves it to any reviewer of the team. */
+  reviewerId: z
+    .number({ error: 'reviewerId must be the id of a reviewer, or null for any reviewer' })
+    .int('reviewerId must be the id of a reviewer')
+    .positive('reviewerId must be the id of a reviewer')
+    .nullable()
+    .default(null),
   message: message.default(''),
 });
 

@@ -51,8 +51,10 @@ describe('POST /api/analyze', () => {
       expect(r.bode[t].magDb).toHaveLength(400);
       expect(r.bode[t].phaseDeg).toHaveLength(400);
     }
-    // loop = compensator + plant in dB
-    expect(r.bode.loop.magDb[123]).toBeCloseTo(r.bode.plant.magDb[123] + r.bode.compensator.magDb[123], 6);
+    // loop = compensator + plant in dB, each rounded to 6 significant digits
+    expect(r.bode.loop.magDb[123]).toBeCloseTo(r.bode.plant.magDb[123] + r.bode.compensator.magDb[123], 3);
+    for (const v of [...r.bode.f, ...r.bode.loop.magDb, ...r.bode.loop.phaseDeg])
+      expect(Number(Math.abs(v).toPrecision(6))).toBe(Math.abs(v));
     expect(Array.isArray(r.checks)).toBe(true);
   });
 
@@ -61,6 +63,35 @@ describe('POST /api/analyze', () => {
     expect(r.plant.rhpZeroHz).toBeNull();
     expect(r.bode.f).toHaveLength(50);
     expect(r.bode.f[0]).toBeCloseTo(100, 6);
+  });
+
+  it('leaves the arrays out on ?arrays=0 or output.arrays false, with the same margins', async () => {
+    const full = await (await post(boost)).json();
+    for (const res of [
+      await viewer.json('/api/analyze?arrays=0', 'POST', boost),
+      await post({ ...boost, output: { arrays: false } }),
+    ]) {
+      expect(res.status).toBe(200);
+      const r = await res.json();
+      expect(r.bode).toBeUndefined();
+      expect(r.margins).toEqual(full.margins);
+      expect(r.checks).toEqual(full.checks);
+    }
+    expect((await viewer.json('/api/analyze?arrays=1', 'POST', { ...boost, output: { arrays: false } })).status).toBe(200);
+    const bad = await post({ ...boost, output: { arrays: 'no' } });
+    expect(bad.status).toBe(400);
+    expect((await bad.json()).issues.map((i: { path: string }) => i.path)).toContain('output.arrays');
+    expect((await viewer.json('/api/analyze?arrays=maybe', 'POST', boost)).status).toBe(400);
+  });
+
+  it('answers gzip-compressed when asked', async () => {
+    const res = await viewer.fetch('/api/analyze', {
+      method: 'POST',
+      headers: { 'content-type': 'application/json', 'accept-encoding': 'gzip' },
+      body: JSON.stringify(boost),
+    });
+    expect(res.status).toBe(200);
+    expect(res.headers.get('content-encoding')).toBe('gzip');
   });
 
   it('400 naming the field for a body that does not fit', async () => {

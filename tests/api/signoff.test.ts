@@ -84,14 +84,14 @@ describe('POST …/submit', () => {
     expect((await outsider.client.json(url(1, 'submit'), 'POST', body)).status).toBe(404);
   });
 
-  it('400 naming reviewerId when it is missing', async () => {
-    const res = await clients.designer.json(url(1, 'submit'), 'POST', { message: 'hi' });
+  it('400 naming reviewerId when it is not an id', async () => {
+    const res = await clients.designer.json(url(1, 'submit'), 'POST', { reviewerId: 'rui', message: 'hi' });
     expect(res.status).toBe(400);
     expect((await res.json()).issues[0].path).toBe('reviewerId');
   });
 
-  it('422 naming reviewerId for a viewer, the author, or a user of another team', async () => {
-    for (const reviewerId of [ids.viewer, ids.designer, outsider.userId]) {
+  it('422 naming reviewerId for a viewer, the author, an admin (this team does not let admins review), or a user of another team', async () => {
+    for (const reviewerId of [ids.viewer, ids.designer, ids.admin, outsider.userId]) {
       const res = await clients.designer.json(url(1, 'submit'), 'POST', { reviewerId, message: '' });
       expect(res.status).toBe(422);
       expect((await res.json()).issues[0].path).toBe('reviewerId');
@@ -104,7 +104,7 @@ describe('POST …/submit', () => {
     const message = `Please check r${n}, asked by ${role}`;
     const res = await clients[role].json(url(n, 'submit'), 'POST', { reviewerId: ids.reviewer, message });
     expect(res.status).toBe(201);
-    expect(await res.json()).toMatchObject({ state: 'in-review', mailed: true });
+    expect(await res.json()).toMatchObject({ state: 'in-review', mailed: 1 });
     expect(await state(n)).toBe('in-review');
     const mail = withDb((db) => listMailTo(db, 'reviewer@demo.test')).find((m) => m.text.includes(message));
     expect(mail?.subject).toBe(`Review requested: Sign-off test rail r${n}`);
@@ -142,13 +142,8 @@ describe('POST …/decision', () => {
     expect((await clients.designer.json(url(n, 'submit'), 'POST', { reviewerId: ids.reviewer, message: '' })).status).toBe(201);
     const own = await clients.admin.json(url(n, 'decision'), 'POST', { decision: 'approve', message: '' });
     expect(own.status).toBe(403);
-    expect((await own.json()).error).toMatch(/someone else/);
     expect(await state(n)).toBe('in-review');
-    // an admin may approve a revision someone else wrote
-    const m = await saveNext('designer');
-    await clients.designer.json(url(m, 'submit'), 'POST', { reviewerId: ids.admin, message: '' });
-    const byAdmin = await clients.admin.json(url(m, 'decision'), 'POST', { decision: 'approve', message: 'fine' });
-    expect(byAdmin.status).toBe(201);
+    // the rest of the policy (named reviewer, admins as reviewers): signoff-policy.test.ts
   });
 
   it('asking for changes needs a message (422 naming message)', async () => {

@@ -13,6 +13,7 @@ import {
   listSignoffEvents,
   listSignoffStates,
   SignoffForbiddenError,
+  setTeamSignoffSettings,
   SignoffRuleError,
   submitForReview,
 } from '@/db/queries';
@@ -23,9 +24,8 @@ import { tempDb } from '../support/temp-db';
 let db: Db;
 let cleanup: () => void;
 let team: number;
-const u = { designer: 0, reviewer: 0, admin: 0 };
+const u = { designer: 0, reviewer: 0, admin: 0, reviewer2: 0 };
 let ref: { teamId: number; designId: number; revisionId: number; number: number };
-const isReviewer = (id: number) => id === u.reviewer || id === u.admin;
 
 beforeEach(() => {
   ({ db, cleanup } = tempDb());
@@ -34,14 +34,26 @@ beforeEach(() => {
     u[role] = createUser(db, { email: `${role}@example.test`, name: role, password: 'long enough' }).id;
     db.insert(memberships).values({ userId: u[role], teamId: team, role }).run();
   }
+  u.reviewer2 = createUser(db, { email: 'reviewer2@example.test', name: 'reviewer2', password: 'long enough' }).id;
+  db.insert(memberships).values({ userId: u.reviewer2, teamId: team, role: 'reviewer' }).run();
   const design = createDesign(db, u.designer, team, { name: 'D', topology: 'buck' });
   const rev = createRevision(db, { teamId: team, designId: design.id, baseNumber: null, input: {}, summary: {}, authorId: u.designer, note: '' });
   ref = { teamId: team, designId: design.id, revisionId: rev.id, number: rev.number };
 });
 afterEach(() => cleanup());
 
-const submit = (actorId = u.designer, reviewerId = u.reviewer, message = 'please look') =>
-  submitForReview(db, ref, { actorId, reviewerId, message, isReviewer });
+const submit = (actorId = u.designer, reviewerId: number | null = u.reviewer, message = 'please look') =>
+  submitForReview(db, ref, { actorId, reviewerId, message });
+
+function forbidden(fn: () => unknown): SignoffForbiddenError {
+  try {
+    fn();
+  } catch (err) {
+    if (err instanceof SignoffForbiddenError) return err;
+    throw err;
+  }
+  throw new Error('expected a SignoffForbiddenError');
+}
 
 function ruleError(fn: () => unknown): SignoffRuleError {
   try {
@@ -86,7 +98,7 @@ describe('sign-off', () => {
     expect(ruleError(() => submit()).field).toBe('state');
     decideSignoff(db, ref, { actorId: u.reviewer, decision: 'approve', message: '' });
     expect(ruleError(() => submit()).field).toBe('state');
-    expect(ruleError(() => decideSignoff(db, ref, { actorId: u.admin, decision: 'request-changes', message: 'x' })).field).toBe('state');
+    expect(ruleError(() => decideSignoff(db, ref, { actorId: u.reviewer, decision: 'request-changes', message: 'x' })).field).toBe('state');
   });
 
   it('nobody signs off their own revision', () => {
@@ -95,8 +107,35 @@ describe('sign-off', () => {
     expect(getSignoffState(db, ref.revisionId)).toBe('in-review');
   });
 
+  it('only the named reviewer decides; another reviewer is refused', () => {
+    submit(u.designer, u.reviewer);
+    expect(forbidden(() => decideSignoff(db, ref, { actorId: u.reviewer2, decision: 'approve', message: '' })).message).toMatch(/another reviewer/);
+    expect(decideSignoff(db, ref, { actorId: u.reviewer, decision: 'approve', message: '' }).event.state).toBe('approved');
+  });
+
+  it('naming nobody lets any reviewer of the team decide', () => {
+    submit(u.designer, null);
+    expect(decideSignoff(db, ref, { actorId: u.reviewer2, decision: 'approve', message: '' }).event.state).toBe('approved');
+  });
+
+  it('an admin reviews only when the team allows it, and never decides what they submitted', () => {
+    expect(ruleError(() => submit(u.designer, u.admin)).field).toBe('reviewerId');
+    submit(u.designer, null);
+    expect(forbidden(() => decideSignoff(db, ref, { actorId: u.admin, decision: 'approve', message: '' })).message).toMatch(/does not let admins/);
+    setTeamSignoffSettings(db, u.admin, team, { adminsMayReview: true });
+    expect(decideSignoff(db, ref, { actorId: u.admin, decision: 'request-changes', message: 'fix it' }).event.state).toBe('changes-requested');
+    // the admin submits it again themselves: they may not decide it now
+    submit(u.admin, null);
+    expect(forbidden(() => decideSignoff(db, ref, { actorId: u.admin, decision: 'approve', message: '' })).message).toMatch(/submitted/);
+  });
+
+  it('a reviewer or viewer may not submit', () => {
+    expect(forbidden(() => submit(u.reviewer, u.reviewer2)).message).toMatch(/may not submit/);
+  });
+
   it('checks the reviewer: one who may review, not the author, not the one asking', () => {
     expect(ruleError(() => submit(u.designer, u.designer)).field).toBe('reviewerId');
+    setTeamSignoffSettings(db, u.admin, team, { adminsMayReview: true });
     expect(ruleError(() => submit(u.admin, u.admin)).field).toBe('reviewerId');
     expect(ruleError(() => submit(u.designer, 9999)).field).toBe('reviewerId');
     expect(getSignoffState(db, ref.revisionId)).toBe('draft');

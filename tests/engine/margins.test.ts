@@ -109,11 +109,27 @@ describe('special loops', () => {
     expect(margins.crossings.filter((c) => c.kind === 'gain')).toEqual([]);
   });
 
-  it('no crossover: |T| above 0 dB to the end of the sweep → null, and a risk check', () => {
+  it('|T| above 0 dB to the end of the sweep → fc null, and the check says the crossover lies above the sweep (and above fsw/2), not "no crossover"', () => {
     const { margins, sampled } = marginsOf(integrator(5e6));
     expect(margins.crossoverHz).toBeNull();
-    const checks = loopChecks({ margins, loop: sampled, fsw: 2e6, rhpZeroHz: null });
+    const end = sampled.f[sampled.f.length - 1];
+    // The sweep ends at fsw/2: the crossover lies above fsw/2 too, a risk.
+    const atHalf = loopChecks({ margins, loop: sampled, fsw: 2 * end, rhpZeroHz: null });
+    expect(atHalf.map((c) => c.id)).not.toContain('no-crossover');
+    const above = atHalf.find((c) => c.id === 'crossover-above-sweep');
+    expect(above?.level).toBe('risk');
+    expect(above?.message).toMatch(/crossover lies above the end of the sweep \(.+\), and so above fsw\/2/);
+    // A sweep stopped well below fsw/2: extend it to see the crossover (a caution).
+    const short = loopChecks({ margins, loop: sampled, fsw: 10 * end, rhpZeroHz: null });
+    expect(short.find((c) => c.id === 'crossover-above-sweep')?.level).toBe('caution');
+    expect(short.find((c) => c.id === 'crossover-above-sweep')?.message).toMatch(/Extend the sweep/);
+  });
+
+  it('|T| below 0 dB everywhere still reads "no crossover"', () => {
+    const { margins, sampled } = marginsOf(multiplyTransfers({ gain: 0.5, originOrder: 0, num: [], den: [] }, pole(10)));
+    const checks = loopChecks({ margins, loop: sampled, fsw: 1e6, rhpZeroHz: null });
     expect(checks.find((c) => c.id === 'no-crossover')?.level).toBe('risk');
+    expect(checks.map((c) => c.id)).not.toContain('crossover-above-sweep');
   });
 
   it('multiple crossings: a resonant peak lifts |T| back over 0 dB; fc is the highest downward one', () => {

@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import Complex from 'complex.js';
 import { compensatorTransfer, shapeFromParts } from '@/lib/engine/compensator';
 import { analyze, preparePlant } from '@/lib/engine/analyze';
-import { kFactorParts, proposeForPlant } from '@/lib/engine/starting-point';
+import { defaultCrossoverHz, kFactorParts, placeForType, proposeForPlant, reachOf } from '@/lib/engine/starting-point';
+import { marginsForCompensator } from '@/lib/engine/analyze';
 import { evaluateTransfer } from '@/lib/engine/transfer';
 import { EngineInputError, type AnalyzeRequest } from '@/lib/engine/types';
 import { expectAbs, expectPrinted, expectRel, makeRequest } from './helpers';
@@ -95,5 +96,80 @@ describe('starting point on a real plant', () => {
     const r = analyze({ ...ceramicBuck, compensator: comp });
     expectRel(r.margins.crossoverHz, 50e3, 1e-9, 'fc');
     expect(r.margins.phaseMarginDeg!).toBeGreaterThan(30);
+  });
+});
+
+/**
+ * Where the starting point begins and what it says when a target is out of reach. An invented
+ * boost, 9 → 30 V at 350 kHz: RHP zero D'²R/(2πL) ≈ 41 kHz (Erickson & Maksimović, 2nd ed.,
+ * §8.2.2, the boost's control-to-output zero), so fsw/10 = 35 kHz would sit above a third of it.
+ */
+describe('starting point: default target and reach', () => {
+  const boost930: AnalyzeRequest = makeRequest({
+    converter: { topology: 'boost', vin: 9, vout: 30, iout: 1, fsw: 350e3, l: 10e-6, rl: 0.02, c: 40e-6, rc: 0.005, vd: 0.4 },
+    feedback: { vref: 1.2 },
+  });
+
+  it('defaults fc to the lower of fsw/10 and a third of the RHP zero (common practice)', () => {
+    expect(defaultCrossoverHz(400e3, null)).toBe(40e3);
+    expect(defaultCrossoverHz(350e3, 41e3)).toBeCloseTo(41e3 / 3, 9);
+    expect(defaultCrossoverHz(100e3, 90e3)).toBe(10e3);
+    const p = preparePlant(boost930);
+    expect(p.plant.rhpZeroHz!).toBeGreaterThan(35e3);
+    expect(defaultCrossoverHz(350e3, p.plant.rhpZeroHz)).toBeCloseTo(p.plant.rhpZeroHz! / 3, 9);
+  });
+
+  it('a target out of reach says what is reachable, never more boost than the type can give nor "use Type III" to Type III', () => {
+    const p = preparePlant(boost930);
+    let message = '';
+    try {
+      proposeForPlant(p, { crossoverHz: 60e3, phaseMarginDeg: 60, method: 'k-factor', type: 'type3', r1: 10e3 });
+    } catch (err) {
+      message = err instanceof EngineInputError ? err.issues[0].message : String(err);
+    }
+    expect(message).toMatch(/Reachable with Type III: PM 60\.0° with fc up to [\d.]+ kHz/);
+    expect(message).toMatch(/PM up to [\d.]+° at 60 kHz/);
+    expect(message).not.toMatch(/use Type III/);
+    // The fc offered is real: the K factor there lands on the asked margin.
+    const reach = reachOf(p, 'type3', 60e3, 60);
+    expect(reach.reachable).toBe(false);
+    expect(reach.maxCrossoverHz!).toBeLessThan(p.plant.rhpZeroHz!);
+    const comp = proposeForPlant(p, { crossoverHz: reach.maxCrossoverHz!, phaseMarginDeg: 60, method: 'k-factor', type: 'type3', r1: 10e3 });
+    const m = marginsForCompensator(p, comp);
+    expectRel(m.crossoverHz, reach.maxCrossoverHz!, 1e-6, 'fc');
+    expectAbs(m.phaseMarginDeg, 60, 1e-6, 'PM');
+  });
+
+  it('changing the type keeps fc and the PM target for every type, and explains each fallback', () => {
+    const p = preparePlant(boost930);
+    const fc = defaultCrossoverHz(350e3, p.plant.rhpZeroHz);
+    const three = placeForType(p, { type: 'type3', crossoverHz: fc, phaseMarginDeg: 55, r1: 10e3 });
+    expect(three.note).toBeNull();
+    const m3 = marginsForCompensator(p, three.compensator);
+    expectRel(m3.crossoverHz, fc, 1e-6, 'Type III fc');
+    expectAbs(m3.phaseMarginDeg, 55, 1e-6, 'Type III PM');
+    for (const type of ['type1', 'type2'] as const) {
+      const placed = placeForType(p, { type, crossoverHz: fc, phaseMarginDeg: 55, r1: 10e3 });
+      const m = marginsForCompensator(p, placed.compensator);
+      expect(placed.compensator.type).toBe(type);
+      if (placed.note === null) {
+        expectRel(m.crossoverHz, fc, 1e-6, `${type} fc`);
+        expectAbs(m.phaseMarginDeg, 55, 1e-6, `${type} PM`);
+      } else {
+        // The note names the type and what it gave; the margin is never left negative without saying so.
+        expect(placed.note).toMatch(type === 'type1' ? /Type I adds no phase boost/ : /Type II/);
+        expect(placed.note).toMatch(/Placed/);
+        expect(m.phaseMarginDeg!).toBeGreaterThan(45);
+      }
+    }
+  });
+
+  it('Type I on a buck lowers fc below the LC resonance until the margin holds, and says so', () => {
+    const p = preparePlant(makeRequest());
+    const placed = placeForType(p, { type: 'type1', crossoverHz: 50e3, phaseMarginDeg: 60, r1: 10e3 });
+    expect(placed.note).toMatch(/Type I adds no phase boost, so at 50 kHz the power stage \(−1\d\d\.\d°\) leaves a phase margin of −/);
+    const m = marginsForCompensator(p, placed.compensator);
+    expect(m.crossoverHz!).toBeLessThan(p.plant.resonanceHz!);
+    expect(m.phaseMarginDeg!).toBeGreaterThan(55);
   });
 });

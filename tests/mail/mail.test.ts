@@ -82,7 +82,7 @@ describe('fake mail server', () => {
 
 describe('notifications', () => {
   it('review requested: to the reviewer, quoting the message, linking the revision', async () => {
-    await notifyReviewRequested({ to: { email: 'rev@example.test', name: 'Rae' }, by: 'Dev', revision, message: 'Crossover moved to 40 kHz' });
+    await notifyReviewRequested({ to: { email: 'rev@example.test', name: 'Rae' }, by: 'Dev', teamId: 1, revision, message: 'Crossover moved to 40 kHz' });
     const [m] = listMailTo(db, 'rev@example.test');
     expect(m.subject).toBe('Review requested: 3V3 rail, sensor board r4');
     expect(m.text).toContain('Dev asks you to review 3V3 rail, sensor board r4');
@@ -92,8 +92,8 @@ describe('notifications', () => {
   });
 
   it('approved and changes requested', async () => {
-    await notifyDecision({ to: { email: 'dev@example.test', name: 'Dev' }, by: 'Rae', revision, decision: 'approve', message: '' });
-    await notifyDecision({ to: { email: 'dev@example.test', name: 'Dev' }, by: 'Rae', revision, decision: 'request-changes', message: 'PM is thin at low line' });
+    await notifyDecision({ to: { email: 'dev@example.test', name: 'Dev' }, by: 'Rae', teamId: 1, revision, decision: 'approve', message: '' });
+    await notifyDecision({ to: { email: 'dev@example.test', name: 'Dev' }, by: 'Rae', teamId: 1, revision, decision: 'request-changes', message: 'PM is thin at low line' });
     const [changes, approved] = listMailTo(db, 'dev@example.test');
     expect(approved.subject).toBe('Approved: 3V3 rail, sensor board r4');
     expect(approved.text).toContain('Rae approved');
@@ -103,7 +103,7 @@ describe('notifications', () => {
   });
 
   it('added to a team', async () => {
-    await notifyAddedToTeam({ to: 'new@example.test', name: 'Noor', teamName: 'Bench crew', role: 'reviewer', by: 'Ada' });
+    await notifyAddedToTeam({ to: 'new@example.test', name: 'Noor', teamId: 1, teamName: 'Bench crew', role: 'reviewer', by: 'Ada' });
     const [m] = listMailTo(db, 'new@example.test');
     expect(m.subject).toBe('You were added to Bench crew on Phasewright');
     expect(m.text).toContain('Ada added you to the team Bench crew as reviewer');

@@ -41,7 +41,7 @@ export async function addMemberAction(_prev: ActionState, form: FormData): Promi
   }
   try {
     const { user, created } = addTeamMember(getDb(), auth.user.id, auth.user.teamId, parsed.data);
-    await notifyAddedToTeam({ to: user.email, name: user.name, teamName: auth.user.teamName, role: parsed.data.role, by: auth.user.name });
+    await notifyAddedToTeam({ to: user.email, name: user.name, teamId: auth.user.teamId, teamName: auth.user.teamName, role: parsed.data.role, by: auth.user.name });
     revalidatePath('/admin');
     return { ok: true, message: `${user.email} added as ${parsed.data.role}${created ? ' (new account)' : ''}` };
   } catch (err) {

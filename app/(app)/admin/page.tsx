@@ -1,10 +1,11 @@
 import type { Metadata } from 'next';
 import { redirect } from 'next/navigation';
 import { getDb } from '@/db/client';
-import { listAudit, listTeamMembers } from '@/db/queries';
+import { getTeamSignoffSettings, listAudit, listTeamMembers } from '@/db/queries';
 import { can, requireUser } from '@/lib/auth';
 import { describeAudit } from '@/lib/audit-text';
 import { AddMemberForm, RoleSelect } from '@/components/admin/member-forms';
+import { SignoffSettings } from '@/components/admin/signoff-settings';
 
 export const metadata: Metadata = { title: 'Team' };
 
@@ -41,6 +42,7 @@ export default async function AdminPage() {
           </table>
         </div>
         <AddMemberForm />
+        <SignoffSettings adminsMayReview={getTeamSignoffSettings(db, user.teamId).adminsMayReview} />
       </section>
       <section>
         <h2 className="mb-2 text-lg font-semibold">Recent activity</h2>

@@ -2,35 +2,36 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { getDb } from '@/db/client';
-import { getMail, listMail } from '@/db/queries';
-import { can, requireUser } from '@/lib/auth';
+import { getMailForMember, listMailForMember } from '@/db/queries';
+import { requireUser } from '@/lib/auth';
 import { formatDate } from '@/components/review/format';
 
 export const metadata: Metadata = { title: 'Mailbox' };
 
 /**
- * The messages the local fake mail server caught. Only in the demo
- * (PHASEWRIGHT_DEMO=1) and only for admins; elsewhere the page does not exist.
+ * The signed-in user's own mail about their current team, as caught by the
+ * local fake mail server. Only in the demo (PHASEWRIGHT_DEMO=1), for every
+ * signed-in member; elsewhere the page does not exist.
  */
 export default async function MailboxPage({ searchParams }: { searchParams: Promise<{ m?: string }> }) {
   const user = await requireUser();
-  if (process.env.PHASEWRIGHT_DEMO !== '1' || !can.manageTeam(user.role)) notFound();
+  if (process.env.PHASEWRIGHT_DEMO !== '1') notFound();
   const { m } = await searchParams;
   const db = getDb();
-  const messages = listMail(db, 200);
-  const open = (m && /^\d+$/.test(m) ? getMail(db, Number(m)) : undefined) ?? messages[0];
+  const messages = listMailForMember(db, user.email, user.teamId, 200);
+  const open = (m && /^\d+$/.test(m) ? getMailForMember(db, Number(m), user.email, user.teamId) : undefined) ?? messages[0];
 
   return (
     <div className="space-y-4">
       <div>
         <h1 className="text-2xl font-semibold">Mailbox</h1>
         <p className="text-sm text-slate-500">
-          Demo only: every message Phasewright sent, caught by the local fake mail server on 127.0.0.1:{process.env.SMTP_PORT ?? '—'}. Nothing
-          leaves this machine.
+          Demo only: the mail Phasewright sent you ({user.email}) about {user.teamName}, caught by the local fake mail server on 127.0.0.1:
+          {process.env.SMTP_PORT ?? '—'}. Nothing leaves this machine.
         </p>
       </div>
       {messages.length === 0 ? (
-        <div className="card p-8 text-center text-slate-600">No mail yet. Submitting a revision for review sends the first one.</div>
+        <div className="card p-8 text-center text-slate-600">No mail for you yet. Mail arrives when someone asks you to review or decides on your revision.</div>
       ) : (
         <div className="grid gap-4 lg:grid-cols-[minmax(280px,2fr)_3fr]">
           <ol className="card divide-y divide-slate-100 self-start overflow-hidden" data-testid="mail-list">

@@ -1,9 +1,14 @@
 import { NextResponse } from 'next/server';
 import { analyze } from '@/lib/engine/analyze';
+import { roundBode } from '@/lib/engine/precision';
 import { HttpError, withUser } from '@/lib/api';
-import { parseAnalyzeRequest } from '@/lib/validation/analyze';
+import { parseAnalyzeOutput, parseAnalyzeRequest } from '@/lib/validation/analyze';
 
-/** Analyse a power stage + compensator; any signed-in user may (it writes nothing). */
+/**
+ * Analyse a power stage + compensator; any signed-in user may (it writes nothing).
+ * Bode arrays come rounded to 6 significant digits; `?arrays=0` or `output: { arrays: false }`
+ * leaves them out.
+ */
 export const POST = withUser(async (req) => {
   let body: unknown;
   try {
@@ -11,7 +16,10 @@ export const POST = withUser(async (req) => {
   } catch {
     throw new HttpError(400, 'The request body is not valid JSON', [{ path: '(body)', message: 'expected a JSON object' }]);
   }
+  const output = parseAnalyzeOutput(body, new URL(req.url));
   const parsed = parseAnalyzeRequest(body);
-  if (!parsed.ok) throw new HttpError(400, 'The request does not fit the analysis contract', parsed.issues);
-  return NextResponse.json(analyze(parsed.data));
+  const issues = [...(output.ok ? [] : output.issues), ...(parsed.ok ? [] : parsed.issues)];
+  if (!parsed.ok || !output.ok) throw new HttpError(400, 'The request does not fit the analysis contract', issues);
+  const { bode, ...rest } = analyze(parsed.data);
+  return NextResponse.json(output.data.arrays ? { ...rest, bode: roundBode(bode) } : rest);
 });

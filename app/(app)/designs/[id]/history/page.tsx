@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { listRemarks, listRevisions, listSignoffEvents, listSignoffStates, listTeamMembers } from '@/db/queries';
+import { getSignoffFacts, getTeamSignoffSettings, listRemarks, listRevisions, listSignoffEvents, listSignoffStates, listTeamMembers } from '@/db/queries';
+import { checkDecide, checkSubmit, eligibleReviewers, mayReview } from '@/lib/signoff-policy';
 import { can } from '@/lib/auth';
 import { loadDesignPage } from '@/lib/design-page';
 import type { RevisionSummary } from '@/lib/revision-summary';
@@ -69,11 +70,17 @@ export default async function HistoryPage({ params, searchParams }: Props) {
     })),
   ].sort((x, y) => x.at.localeCompare(y.at));
 
-  const reviewers = listTeamMembers(db, user.teamId)
-    .filter((m) => can.review(m.role) && m.userId !== selected.authorId && m.userId !== user.id)
+  // Who may do what is the sign-off policy's answer (lib/signoff-policy.ts); the routes ask it again.
+  const team = getTeamSignoffSettings(db, user.teamId);
+  const facts = getSignoffFacts(db, selected.id);
+  const actor = { id: user.id, role: user.role };
+  const reviewers = eligibleReviewers(listTeamMembers(db, user.teamId), team, user.id, selected.authorId)
     .map((m) => ({ id: m.userId, name: m.name, role: m.role }))
     .sort((a, b) => (a.role === b.role ? a.name.localeCompare(b.name) : a.role === 'reviewer' ? -1 : 1));
-  const isAuthor = selected.authorId === user.id;
+  const submit = checkSubmit(actor, team, facts, null);
+  const decide = checkDecide(actor, team, facts);
+  // A reviewer who may not decide here is told why (author, submitter, sent to someone else).
+  const decideBlockedReason = !decide.ok && state === 'in-review' && mayReview(user.role, team) ? decide.reason : null;
 
   return (
     <div className="space-y-4">
@@ -86,10 +93,10 @@ export default async function HistoryPage({ params, searchParams }: Props) {
         authorName={selected.authorName}
         timeline={timeline}
         reviewers={reviewers}
-        may={{ submit: can.editDesigns(user.role), decide: can.review(user.role), remark: can.remark(user.role) }}
+        may={{ submit: submit.ok, decide: decide.ok, remark: can.remark(user.role) }}
         waitingFor={waitingFor}
         compareWith={selected.baseNumber ?? (selected.number > 1 ? selected.number - 1 : null)}
-        decideBlockedReason={isAuthor ? `You wrote r${selected.number}, so someone else must approve it or request changes.` : null}
+        decideBlockedReason={decideBlockedReason}
       />
     </div>
   );

@@ -1,15 +1,18 @@
 import { NextResponse } from 'next/server';
 import { getDb } from '@/db/client';
 import { decideSignoff, getUserById } from '@/db/queries';
-import { can } from '@/lib/auth';
 import { parseJson, withUser } from '@/lib/api';
 import { notifyDecision } from '@/lib/notify';
+import { mayEverReview } from '@/lib/signoff-policy';
 import { requireRevision, runSignoff } from '@/lib/revision-access';
 import { decisionSchema } from '@/lib/validation/signoff';
 
 type P = { id: string; number: string };
 
-/** Approve or request changes on a revision in review; its author (and submitter) get a mail. */
+/**
+ * Approve or request changes on a revision in review; its author (and submitter) get a mail.
+ * Who may decide is lib/signoff-policy.ts's rule, checked in decideSignoff (403 / 422).
+ */
 export const POST = withUser<P>(
   async (req, { user, params }) => {
     const { design, ref } = requireRevision(user, params);
@@ -24,6 +27,7 @@ export const POST = withUser<P>(
           notifyDecision({
             to: { email: u.email, name: u.name },
             by: user.name,
+            teamId: user.teamId,
             revision: { designId: design.id, designName: design.name, number: ref.number },
             decision: body.decision,
             message: body.message,
@@ -32,5 +36,5 @@ export const POST = withUser<P>(
     );
     return NextResponse.json({ state: event.state, event, mailed: results.filter((r) => r.sent).length }, { status: 201 });
   },
-  { allow: can.review, action: 'approve or request changes' },
+  { allow: mayEverReview, action: 'approve or request changes' },
 );

@@ -1,7 +1,7 @@
 import { NextResponse } from 'next/server';
 import { getDb } from '@/db/client';
-import { getUserById, listTeamMembers, submitForReview } from '@/db/queries';
-import { can } from '@/lib/auth';
+import { getTeamSignoffSettings, getUserById, listTeamMembers, submitForReview } from '@/db/queries';
+import { eligibleReviewers, maySubmit } from '@/lib/signoff-policy';
 import { parseJson, withUser } from '@/lib/api';
 import { notifyReviewRequested } from '@/lib/notify';
 import { requireRevision, runSignoff } from '@/lib/revision-access';
@@ -12,21 +12,28 @@ type P = { id: string; number: string };
 /** Submit a revision for review to a reviewer of the team; the reviewer gets a mail. */
 export const POST = withUser<P>(
   async (req, { user, params }) => {
-    const { design, ref } = requireRevision(user, params);
+    const { design, revision, ref } = requireRevision(user, params);
     const body = await parseJson(req, submitForReviewSchema);
     const db = getDb();
-    const reviewers = new Set(listTeamMembers(db, user.teamId).filter((m) => can.review(m.role)).map((m) => m.userId));
-    const event = runSignoff(() =>
-      submitForReview(db, ref, { actorId: user.id, reviewerId: body.reviewerId, message: body.message, isReviewer: (id) => reviewers.has(id) }),
+    const event = runSignoff(() => submitForReview(db, ref, { actorId: user.id, reviewerId: body.reviewerId, message: body.message }));
+    // The named reviewer, or every member who may review when none is named.
+    const team = getTeamSignoffSettings(db, user.teamId);
+    const to =
+      body.reviewerId != null
+        ? [getUserById(db, body.reviewerId)].filter((u) => u !== undefined)
+        : eligibleReviewers(listTeamMembers(db, user.teamId), team, user.id, revision.authorId);
+    const results = await Promise.all(
+      to.map((r) =>
+        notifyReviewRequested({
+          to: { email: r.email, name: r.name },
+          by: user.name,
+          teamId: user.teamId,
+          revision: { designId: design.id, designName: design.name, number: ref.number },
+          message: body.message,
+        }),
+      ),
     );
-    const reviewer = getUserById(db, body.reviewerId)!;
-    const mail = await notifyReviewRequested({
-      to: { email: reviewer.email, name: reviewer.name },
-      by: user.name,
-      revision: { designId: design.id, designName: design.name, number: ref.number },
-      message: body.message,
-    });
-    return NextResponse.json({ state: event.state, event, mailed: mail.sent }, { status: 201 });
+    return NextResponse.json({ state: event.state, event, mailed: results.filter((m) => m.sent).length }, { status: 201 });
   },
-  { allow: can.editDesigns, action: 'submit revisions for review' },
+  { allow: maySubmit, action: 'submit revisions for review' },
 );
