@@ -74,6 +74,7 @@ export async function notifyAddedToTeam(m: { to: string; name: string; teamId: n
 export async function notifyRemark(m: {
   to: { email: string; name: string };
   by: string;
+  teamId: number;
   revision: RevisionMailRef;
   comparedWith: number | null;
   body: string;
@@ -85,6 +86,7 @@ export async function notifyRemark(m: {
     : await revisionUrl(m.revision);
   return sendMail({
     to: m.to.email,
+    teamId: m.teamId,
     subject: `Remark on ${label(m.revision)}`,
     paragraphs: [`Hello ${m.to.name},`, `${m.by} left a remark on ${label(m.revision)}${where}.`],
     quote: m.body,

@@ -173,7 +173,7 @@ export function SignoffPanel(p: SignoffPanelProps) {
 
           {p.state === 'in-review' && !canDecideNow && (
             <p className="rounded-md border-l-2 border-indigo-300 bg-indigo-50 px-3 py-2 text-sm text-indigo-900" data-testid="waiting-for">
-              Waiting for {p.waitingFor ?? 'the reviewer'} to approve r{p.number} or request changes.
+              Waiting for {p.waitingFor ?? 'a reviewer of the team'} to approve r{p.number} or request changes.
             </p>
           )}
 

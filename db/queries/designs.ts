@@ -24,17 +24,24 @@ export interface DesignListItem {
 export interface DesignListFilter {
   /** 'active' (default): not archived; 'archived': only archived; 'all'. */
   archived?: 'active' | 'archived' | 'all';
-  /** Only designs with a revision now in review that asks this user for the decision. */
+  /** Only designs with a revision now in review that waits for this user's decision. */
   waitingForUserId?: number;
+  /**
+   * With waitingForUserId: whether the user may decide on a submission that names nobody
+   * (the sign-off policy's mayReview for their role and team). Default false.
+   */
+  reviewsUnnamed?: boolean;
 }
 
 /**
- * A revision of d is in review with `userId` as the reviewer asked: its latest sign-off event is
- * 'in-review' naming them.
+ * A revision of d is in review waiting for `userId`: its latest sign-off event is 'in-review'
+ * naming them, or naming nobody when they may review such (and they neither wrote nor submitted it).
  */
-const waitingFor = (userId: number) => sql`EXISTS (
+const waitingFor = (userId: number, reviewsUnnamed: boolean) => sql`EXISTS (
   SELECT 1 FROM revisions wr JOIN signoff_events we ON we.revision_id = wr.id
-   WHERE wr.design_id = d.id AND we.state = 'in-review' AND we.reviewer_id = ${userId}
+   WHERE wr.design_id = d.id AND we.state = 'in-review'
+     AND (we.reviewer_id = ${userId}
+          OR (${reviewsUnnamed ? 1 : 0} = 1 AND we.reviewer_id IS NULL AND wr.author_id <> ${userId} AND we.actor_id <> ${userId}))
      AND we.id = (SELECT MAX(we2.id) FROM signoff_events we2 WHERE we2.revision_id = wr.id))`;
 
 function filterSql(f: DesignListFilter) {
@@ -42,7 +49,7 @@ function filterSql(f: DesignListFilter) {
   const archived = f.archived ?? 'active';
   if (archived === 'active') parts.push(sql`d.archived_at IS NULL`);
   if (archived === 'archived') parts.push(sql`d.archived_at IS NOT NULL`);
-  if (f.waitingForUserId !== undefined) parts.push(waitingFor(f.waitingForUserId));
+  if (f.waitingForUserId !== undefined) parts.push(waitingFor(f.waitingForUserId, f.reviewsUnnamed ?? false));
   return parts.length ? sql` AND ${sql.join(parts, sql` AND `)}` : sql``;
 }
 
@@ -72,9 +79,11 @@ export function listDesigns(db: Db, teamId: number, filter: DesignListFilter = {
 }
 
 /** How many designs of the team wait for this user's review (the count beside the filter). */
-export function countDesignsWaitingFor(db: Db, teamId: number, userId: number): number {
+export function countDesignsWaitingFor(db: Db, teamId: number, userId: number, reviewsUnnamed = false): number {
   return (
-    db.get<{ n: number }>(sql`SELECT count(*) AS n FROM designs d WHERE d.team_id = ${teamId}${filterSql({ waitingForUserId: userId })}`)?.n ?? 0
+    db.get<{ n: number }>(
+      sql`SELECT count(*) AS n FROM designs d WHERE d.team_id = ${teamId}${filterSql({ archived: 'all', waitingForUserId: userId, reviewsUnnamed })}`,
+    )?.n ?? 0
   );
 }
 

@@ -9,7 +9,7 @@ import { builtRequest, partsAreStandard } from './built-parts';
 import { buildDesignFile, designFileJson } from './design-file';
 import { EXPORT_CONTENT_TYPE, exportFileName, type ExportFormat } from './files';
 import { buildPartsList, partsListCsv } from './parts-list';
-import { buildReportHtml } from './report';
+import { buildReportHtml, type ReportInput } from './report';
 import { spiceNetlistFile } from './spice';
 
 export interface ExportContext {
@@ -19,6 +19,10 @@ export interface ExportContext {
   result: AnalyzeResult;
   teamName: string;
   now?: Date;
+  /** For the report: sign-off events, remarks and bench data of the revision. */
+  trail?: ReportInput['trail'];
+  remarks?: ReportInput['remarks'];
+  bench?: ReportInput['bench'];
 }
 
 export interface ExportFile {
@@ -53,6 +57,9 @@ export function buildExport(format: ExportFormat, ctx: ExportContext): ExportFil
         parts: parts(),
         teamName: ctx.teamName,
         generatedAt: ctx.now,
+        trail: ctx.trail,
+        remarks: ctx.remarks,
+        bench: ctx.bench,
       });
       break;
   }

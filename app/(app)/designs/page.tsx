@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import { getDb } from '@/db/client';
-import { countDesignsWaitingFor, listDesigns } from '@/db/queries';
+import { countDesignsWaitingFor, getTeamSignoffSettings, listDesigns } from '@/db/queries';
+import { mayReview } from '@/lib/signoff-policy';
 import { can, requireUser } from '@/lib/auth';
 import { DesignsTable } from '@/components/designs/designs-table';
 import { DesignListFilterTabs, type DesignListView } from '@/components/designs/list-filter';
@@ -19,11 +20,13 @@ export default async function DesignsPage({ searchParams }: { searchParams: Prom
   const { view: asked } = await searchParams;
   const view: DesignListView = asked === 'waiting' || asked === 'archived' ? asked : 'active';
   const db = getDb();
+  const reviewsUnnamed = mayReview(user.role, getTeamSignoffSettings(db, user.teamId));
   const designs = listDesigns(db, user.teamId, {
     archived: view === 'archived' ? 'archived' : view === 'waiting' ? 'all' : 'active',
     waitingForUserId: view === 'waiting' ? user.id : undefined,
+    reviewsUnnamed,
   });
-  const waitingCount = countDesignsWaitingFor(db, user.teamId, user.id);
+  const waitingCount = countDesignsWaitingFor(db, user.teamId, user.id, reviewsUnnamed);
   return (
     <div className="space-y-4">
       <div className="flex flex-wrap items-end justify-between gap-3">
@@ -34,7 +37,7 @@ export default async function DesignsPage({ searchParams }: { searchParams: Prom
             {view === 'waiting' ? ' waiting for your review' : ''}
           </p>
         </div>
-        <DesignListFilterTabs view={view} waitingCount={waitingCount} showWaiting={can.review(user.role) || waitingCount > 0} />
+        <DesignListFilterTabs view={view} waitingCount={waitingCount} showWaiting={user.role === 'reviewer' || reviewsUnnamed || waitingCount > 0} />
         {can.editDesigns(user.role) && <NewDesignButton />}
       </div>
       <DesignsTable designs={designs} emptyText={EMPTY[view]} />

@@ -1,6 +1,7 @@
 import { NextResponse } from 'next/server';
 import { getDb } from '@/db/client';
-import { createDesign, listDesigns } from '@/db/queries';
+import { createDesign, getTeamSignoffSettings, listDesigns } from '@/db/queries';
+import { mayReview } from '@/lib/signoff-policy';
 import { can } from '@/lib/auth';
 import { HttpError, parseJson, withUser } from '@/lib/api';
 import { zodIssues } from '@/lib/validation/analyze';
@@ -10,9 +11,13 @@ import { designCreateSchema, designListQuerySchema } from '@/lib/validation/desi
 export const GET = withUser(async (req, { user }) => {
   const q = designListQuerySchema.safeParse(Object.fromEntries(new URL(req.url).searchParams));
   if (!q.success) throw new HttpError(400, 'The list filter is not understood', zodIssues(q.error));
-  const designs = listDesigns(getDb(), user.teamId, {
-    archived: q.data.archived,
-    waitingForUserId: q.data.waiting === 'me' ? user.id : undefined,
+  const db = getDb();
+  const waiting = q.data.waiting === 'me';
+  const designs = listDesigns(db, user.teamId, {
+    // Waiting for me: wherever it is (an archived design in review still waits).
+    archived: waiting ? 'all' : q.data.archived,
+    waitingForUserId: waiting ? user.id : undefined,
+    reviewsUnnamed: waiting && mayReview(user.role, getTeamSignoffSettings(db, user.teamId)),
   });
   return NextResponse.json({ designs });
 });

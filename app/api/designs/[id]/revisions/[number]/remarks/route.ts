@@ -35,6 +35,7 @@ export const POST = withUser<P>(
           notifyRemark({
             to: { email: u.email, name: u.name },
             by: user.name,
+            teamId: user.teamId,
             revision: { designId: design.id, designName: design.name, number: ref.number },
             comparedWith: row.comparedWith,
             body: body.body,
