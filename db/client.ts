@@ -1,12 +1,14 @@
 import 'server-only';
-import { openDatabase, type Db } from './connection';
+import { openDatabase, type Db, type OpenDb } from './connection';
 
 // One connection per server process; kept on globalThis so dev reloads reuse it.
-const globalForDb = globalThis as unknown as { phasewrightDb?: Db };
+declare global {
+  var phasewrightDb: OpenDb | undefined;
+}
 
 export function getDb(): Db {
-  globalForDb.phasewrightDb ??= openDatabase();
-  return globalForDb.phasewrightDb;
+  globalThis.phasewrightDb ??= openDatabase();
+  return globalThis.phasewrightDb;
 }
 
 export type { Db };

@@ -6,6 +6,10 @@
  */
 import { relations, sql } from 'drizzle-orm';
 import { index, integer, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import { TOPOLOGIES, type AnalyzeRequest } from '../lib/engine/types';
+import type { BenchPoints } from '../lib/handoff/bench-parse';
+import type { RevisionSummary } from '../lib/revision-summary';
+import { SIGNOFF_STATES, type SignoffState } from '../lib/catalog/signoff';
 
 const createdAt = () =>
   integer('created_at', { mode: 'timestamp_ms' })
@@ -15,8 +19,7 @@ const createdAt = () =>
 export const ROLES = ['admin', 'designer', 'reviewer', 'viewer'] as const;
 export type Role = (typeof ROLES)[number];
 
-export const SIGNOFF_STATES = ['draft', 'in-review', 'approved', 'changes-requested'] as const;
-export type SignoffState = (typeof SIGNOFF_STATES)[number];
+export { SIGNOFF_STATES, type SignoffState };
 
 export const users = sqliteTable('users', {
   id: integer('id').primaryKey({ autoIncrement: true }),
@@ -62,7 +65,7 @@ export const designs = sqliteTable(
       .references(() => teams.id, { onDelete: 'cascade' }),
     name: text('name').notNull(),
     description: text('description').notNull().default(''),
-    topology: text('topology', { enum: ['buck', 'boost', 'buck-boost'] }).notNull(),
+    topology: text('topology', { enum: TOPOLOGIES }).notNull(),
     ownerId: integer('owner_id')
       .notNull()
       .references(() => users.id),
@@ -90,9 +93,9 @@ export const revisions = sqliteTable(
     /** The revision it was edited from (null for the first). */
     baseNumber: integer('base_number'),
     /** The full, validated analysis request (AnalyzeRequest). */
-    input: text('input', { mode: 'json' }).notNull(),
+    input: text('input', { mode: 'json' }).$type<AnalyzeRequest>().notNull(),
     /** Computed summary: operating point, margins, parts, checks (no Bode arrays). */
-    summary: text('summary', { mode: 'json' }).notNull(),
+    summary: text('summary', { mode: 'json' }).$type<RevisionSummary>().notNull(),
     authorId: integer('author_id')
       .notNull()
       .references(() => users.id),
@@ -154,8 +157,8 @@ export const benchData = sqliteTable(
      */
     revisionId: integer('revision_id').references(() => revisions.id, { onDelete: 'cascade' }),
     name: text('name').notNull(),
-    /** { f: number[], gainDb: number[], phaseDeg: number[] } */
-    points: text('points', { mode: 'json' }).notNull(),
+    /** As uploaded: frequency rising, Hz / dB / degrees. */
+    points: text('points', { mode: 'json' }).$type<BenchPoints>().notNull(),
     phaseShifted: integer('phase_shifted', { mode: 'boolean' }).notNull().default(false),
     uploadedBy: integer('uploaded_by')
       .notNull()
@@ -174,7 +177,7 @@ export const auditLog = sqliteTable(
     action: text('action').notNull(),
     entityType: text('entity_type').notNull(),
     entityId: integer('entity_id'),
-    detail: text('detail', { mode: 'json' }).notNull().default({}),
+    detail: text('detail', { mode: 'json' }).$type<Record<string, unknown>>().notNull().default({}),
     createdAt: createdAt(),
   },
   (t) => [index('audit_log_team').on(t.teamId)],

@@ -32,8 +32,7 @@ const DEMO_DESIGNS: { sample: string; name: string; description: string }[] = [
 ];
 
 export function seedDemo(db: Db) {
-  db.transaction((tx) => {
-    const t = tx as unknown as Db;
+  db.transaction((t) => {
     const team = t.select().from(teams).where(eq(teams.slug, DEMO_TEAM.slug)).get() ?? createTeam(t, DEMO_TEAM);
     const ids: Record<string, number> = {};
     for (const u of DEMO_USERS) {

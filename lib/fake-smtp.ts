@@ -5,7 +5,7 @@
  * ever relayed. Started by scripts/fake-smtp.ts (demo) and by the test setup.
  */
 import { SMTPServer } from 'smtp-server';
-import { openDatabase, type Db } from '@/db/connection';
+import { openDatabase, type OpenDb } from '@/db/connection';
 import { storeMail } from '@/db/queries/mailbox';
 import { parseMail } from './mime-parse';
 
@@ -26,7 +26,7 @@ export interface FakeSmtpOptions {
 }
 
 export function startFakeSmtp(opts: FakeSmtpOptions): Promise<FakeSmtp> {
-  const dbs = new Map<string, Db>();
+  const dbs = new Map<string, OpenDb>();
   const dbFor = () => {
     const file = typeof opts.database === 'function' ? opts.database() : opts.database;
     if (!file) throw new Error('the fake mail server has no database yet');

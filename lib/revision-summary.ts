@@ -7,3 +7,13 @@ export function summarizeAnalysis(r: AnalyzeResult) {
 }
 
 export type RevisionSummary = ReturnType<typeof summarizeAnalysis>;
+
+/** The answer to saving a revision: its number, base and the summary the server computed. */
+export function savedRevisionBody(
+  row: { id: number; number: number; baseNumber: number | null; note: string; createdAt: Date },
+  summary: RevisionSummary,
+) {
+  return { id: row.id, number: row.number, baseRevision: row.baseNumber, note: row.note, createdAt: row.createdAt, summary };
+}
+
+export type SavedRevisionBody = ReturnType<typeof savedRevisionBody>;

@@ -6,6 +6,8 @@ import os from 'node:os';
 import { analyze, analyzeLoop, preparePlant } from '@/lib/engine/analyze';
 import { partsFromShape, shapeFromParts } from '@/lib/engine/compensator';
 import { SAMPLE_DESIGNS } from '@/lib/engine/samples';
+import { simulateStepResponse } from '@/lib/engine/step-response';
+import { simulatorFor } from '@/lib/engine/switching-check';
 import type { CompensatorShape } from '@/lib/engine/types';
 import { tuneDragCase } from '@/components/tune/drag-bench';
 
@@ -17,6 +19,9 @@ export interface BenchCase {
   batch: number;
   /** One call of the operation; `i` is the running call number. */
   run: (i: number) => unknown;
+  /** Timed batches and warm-up calls (defaults 400 and 3000; fewer for long cases). */
+  batches?: number;
+  warmup?: number;
 }
 
 let sink: unknown;
@@ -64,6 +69,36 @@ const dragCase = (): BenchCase => {
 };
 
 /** Machine speed: the transcendental work of one 400-point sweep, to compare runs across machines and loads. */
+/** The switching check's core: 2,000 cycles of the buck sample in closed loop (Type III, voltage mode, 20 samples a cycle). */
+const switchingCase = (): BenchCase => {
+  const req = SAMPLE_DESIGNS[0].request;
+  const sim = simulatorFor(req, preparePlant(req));
+  let samples = 0;
+  return {
+    name: 'switching: 2,000 cycles of the buck sample (closed loop, exact per interval, 40,000 samples)',
+    targetUs: 2_000_000,
+    batch: 1,
+    batches: 7,
+    warmup: 1,
+    run: () => {
+      sim.runCycles(2000, () => samples++);
+      return samples;
+    },
+  };
+};
+
+/** The averaged load step of each sample (state-space loop, 1,200 points, settling window found). */
+const stepCase: BenchCase = {
+  name: 'step response (averaged loop) of a sample, load step to full load',
+  batch: 1,
+  batches: 30,
+  warmup: 3,
+  run: (i) => {
+    const r = requests[i % requests.length];
+    return simulateStepResponse(r, { kind: 'load', from: r.converter.iout / 2, to: r.converter.iout });
+  },
+};
+
 const referenceCase: BenchCase = {
   name: 'reference: 400 × (Math.atan2 + Math.log10), no engine code',
   batch: 10,
@@ -92,6 +127,8 @@ export const BENCH_CASES: BenchCase[] = [
   },
   dragCase(),
   tuneDragCase(),
+  stepCase,
+  switchingCase(),
 ];
 
 const main = () => {
@@ -99,7 +136,7 @@ const main = () => {
   console.log(`Phasewright engine benchmark — node ${process.version}, ${os.cpus().length} cores, load average ${load.toFixed(1)}`);
   if (load > os.cpus().length) console.log('  (the machine is busy: medians include other processes; "best" is closer to the engine alone)');
   for (const c of BENCH_CASES) {
-    const { medianUs, p90Us, bestUs } = measure(c);
+    const { medianUs, p90Us, bestUs } = measure(c, c.batches, c.warmup);
     const verdict =
       c.targetUs === undefined ? 'reference' : `target ${c.targetUs} µs: ${medianUs <= c.targetUs ? 'within target' : 'ABOVE target'}`;
     console.log(`- ${c.name}\n    median ${medianUs.toFixed(1)} µs (best ${bestUs.toFixed(1)}, p90 ${p90Us.toFixed(1)}); ${verdict}`);

@@ -23,6 +23,9 @@
  *   (Tune passes its handles, where the overlay draws them).
  * - `freezeRanges`: keep the current axis ranges and label places (Tune sets
  *   it while a handle is dragged so the plot does not jump under the pointer).
+ * - `holdRangesKey`: while this key stays the same, the magnitude range is kept unless the
+ *   curves leave it by more than 20 dB (Tune: a gain edit does not rescale the axis, so a
+ *   handle dragged up and back by the same pixels moves by the same dB each way).
  * - `overlay(geometry)`: rendered above the plot with a PlotGeometry mapping
  *   Hz/dB/degrees ↔ pixels (the Tune handles use it).
  * - `showLegend` (default true), `height` (px, default 460).
@@ -63,6 +66,7 @@ export interface BodePlotProps {
   extraTraces?: Data[];
   labelObstacles?: LabelObstacles;
   freezeRanges?: boolean;
+  holdRangesKey?: string;
   overlay?: (geometry: PlotGeometry) => React.ReactNode;
   showLegend?: boolean;
   height?: number;
@@ -73,14 +77,22 @@ export interface BodePlotProps {
 const asList = <T,>(v: T | T[] | undefined): T[] | undefined => (v === undefined ? undefined : Array.isArray(v) ? v : [v]);
 
 export function BodePlot(props: BodePlotProps) {
-  const { f, series, markers, extraTraces, labelObstacles, freezeRanges = false, overlay, showLegend = true, height = 460, className } = props;
+  const { f, series, markers, extraTraces, labelObstacles, freezeRanges = false, holdRangesKey, overlay, showLegend = true, height = 460, className } = props;
   const bench = useMemo(() => asList(props.bench), [props.bench]);
   const margins = useMemo(() => asList(props.margins), [props.margins]);
   const [width, setWidth] = useState(0);
   const frozen = useRef<Ranges | null>(null);
   const frozenLabels = useRef<Partial<Annotation>[] | null>(null);
 
-  const fresh = useMemo(() => computeRanges({ f, series, bench }), [f, series, bench]);
+  const held = useRef<{ key: string; mag: [number, number] } | null>(null);
+  const fresh = useMemo(() => {
+    const r = computeRanges({ f, series, bench });
+    if (holdRangesKey === undefined) return r;
+    const h = held.current;
+    if (h && h.key === holdRangesKey && r.mag[0] >= h.mag[0] - 20 && r.mag[1] <= h.mag[1] + 20) return { ...r, mag: h.mag };
+    held.current = { key: holdRangesKey, mag: r.mag };
+    return r;
+  }, [f, series, bench, holdRangesKey]);
   if (!freezeRanges || !frozen.current) frozen.current = fresh;
   const ranges = frozen.current;
 

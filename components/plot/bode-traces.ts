@@ -3,6 +3,7 @@
  * (no React, no Plotly import), so the drag benchmark can time them too.
  * See bode-plot.tsx for what each prop means.
  */
+import { TRACE_COLORS } from '@/lib/catalog/traces';
 import type { Annotation, Data, Layout } from 'plotly.js-dist-min';
 import { formatSi } from '@/lib/units/si';
 import { MAG_DOMAIN, PHASE_DOMAIN, plotMargin, type PlotGeometry, type Ranges } from './geometry';
@@ -55,9 +56,9 @@ export interface BodeContent {
   extraTraces?: Data[];
 }
 
-export const BENCH_GREY = '#6b7280';
-const GUIDE = '#94a3b8';
-const GRID = '#e2e8f0';
+export const BENCH_GREY = TRACE_COLORS.bench;
+const GUIDE = TRACE_COLORS.guide;
+const GRID = TRACE_COLORS.grid;
 
 /** Range holding the values (and `must`), widened to whole `step`s plus `pad`, so no tick sits on an edge. */
 function niceRange(values: Iterable<number>, step: number, pad: number, fallback: [number, number], must: number): [number, number] {
@@ -117,7 +118,7 @@ function line(x: number[], y: number[], xaxis: string, yaxis: string, color: str
 }
 
 function marginTraces(m: MarginMarks, r: Ranges): Data[] {
-  const color = m.color ?? '#4f46e5';
+  const color = m.color ?? TRACE_COLORS.loop;
   const pre = m.label ? `${m.label} ` : '';
   const out: Data[] = [];
   if (m.crossoverHz !== null) {
@@ -222,7 +223,7 @@ export function buildBodeLayout(r: Ranges, height: number, showLegend: boolean, 
     margin: { ...plotMargin(showLegend), pad: 0 },
     paper_bgcolor: '#ffffff',
     plot_bgcolor: '#ffffff',
-    font: { family: 'Inter Variable, system-ui, sans-serif', size: 12, color: '#334155' },
+    font: { family: 'Inter Variable, system-ui, sans-serif', size: 12, color: TRACE_COLORS.text },
     showlegend: showLegend,
     legend: { orientation: 'h', x: 0, y: 1, yanchor: 'bottom', font: { size: 11 }, itemclick: false, itemdoubleclick: false },
     hovermode: 'closest',
@@ -272,7 +273,7 @@ function plotLabels(c: BodeContent): PlotLabel[] {
   const fcs: PlotLabel[] = [];
   const bars: PlotLabel[] = [];
   (c.margins ?? []).forEach((m, i) => {
-    const color = m.color ?? '#4f46e5';
+    const color = m.color ?? TRACE_COLORS.loop;
     const pre = m.label ? `${m.label} ` : '';
     if (m.crossoverHz !== null) {
       const fc = m.crossoverHz;

@@ -2,6 +2,7 @@
 
 import { useMemo, useState } from 'react';
 import { BodePlot, type BodeSeries, type MarginMarks } from '@/components/plot/bode-plot';
+import { COMPARE_COLORS } from '@/lib/catalog/traces';
 import type { BodeData, Margins } from '@/lib/engine/types';
 
 export interface CompareLoop {
@@ -11,10 +12,7 @@ export interface CompareLoop {
 }
 
 // A is the reference (older) and drawn in a muted dashed line, B in the loop colour, solid.
-const STYLE = {
-  a: { loop: '#64748b', plant: '#5eead4', comp: '#fcd34d', dash: 'dash' as const, width: 2 },
-  b: { loop: '#4f46e5', plant: '#0d9488', comp: '#d97706', dash: 'solid' as const, width: 2.5 },
-};
+const STYLE = COMPARE_COLORS;
 
 /** Both loop gains on one Bode plot, with each one's fc, PM and GM marked. */
 export function ComparePlot({ a, b }: { a: CompareLoop; b: CompareLoop }) {
@@ -27,7 +25,7 @@ export function ComparePlot({ a, b }: { a: CompareLoop; b: CompareLoop }) {
       out.push({ id: `${side}-loop`, name: `${loop.label} loop gain`, color: s.loop, magDb: loop.bode.loop.magDb, phaseDeg: loop.bode.loop.phaseDeg, ...common });
       out.push(
         { id: `${side}-plant`, name: `${loop.label} power stage`, color: s.plant, magDb: loop.bode.plant.magDb, phaseDeg: loop.bode.plant.phaseDeg, visible: parts, ...common, width: 1.5 },
-        { id: `${side}-comp`, name: `${loop.label} compensator`, color: s.comp, magDb: loop.bode.compensator.magDb, phaseDeg: loop.bode.compensator.phaseDeg, visible: parts, ...common, width: 1.5 },
+        { id: `${side}-comp`, name: `${loop.label} compensator`, color: s.compensator, magDb: loop.bode.compensator.magDb, phaseDeg: loop.bode.compensator.phaseDeg, visible: parts, ...common, width: 1.5 },
       );
     }
     return out;

@@ -1,5 +1,6 @@
 'use client';
 
+import type { SignoffState } from '@/lib/catalog/signoff';
 import Link from 'next/link';
 import { useState } from 'react';
 import { SignoffBadge } from '@/components/designs/signoff-badge';
@@ -15,7 +16,7 @@ export interface RevisionRow {
   crossoverHz: number | null;
   phaseMarginDeg: number | null;
   gainMarginDb: number | null;
-  state: string;
+  state: SignoffState;
 }
 
 /** Revisions newest first; tick two to Compare, click a number to open its sign-off. */

@@ -1,5 +1,6 @@
 'use client';
 
+import type { SignoffState } from '@/lib/catalog/signoff';
 import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { useState, useTransition } from 'react';
@@ -20,7 +21,7 @@ export interface TimelineItem {
 export interface SignoffPanelProps {
   designId: number;
   number: number;
-  state: string;
+  state: SignoffState;
   authorName: string;
   timeline: TimelineItem[];
   reviewers: { id: number; name: string; role: string }[];

@@ -4,7 +4,7 @@ import { useState } from 'react';
 import type { CompensatorShape, CompensatorType } from '@/lib/engine/types';
 import { formatSi } from '@/lib/units/si';
 import type { HandleMove } from './handle-overlay';
-import { moveFrequency, shiftGain, type HandleSpec } from './handles';
+import { moveFrequency, setGainAt, type HandleSpec } from './handles';
 import { parseSiField, toSiText } from './si-schema';
 import { ValueCell } from './value-cell';
 
@@ -22,7 +22,6 @@ const STEP_DECADE_BIG = 1 / 8;
 interface Props {
   shape: CompensatorShape;
   handles: HandleSpec[];
-  midbandGainDb: number | null;
   readOnly: boolean;
   /** Apply a new shape; returns the reason it cannot be built, or null. */
   onShape: (shape: CompensatorShape) => string | null;
@@ -31,7 +30,7 @@ interface Props {
 }
 
 /** The handles as numbers: type, gain, each zero and pole, and R1, editable by keyboard. */
-export function CompensatorTable({ shape, handles, midbandGainDb, readOnly, onShape, onStep, onTypeChange }: Props) {
+export function CompensatorTable({ shape, handles, readOnly, onShape, onStep, onTypeChange }: Props) {
   const [typeError, setTypeError] = useState<string | null>(null);
   const hzStep = (id: string, hz: number) => (sign: 1 | -1, big: boolean) => onStep(id, { hz: hz * 10 ** (sign * (big ? STEP_DECADE_BIG : STEP_DECADE)) });
 
@@ -41,10 +40,11 @@ export function CompensatorTable({ shape, handles, midbandGainDb, readOnly, onSh
     return onShape(moveFrequency(shape, h.id, r.value));
   };
 
-  const setGainDb = (text: string) => {
+  const setGainDb = (h: HandleSpec) => (text: string) => {
     const v = Number(text.replace(/\s*dB$/i, '').replace('−', '-'));
-    if (!Number.isFinite(v) || text.trim() === '') return `Mid-band gain: "${text}" is not a number of dB`;
-    return onShape(shiftGain(shape, v - (midbandGainDb ?? 0)));
+    if (!Number.isFinite(v) || text.trim() === '') return `${h.label}: "${text}" is not a number of dB`;
+    const next = setGainAt(shape, h.hz, v);
+    return next ? onShape(next) : 'the compensator cannot be built as it is; fix its poles and zeros first';
   };
 
   const setIntegrator = (text: string) => {
@@ -95,27 +95,17 @@ export function CompensatorTable({ shape, handles, midbandGainDb, readOnly, onSh
                 <span className="mr-1.5 inline-block w-4 text-center font-semibold text-amber-600" aria-hidden>
                   {GLYPH[h.kind]}
                 </span>
-                {h.kind === 'gain' ? (midbandGainDb === null ? 'Integrator 0 dB' : 'Mid-band gain') : h.label}
+                {h.label}
               </td>
-              <td className="text-xs text-slate-500">{h.parts}</td>
+              <td className="text-xs text-slate-500">{h.kind === 'gain' ? `|Gc| here; sets ${h.parts}` : h.parts}</td>
               <td className="flex justify-end">
-                {h.kind === 'gain' && midbandGainDb !== null ? (
+                {h.kind === 'gain' ? (
                   <ValueCell
-                    label="Mid-band gain in dB"
-                    display={`${midbandGainDb.toFixed(2)} dB`}
-                    editText={midbandGainDb.toFixed(2)}
+                    label={`Compensator gain at ${formatSi(h.hz, 'Hz')} in dB`}
+                    display={h.gainDb == null ? '—' : `${h.gainDb.toFixed(2)} dB`}
+                    editText={h.gainDb == null ? '' : h.gainDb.toFixed(2)}
                     disabled={readOnly}
-                    onCommit={setGainDb}
-                    onStep={(sign, big) => onStep('gain', { deltaDb: sign * (big ? 3 : 0.5) })}
-                    testId="value-gain"
-                  />
-                ) : h.kind === 'gain' ? (
-                  <ValueCell
-                    label="Integrator 0 dB frequency in Hz"
-                    display={formatSi(shape.integratorHz, 'Hz', 4)}
-                    editText={toSiText(shape.integratorHz)}
-                    disabled={readOnly}
-                    onCommit={setIntegrator}
+                    onCommit={setGainDb(h)}
                     onStep={(sign, big) => onStep('gain', { deltaDb: sign * (big ? 3 : 0.5) })}
                     testId="value-gain"
                   />
@@ -133,6 +123,23 @@ export function CompensatorTable({ shape, handles, midbandGainDb, readOnly, onSh
               </td>
             </tr>
           ))}
+          <tr data-row="integrator">
+            <td>
+              <span className="mr-1.5 inline-block w-4" aria-hidden />
+              Integrator 0 dB
+            </td>
+            <td className="text-xs text-slate-500">1/(2π·R1·(C1+C2)): the low-frequency gain; the ◆ handle moves it</td>
+            <td className="flex justify-end">
+              <ValueCell
+                label="Integrator 0 dB frequency in Hz"
+                display={formatSi(shape.integratorHz, 'Hz', 4)}
+                editText={toSiText(shape.integratorHz)}
+                disabled={readOnly}
+                onCommit={setIntegrator}
+                testId="value-integrator"
+              />
+            </td>
+          </tr>
           <tr data-row="r1">
             <td>
               <span className="mr-1.5 inline-block w-4" aria-hidden />

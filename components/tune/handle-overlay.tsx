@@ -3,13 +3,15 @@
 import { useRef, useState } from 'react';
 import { formatSi } from '@/lib/units/si';
 import type { PlotGeometry } from '@/components/plot/bode-plot';
-import type { HandleSpec } from './handles';
+import type { DragScale, HandleMove, HandleSpec } from './handles';
 
-export interface HandleMove {
-  /** New frequency for a zero or pole, Hz. */
-  hz?: number;
-  /** Gain change for the gain handle, dB, counted from the start of the drag (or one key step). */
-  deltaDb?: number;
+export type { HandleMove } from './handles';
+
+/** A pointer drag so far: the offset from where it started, px, and the plot's scale. */
+export interface DragOffset {
+  dxPx: number;
+  dyPx: number;
+  scale: DragScale;
 }
 
 export interface PlacedHandle extends HandleSpec {
@@ -22,9 +24,8 @@ interface Props {
   handles: PlacedHandle[];
   color: string;
   disabled: boolean;
-  midbandGainDb: number | null;
   onDragStart: (id: string) => void;
-  onDrag: (id: string, move: HandleMove) => void;
+  onDrag: (id: string, offset: DragOffset) => void;
   onDragEnd: (id: string) => void;
   /** One keyboard step, applied at once. */
   onStep: (id: string, move: HandleMove) => void;
@@ -79,9 +80,9 @@ export function placeHandles(handles: PlacedHandle[], g: PlotGeometry) {
  * move sideways (frequency); the gain handle moves up and down. Each handle
  * is a focusable slider: arrow keys step it (Shift for larger steps).
  */
-export function HandleOverlay({ geometry: g, handles, color, disabled, midbandGainDb, onDragStart, onDrag, onDragEnd, onStep }: Props) {
+export function HandleOverlay({ geometry: g, handles, color, disabled, onDragStart, onDrag, onDragEnd, onStep }: Props) {
   const boxRef = useRef<HTMLDivElement>(null);
-  const drag = useRef<{ id: string; pointerId: number; startY: number } | null>(null);
+  const drag = useRef<{ id: string; pointerId: number; startX: number; startY: number; handleX: number } | null>(null);
   const [active, setActive] = useState<string | null>(null);
   const fMin = 10 ** g.ranges.x[0];
   const fMax = 10 ** g.ranges.x[1];
@@ -96,7 +97,8 @@ export function HandleOverlay({ geometry: g, handles, color, disabled, midbandGa
     e.preventDefault();
     e.currentTarget.focus();
     e.currentTarget.setPointerCapture(e.pointerId);
-    drag.current = { id: h.id, pointerId: e.pointerId, startY: local(e).y };
+    const p = local(e);
+    drag.current = { id: h.id, pointerId: e.pointerId, startX: p.x, startY: p.y, handleX: g.hzToX(h.hz) };
     setActive(h.id);
     onDragStart(h.id);
   };
@@ -105,8 +107,17 @@ export function HandleOverlay({ geometry: g, handles, color, disabled, midbandGa
     const d = drag.current;
     if (!d || d.id !== h.id || d.pointerId !== e.pointerId) return;
     const p = local(e);
-    if (h.kind === 'gain') onDrag(h.id, { deltaDb: g.yToDb(p.y) - g.yToDb(d.startY) });
-    else onDrag(h.id, { hz: Math.min(fMax, Math.max(fMin, g.xToHz(Math.min(g.right, Math.max(g.left, p.x))))) });
+    // Relative to where the drag started (the ranges are held during a drag), so a drag back
+    // by the same pixels returns exactly; a zero or pole stays inside the plot.
+    const scale: DragScale = {
+      pxPerDecade: (g.right - g.left) / (g.ranges.x[1] - g.ranges.x[0]),
+      pxPerDb: Math.abs(g.dbToY(0) - g.dbToY(1)),
+    };
+    if (h.kind === 'gain') onDrag(h.id, { dxPx: 0, dyPx: p.y - d.startY, scale });
+    else {
+      const dx = Math.min(g.right - d.handleX, Math.max(g.left - d.handleX, p.x - d.startX));
+      onDrag(h.id, { dxPx: dx, dyPx: 0, scale });
+    }
   };
 
   const endDrag = (h: PlacedHandle) => (e: React.PointerEvent<HTMLDivElement>) => {
@@ -137,12 +148,7 @@ export function HandleOverlay({ geometry: g, handles, color, disabled, midbandGa
       {handles.map((h) => {
         const { x, y, outside } = positions.get(h.id)!;
         const index = /\d$/.exec(h.label)?.[0];
-        const value =
-          h.kind === 'gain'
-            ? midbandGainDb !== null
-              ? `${midbandGainDb.toFixed(1)} dB mid-band`
-              : `integrator at ${formatSi(h.hz, 'Hz')}`
-            : formatSi(h.hz, 'Hz');
+        const value = h.kind === 'gain' ? (h.gainDb == null ? '—' : `${h.gainDb.toFixed(1).replace(/^-/, '−')} dB, sets the integrator`) : formatSi(h.hz, 'Hz');
         const isActive = active === h.id;
         return (
           <div
@@ -151,7 +157,7 @@ export function HandleOverlay({ geometry: g, handles, color, disabled, midbandGa
             tabIndex={disabled ? -1 : 0}
             aria-label={`${h.label} handle (${h.parts})`}
             aria-valuetext={value}
-            aria-valuenow={h.kind === 'gain' ? (midbandGainDb ?? 0) : h.hz}
+            aria-valuenow={h.kind === 'gain' ? (h.gainDb ?? 0) : h.hz}
             aria-valuemin={h.kind === 'gain' ? -100 : fMin}
             aria-valuemax={h.kind === 'gain' ? 100 : fMax}
             aria-orientation={h.kind === 'gain' ? 'vertical' : 'horizontal'}

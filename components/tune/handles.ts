@@ -16,6 +16,7 @@
  */
 import { compensatorTransfer, partsFromShape, shapeFromParts } from '@/lib/engine/compensator';
 import { transferEvaluator } from '@/lib/engine/sweep';
+import { formatSi } from '@/lib/units/si';
 import { EngineInputError, type CompensatorInput, type CompensatorShape, type CompensatorType, type FieldIssue } from '@/lib/engine/types';
 
 export type HandleKind = 'zero' | 'pole' | 'gain';
@@ -29,6 +30,8 @@ export interface HandleSpec {
   label: string;
   /** The parts this handle sets. */
   parts: string;
+  /** Gain handle: |Gc| at its frequency, dB (what the compensator curve shows there). */
+  gainDb?: number | null;
 }
 
 function poleZeroParts(shape: CompensatorShape): { zeros: string[]; poles: string[] } {
@@ -79,7 +82,8 @@ export function handlesOf(shape: CompensatorShape, anchorHz: number | null): Han
       parts: names.poles[i] ?? '',
     })),
   ];
-  out.push({ id: 'gain', kind: 'gain', hz: gainHandleHz(shape, anchorHz), label: 'Gain', parts: 'integrator, R1·(C1+C2)' });
+  const hz = gainHandleHz(shape, anchorHz);
+  out.push({ id: 'gain', kind: 'gain', hz, label: `Gain at ${formatSi(hz, 'Hz')}`, parts: 'the integrator, R1·(C1+C2)', gainDb: compensatorGainDbAt(shape, hz) });
   return out;
 }
 
@@ -112,17 +116,38 @@ export interface DragScale {
   pxPerDb: number;
 }
 
+/** A handle's move: a new frequency for a zero or pole, or a gain change in dB for the gain handle. */
+export interface HandleMove {
+  /** New frequency for a zero or pole, Hz. */
+  hz?: number;
+  /** Gain change for the gain handle, dB, counted from the start of the drag (or one key step). */
+  deltaDb?: number;
+}
+
+const handleHz = (shape: CompensatorShape, id: string): number | undefined =>
+  id.startsWith('z') ? shape.zerosHz[Number(id.slice(1))] : id.startsWith('p') ? shape.polesHz[Number(id.slice(1))] : undefined;
+
 /**
- * A handle moved by a pointer offset from where the drag started (screen px; y grows
- * downwards): a zero or pole by dx/pxPerDecade decades, the gain by −dy/pxPerDb dB. Moves are
- * relative to the handle, never to the pointer's absolute place, so with the same scale a
+ * The move of a pointer offset from where the drag started (screen px; y grows downwards): a
+ * zero or pole by dx/pxPerDecade decades from where it was, the gain by −dy/pxPerDb dB. Moves
+ * are relative to the handle, never to the pointer's absolute place, so with the same scale a
  * drag of +a px followed by one of −a px returns to the start (up to rounding, ~1e-15).
  */
+export function moveFromDrag(base: CompensatorShape, id: string, dxPx: number, dyPx: number, scale: DragScale): HandleMove {
+  if (id === 'gain') return { deltaDb: -dyPx / scale.pxPerDb };
+  const hz = handleHz(base, id);
+  return hz === undefined ? {} : { hz: hz * 10 ** (dxPx / scale.pxPerDecade) };
+}
+
+/** The shape after a handle's move. */
+export function applyMove(base: CompensatorShape, id: string, move: HandleMove): CompensatorShape {
+  if (id === 'gain') return shiftGain(base, move.deltaDb ?? 0);
+  return move.hz !== undefined ? moveFrequency(base, id, move.hz) : base;
+}
+
+/** A drag applied to the shape it started from (see moveFromDrag). */
 export function dragShape(base: CompensatorShape, id: string, dxPx: number, dyPx: number, scale: DragScale): CompensatorShape {
-  if (id === 'gain') return shiftGain(base, -dyPx / scale.pxPerDb);
-  const handle = id.startsWith('z') ? base.zerosHz[Number(id.slice(1))] : base.polesHz[Number(id.slice(1))];
-  if (handle === undefined) return base;
-  return moveFrequency(base, id, handle * 10 ** (dxPx / scale.pxPerDecade));
+  return applyMove(base, id, moveFromDrag(base, id, dxPx, dyPx, scale));
 }
 
 /** Parts a compensator type has, in the order of the parts list. */

@@ -1,7 +1,7 @@
 import { formatSi } from '@/lib/units/si';
 import type { Margins } from '@/lib/engine/types';
 
-type Tone = 'good' | 'caution' | 'risk' | 'none';
+import { marginTone, type MarginTone as Tone } from '@/lib/catalog/margins';
 
 const TONE: Record<Tone, string> = {
   good: 'text-emerald-700',
@@ -10,10 +10,8 @@ const TONE: Record<Tone, string> = {
   none: 'text-slate-400',
 };
 
-// Common practice: PM ≥ 45° and GM ≥ 10 dB are comfortable; below 30° / 6 dB is a risk.
-// Judged on the value as shown (0.1°), as the Checks are.
-const pmTone = (pm: number | null): Tone => (pm === null ? 'none' : Math.round(pm * 10) / 10 < 30 ? 'risk' : Math.round(pm * 10) / 10 < 45 ? 'caution' : 'good');
-const gmTone = (gm: number | null): Tone => (gm === null ? 'none' : gm < 6 ? 'risk' : gm < 10 ? 'caution' : 'good');
+const pmTone = (pm: number | null): Tone => marginTone('phaseMarginDeg', pm);
+const gmTone = (gm: number | null): Tone => marginTone('gainMarginDb', gm);
 
 function Item({ label, value, tone = 'none', hint, testId }: { label: string; value: string; tone?: Tone; hint?: string; testId: string }) {
   return (

@@ -3,9 +3,12 @@
 import { memo } from 'react';
 import { E_SERIES_NAMES, type ESeriesName, type PartsOptions, type PartsResult, type Topology } from '@/lib/engine/types';
 import { formatSi } from '@/lib/units/si';
+import type { PartKey } from './handles';
+import { parseSiField, toSiText } from './si-schema';
+import { ValueCell } from './value-cell';
 
 const ROWS: { key: keyof PartsResult['ideal']; name: string; unit: 'Ω' | 'F'; role: string }[] = [
-  { key: 'r1', name: 'R1', unit: 'Ω', role: 'output to inverting input (held fixed)' },
+  { key: 'r1', name: 'R1', unit: 'Ω', role: 'output to inverting input' },
   { key: 'r2', name: 'R2', unit: 'Ω', role: 'feedback, in series with C1' },
   { key: 'c1', name: 'C1', unit: 'F', role: 'feedback, in series with R2' },
   { key: 'c2', name: 'C2', unit: 'F', role: 'across the feedback path' },
@@ -29,17 +32,29 @@ function SeriesSelect({ id, label, value, disabled, onChange }: { id: string; la
   );
 }
 
-/** Ideal and snapped compensator parts, with the standard series chosen for R and C. */
+/**
+ * Compensator parts both ways: each value can be typed (SI prefixes; the poles and zeros
+ * follow), one part is locked (it keeps its value while the handles move the others), and the
+ * standard value each snaps to in the chosen series.
+ */
 export const PartsTable = memo(function PartsTable({
   parts,
   topology,
   readOnly,
+  lock,
   onSeriesChange,
+  onPartChange,
+  onLockChange,
 }: {
   parts: PartsResult;
   topology: Topology;
   readOnly: boolean;
+  /** The part that holds its value while the handles move. */
+  lock: PartKey;
   onSeriesChange: (options: PartsOptions) => void;
+  /** Apply a typed part value; returns the reason it cannot be used, or null. */
+  onPartChange: (part: PartKey, value: number) => string | null;
+  onLockChange: (part: PartKey) => void;
 }) {
   const options: PartsOptions = { resistorSeries: parts.resistorSeries, capacitorSeries: parts.capacitorSeries };
   const rows = ROWS.filter((r) => parts.ideal[r.key] !== null && !(r.key === 'c2' && parts.ideal.c2 === 0));
@@ -53,7 +68,8 @@ export const PartsTable = memo(function PartsTable({
         <thead>
           <tr>
             <th>Part</th>
-            <th className="text-right">Ideal</th>
+            <th className="text-center" title="The locked part keeps its value while the handles move the others">Lock</th>
+            <th className="text-right">Value</th>
             <th className="text-right">Snapped</th>
             <th className="text-right">Δ</th>
           </tr>
@@ -63,14 +79,48 @@ export const PartsTable = memo(function PartsTable({
             const ideal = parts.ideal[r.key] as number;
             const snapped = parts.snapped[r.key] as number;
             const delta = ideal > 0 ? (snapped / ideal - 1) * 100 : 0;
+            const key = r.key as PartKey;
+            const editable = r.key !== 'rb';
+            const lockable = editable && ideal > 0;
             return (
               <tr key={r.key} data-part={r.key}>
                 <td>
                   <span className="font-medium">{r.name}</span>
                   <span className="block text-[11px] text-slate-500">{r.role}</span>
                 </td>
+                <td className="text-center">
+                  {lockable && (
+                    <input
+                      type="radio"
+                      name="part-lock"
+                      className="h-3.5 w-3.5"
+                      aria-label={`Lock ${r.name}: it keeps its value while the handles move`}
+                      checked={lock === key}
+                      disabled={readOnly}
+                      onChange={() => onLockChange(key)}
+                      data-testid={`part-${r.key}-lock`}
+                    />
+                  )}
+                </td>
                 <td className="num whitespace-nowrap text-right font-mono" data-testid={`part-${r.key}-ideal`}>
-                  {formatSi(ideal, r.unit, 4)}
+                  {editable ? (
+                    <div className="flex justify-end">
+                      <ValueCell
+                        label={`${r.name} in ${r.unit === 'Ω' ? 'ohms' : 'farads'}`}
+                        display={formatSi(ideal, r.unit, 4)}
+                        editText={toSiText(ideal)}
+                        disabled={readOnly}
+                        width="w-24"
+                        onCommit={(text) => {
+                          const v = parseSiField(text, r.name, r.unit);
+                          return 'error' in v ? v.error : onPartChange(key, v.value);
+                        }}
+                        testId={`part-${r.key}-value`}
+                      />
+                    </div>
+                  ) : (
+                    formatSi(ideal, r.unit, 4)
+                  )}
                 </td>
                 <td className="num whitespace-nowrap text-right font-mono font-semibold" data-testid={`part-${r.key}-snapped`}>
                   {formatSi(snapped, r.unit)}
@@ -84,6 +134,7 @@ export const PartsTable = memo(function PartsTable({
           })}
         </tbody>
       </table>
+      <p className="text-[11px] text-slate-500">Type a value (4.7n, 22k) and the poles and zeros follow. The locked part keeps its value while you drag the handles.</p>
       {parts.ideal.rb === null || !(parts.ideal.rb > 0) ? (
         <p className="text-xs text-red-700">No lower divider resistor: Vref must be below |Vout|.</p>
       ) : null}

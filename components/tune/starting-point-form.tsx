@@ -1,6 +1,7 @@
 'use client';
 
 import { zodResolver } from '@hookform/resolvers/zod';
+import { useEffect } from 'react';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
 import type { StartingPointMethod } from '@/lib/engine/starting-point';
@@ -34,25 +35,44 @@ type Text = z.input<typeof schema>;
 export type StartingPointRequest = z.output<typeof schema>;
 
 interface Props {
-  fsw: number;
+  /** Default target fc for the stage as it is now (followed until the designer types one). */
+  defaultCrossoverHz: number;
+  /** Starting phase margin target, degrees. */
+  defaultPhaseMarginDeg?: number;
   type: CompensatorType;
+  /** The phase margin target as typed, degrees (null while it is not a number); a type change keeps it. */
+  onPhaseMarginTarget?: (deg: number | null) => void;
   /** Replace the compensator; returns the reason it could not be placed, or null. */
   onPropose: (target: StartingPointRequest) => string | null;
 }
 
 /** Starting point: target fc and PM and a placement method give an editable compensator. */
-export function StartingPointForm({ fsw, type, onPropose }: Props) {
+export function StartingPointForm({ defaultCrossoverHz, defaultPhaseMarginDeg = 60, type, onPropose, onPhaseMarginTarget }: Props) {
   const {
     register,
     handleSubmit,
     setError,
+    resetField,
+    getFieldState,
     watch,
-    formState: { errors, isSubmitSuccessful },
+    formState: { errors, isSubmitSuccessful, dirtyFields },
   } = useForm<Text, unknown, StartingPointRequest>({
     resolver: zodResolver(schema),
-    defaultValues: { crossoverHz: toSiText(fsw / 10, 3), phaseMarginDeg: '60', method: 'k-factor', type },
+    defaultValues: { crossoverHz: toSiText(defaultCrossoverHz, 3), phaseMarginDeg: String(defaultPhaseMarginDeg), method: 'k-factor', type },
   });
   const method = watch('method');
+  const pmText = watch('phaseMarginDeg');
+  const fcTyped = Boolean(dirtyFields.crossoverHz);
+
+  // The target fc follows the stage (fsw, RHP zero) until the designer types one.
+  useEffect(() => {
+    if (!getFieldState('crossoverHz').isDirty) resetField('crossoverHz', { defaultValue: toSiText(defaultCrossoverHz, 3) });
+  }, [defaultCrossoverHz, getFieldState, resetField]);
+
+  useEffect(() => {
+    const v = Number(String(pmText).replace(/°$/, ''));
+    onPhaseMarginTarget?.(Number.isFinite(v) && v > 0 && v < 90 ? v : null);
+  }, [pmText, onPhaseMarginTarget]);
 
   const submit = handleSubmit((values) => {
     const problem = onPropose(values);
@@ -84,6 +104,18 @@ export function StartingPointForm({ fsw, type, onPropose }: Props) {
           </select>
         </div>
       </div>
+      <p className="text-[11px] text-slate-500" data-testid="sp-fc-source">
+        {fcTyped ? (
+          <>
+            Target fc as typed.{' '}
+            <button type="button" className="text-indigo-700 underline" onClick={() => resetField('crossoverHz', { defaultValue: toSiText(defaultCrossoverHz, 3) })}>
+              Back to the default ({toSiText(defaultCrossoverHz, 3)}Hz)
+            </button>
+          </>
+        ) : (
+          'Target fc follows the stage: the lower of fsw/10 and a third of the RHP zero (common practice).'
+        )}
+      </p>
       <p className="text-[11px] text-slate-500">
         {method === 'k-factor'
           ? 'K factor: the boost needed for the target PM at fc sets where the zeros and poles sit.'

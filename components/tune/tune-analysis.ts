@@ -4,8 +4,8 @@
  * compensator change (the drag path), and the snapped parts are checked on
  * the same prepared plant. The server runs analyze() again on save.
  */
-import { analyzeLoop, analyzeParts, preparePlant, type LoopResult, type PreparedPlant } from '@/lib/engine/analyze';
-import { EngineInputError, type AnalyzeRequest, type CompensatorInput, type FieldIssue, type PartsOptions, type PartsResult } from '@/lib/engine/types';
+import { analyzeLoop, analyzeParts, preparePlant, type LoopResult, type PreparedPlant, type StageRequest } from '@/lib/engine/analyze';
+import { EngineInputError, type CompensatorInput, type FieldIssue, type PartsOptions, type PartsResult } from '@/lib/engine/types';
 
 export type Outcome<T> = { ok: true; value: T } | { ok: false; issues: FieldIssue[] };
 
@@ -18,7 +18,7 @@ function attempt<T>(fn: () => T): Outcome<T> {
   }
 }
 
-export const prepareStage = (input: AnalyzeRequest): Outcome<PreparedPlant> => attempt(() => preparePlant(input));
+export const prepareStage = (input: StageRequest): Outcome<PreparedPlant> => attempt(() => preparePlant(input));
 
 export const analyzeCompensator = (prepared: PreparedPlant, comp: CompensatorInput): Outcome<LoopResult> =>
   attempt(() => analyzeLoop(prepared, comp));

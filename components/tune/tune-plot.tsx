@@ -4,12 +4,14 @@ import { useCallback, useMemo, useState } from 'react';
 import { BodePlot, type BenchOverlay, type BodeSeries, type PlotGeometry, type PlotMarker } from '@/components/plot/bode-plot';
 import { around } from '@/components/plot/label-placement';
 import { interpolateLogF } from '@/lib/engine/margins';
-import type { BodeData, Margins, TransferSummary } from '@/lib/engine/types';
-import { HANDLE_SIZE, HandleOverlay, placeHandles, type HandleMove, type PlacedHandle } from './handle-overlay';
+import { TRACE_COLORS } from '@/lib/catalog/traces';
+import { formatSi } from '@/lib/units/si';
+import type { BodeData, Margins, SweepOptions, TransferSummary } from '@/lib/engine/types';
+import { HANDLE_SIZE, HandleOverlay, placeHandles, type DragOffset, type HandleMove, type PlacedHandle } from './handle-overlay';
 import type { HandleSpec } from './handles';
+import { clipBenchToSweep } from './sweep-range';
 import { LiveCurves, type LiveCurve } from './live-curves';
 
-export const TRACE_COLORS = { loop: '#4f46e5', plant: '#0d9488', compensator: '#d97706', rhp: '#dc2626' } as const;
 
 type TraceId = 'loop' | 'plant' | 'compensator';
 const TRACES: { id: TraceId; name: string }[] = [
@@ -23,14 +25,19 @@ interface Props {
   margins: Margins;
   plant: TransferSummary;
   handles: HandleSpec[];
-  midbandGainDb: number | null;
+  /** The sweep the curves were computed on; bench data outside it is not drawn. */
+  sweep: SweepOptions;
+  /** Widen the sweep to cover the bench data (offered when some of it lies outside). */
+  onWidenSweep?: () => void;
+  /** The magnitude axis is held while this stays the same (see BodePlot holdRangesKey). */
+  holdRangesKey?: string;
   dragging: boolean;
   readOnly: boolean;
   onDragStart: (id: string) => void;
-  onDrag: (id: string, move: HandleMove) => void;
+  onDrag: (id: string, offset: DragOffset) => void;
   onDragEnd: (id: string) => void;
   onStep: (id: string, move: HandleMove) => void;
-  /** Bench data (Handoff, issue 6): the newest measured loop, drawn as grey dots. */
+  /** Bench data: the newest measured loop, drawn as grey dots. */
   bench?: BenchOverlay | null;
 }
 
@@ -46,9 +53,9 @@ const toSeries = (t: (typeof TRACES)[number], trace: { magDb: number[]; phaseDeg
 });
 
 /** The Tune Bode plot: trace toggles, power-stage features marked, compensator handles on top. */
-export function TunePlot({ bode, margins, plant, handles, midbandGainDb, dragging, readOnly, bench, ...events }: Props) {
+export function TunePlot({ bode, margins, plant, handles, sweep, onWidenSweep, holdRangesKey, dragging, readOnly, bench, ...events }: Props) {
   const [shown, setShown] = useState<Record<TraceId, boolean>>({ loop: true, plant: true, compensator: true });
-  const [benchShown, setBenchShown] = useState(true); // Bench data toggle (Handoff, issue 6)
+  const [benchShown, setBenchShown] = useState(true); // Bench data toggle
 
   const all = useMemo(() => TRACES.map((t) => toSeries(t, bode[t.id], shown)), [bode, shown]);
   // While a handle is dragged Plotly keeps only the power stage, which does not move, and the
@@ -89,6 +96,9 @@ export function TunePlot({ bode, margins, plant, handles, midbandGainDb, draggin
   }, [plant, bode.f, markerCurve]);
 
   const marks = useMemo(() => ({ ...margins, color: TRACE_COLORS.loop }), [margins]);
+  // Bench points outside the sweep have no model curve beside them: they are not drawn.
+  const clipped = useMemo(() => (bench ? clipBenchToSweep(bench, sweep) : null), [bench, sweep]);
+  const hiddenBench = clipped ? clipped.below + clipped.above : 0;
 
   return (
     <div>
@@ -109,7 +119,7 @@ export function TunePlot({ bode, margins, plant, handles, midbandGainDb, draggin
         ))}
         {bench && (
           <label className="inline-flex cursor-pointer items-center gap-1.5" title="The newest bench data of this design (Handoff)">
-            <input type="checkbox" className="h-3.5 w-3.5 rounded border-slate-300" style={{ accentColor: '#6b7280' }} checked={benchShown} onChange={(e) => setBenchShown(e.target.checked)} data-testid="toggle-bench" />
+            <input type="checkbox" className="h-3.5 w-3.5 rounded border-slate-300" style={{ accentColor: TRACE_COLORS.bench }} checked={benchShown} onChange={(e) => setBenchShown(e.target.checked)} data-testid="toggle-bench" />
             <span className="inline-block h-1.5 w-1.5 rounded-full bg-trace-bench" aria-hidden />
             {bench.name ?? 'Bench data'}
           </label>
@@ -124,7 +134,8 @@ export function TunePlot({ bode, margins, plant, handles, midbandGainDb, draggin
         markers={markers}
         labelObstacles={obstacles}
         margins={dragging ? undefined : marks}
-        bench={bench && benchShown ? bench : undefined}
+        bench={clipped?.shown && benchShown ? clipped.shown : undefined}
+        holdRangesKey={holdRangesKey}
         freezeRanges={dragging}
         showLegend={false}
         height={480}
@@ -137,12 +148,21 @@ export function TunePlot({ bode, margins, plant, handles, midbandGainDb, draggin
               handles={placed}
               color={TRACE_COLORS.compensator}
               disabled={readOnly}
-              midbandGainDb={midbandGainDb}
               {...events}
             />
           </>
         )}
       />
+      {hiddenBench > 0 && benchShown && (
+        <p className="mt-1 px-1 text-xs text-slate-600" data-testid="bench-clipped">
+          {hiddenBench} bench point{hiddenBench === 1 ? '' : 's'} lie outside the sweep ({formatSi(sweep.fStart, 'Hz')} – {formatSi(sweep.fStop, 'Hz')}) and are not drawn.{' '}
+          {onWidenSweep && !readOnly && (
+            <button type="button" className="text-indigo-700 underline" onClick={onWidenSweep} data-testid="bench-widen-sweep">
+              Widen the sweep to show them
+            </button>
+          )}
+        </p>
+      )}
     </div>
   );
 }

@@ -1,14 +1,19 @@
 'use client';
 
 import Link from 'next/link';
-import { useCallback, useDeferredValue, useMemo, useRef, useState } from 'react';
-import { proposeForPlant } from '@/lib/engine/starting-point';
-import { EngineInputError, type AnalyzeRequest, type CompensatorShape, type CompensatorType, type FieldIssue, type PartsOptions } from '@/lib/engine/types';
+import { useCallback, useDeferredValue, useEffect, useMemo, useRef, useState } from 'react';
+import { defaultCrossoverHz, placeForType, proposeForPlant } from '@/lib/engine/starting-point';
+import { defaultSweep } from '@/lib/engine/sweep';
+import { EngineInputError, type AnalyzeRequest, type CompensatorShape, type CompensatorType, type FieldIssue, type PartsOptions, type SweepOptions } from '@/lib/engine/types';
+import { formatSi } from '@/lib/units/si';
 import type { RevisionListItem, SavedRevision } from '@/lib/queries/revisions';
 import { ChecksList } from './checks-list';
 import { CompensatorTable } from './compensator-table';
-import type { HandleMove } from './handle-overlay';
-import { compensatorFromShape, handlesOf, moveFrequency, shapeFromParts, shiftGain } from './handles';
+import type { DragOffset, HandleMove } from './handle-overlay';
+import { applyMove, compensatorFromShape, dragShape, handlesOf, partsOfType, shapeFromParts, withPart, type PartKey, type PartLock } from './handles';
+import { canRedo, canUndo, commit, historyKey, redo, replace, settle, startHistory, undo, type History } from './history';
+import { SweepForm } from './sweep-form';
+import { sweepCovering } from './sweep-range';
 import { MarginsReadout } from './margins-readout';
 import { PartsTable } from './parts-table';
 import { RevisionPicker } from './revision-picker';
@@ -61,10 +66,23 @@ function Card({ title, children, className = '', aside }: { title: string; child
   );
 }
 
+const sameInput = (a: AnalyzeRequest, b: AnalyzeRequest) => a === b || stableJson(a) === stableJson(b);
+
 export function TuneScreen({ designId, initialInput, savedInput, editFrom = null, shownRevision, latestRevision, mode, role, revisions }: TuneScreenProps) {
-  const readOnly = mode !== 'edit';
-  const bench = useBenchOverlay(designId, shownRevision); // the shown revision's bench data (Handoff)
-  const [input, setInput] = useState<AnalyzeRequest>(initialInput);
+  // Scratch: any reader (viewer, reviewer, an earlier revision) edits and sees margins; nothing is saved.
+  const [scratch, setScratch] = useState(false);
+  const readOnly = mode !== 'edit' && !scratch;
+  const bench = useBenchOverlay(designId, shownRevision); // the shown revision's bench data
+  // Every edit on Tune goes through the history, so Ctrl+Z / Ctrl+Shift+Z undo and redo it.
+  const [history, setHistory] = useState<History<AnalyzeRequest>>(() => startHistory(initialInput));
+  const input = history.present;
+  // The stage form keeps its own text; it is drawn again when undo, redo or leaving scratch change the stage under it.
+  const [stageEpoch, setStageEpoch] = useState(0);
+  const edit = useCallback((fn: (i: AnalyzeRequest) => AnalyzeRequest) => setHistory((h) => commit(h, fn(h.present), sameInput)), []);
+  const setInput = edit;
+  const dragCommitted = useRef(false);
+  const [lockPart, setLockPart] = useState<PartKey>('r1');
+  const [pmTarget, setPmTarget] = useState<number | null>(null);
   const [saved, setSaved] = useState({ json: stableJson(savedInput ?? initialInput), revision: shownRevision });
   const [from, setFrom] = useState(editFrom);
   const [stageValid, setStageValid] = useState(true);
@@ -74,10 +92,10 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
 
   const { converter, modulator, feedback, sweep } = input;
   const stage = useMemo(() => ({ converter, modulator, feedback, sweep }), [converter, modulator, feedback, sweep]);
-  const prepared = useMemo(() => prepareStage(stage as AnalyzeRequest), [stage]);
+  const prepared = useMemo(() => prepareStage(stage), [stage]);
   // Stable callbacks keep the memoised stage form and parts table still while a handle is dragged.
-  const onStageChange = useCallback((next: Pick<AnalyzeRequest, 'converter' | 'modulator' | 'feedback'>) => setInput((i) => ({ ...i, ...next })), []);
-  const onSeriesChange = useCallback((options: PartsOptions) => setInput((i) => ({ ...i, parts: options })), []);
+  const onStageChange = useCallback((next: Pick<AnalyzeRequest, 'converter' | 'modulator' | 'feedback'>) => setInput((i) => ({ ...i, ...next })), [setInput]);
+  const onSeriesChange = useCallback((options: PartsOptions) => setInput((i) => ({ ...i, parts: options })), [setInput]);
   const loop = useMemo(() => (prepared.ok ? analyzeCompensator(prepared.value, input.compensator) : null), [prepared, input.compensator]);
   // Snapped parts and their margins may lag a frame behind a drag.
   const deferredComp = useDeferredValue(input.compensator);
@@ -87,39 +105,113 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
   );
   const shape = useMemo(() => shapeFromParts(input.compensator), [input.compensator]);
   const crossoverHz = loop?.ok ? loop.value.margins.crossoverHz : null;
-  const handles = useMemo(() => handlesOf(shape, crossoverHz), [shape, crossoverHz]);
+  const sweepInUse: SweepOptions = prepared.ok ? prepared.value.sweep : (input.sweep ?? defaultSweep(input.converter.fsw));
+  // A Type I gain handle stays at the LC resonance (or mid-sweep), so a gain change moves it only up or down.
+  const anchorHz = prepared.ok ? (prepared.value.plant.resonanceHz ?? Math.sqrt(sweepInUse.fStart * sweepInUse.fStop)) : null;
+  const handles = useMemo(() => handlesOf(shape, anchorHz), [shape, anchorHz]);
+  const targetFcHz = prepared.ok ? defaultCrossoverHz(input.converter.fsw, prepared.value.plant.rhpZeroHz) : input.converter.fsw / 10;
+  // The form's PM target starts at the design's own margin (rounded), so a type change keeps it.
+  const startPm = useRef<number | null>(null);
+  if (startPm.current === null && loop?.ok) {
+    const pm = loop.value.margins.phaseMarginDeg;
+    startPm.current = pm !== null && pm >= 30 && pm <= 80 ? Math.round(pm) : 60;
+  }
 
-  const dirty = !readOnly && (stableJson(input) !== saved.json || !stageValid);
+  const dirty = mode === 'edit' && (stableJson(input) !== saved.json || !stageValid);
   useLeaveGuard(dirty);
 
-  const applyShape = useCallback((next: CompensatorShape): string | null => {
-    const r = compensatorFromShape(next);
-    if (!r.ok) {
-      const message = r.issues[0]?.message ?? 'that placement is not possible';
-      setHandleProblem(message);
-      return message;
-    }
-    setHandleProblem(null);
-    setInput((i) => ({ ...i, compensator: r.comp }));
-    return null;
-  }, []);
+  const lock = useMemo<PartLock | null>(() => {
+    const value = input.compensator[lockPart];
+    return partsOfType(input.compensator.type).includes(lockPart) && value !== undefined && value > 0 ? { part: lockPart, value } : null;
+  }, [input.compensator, lockPart]);
 
-  const moved = (base: CompensatorShape, id: string, move: HandleMove) =>
-    id === 'gain' ? shiftGain(base, move.deltaDb ?? 0) : move.hz !== undefined ? moveFrequency(base, id, move.hz) : base;
+  /** Apply a new shape (the locked part holds); `during` marks the frames of a drag after its first. */
+  const applyShape = useCallback(
+    (next: CompensatorShape, during = false): string | null => {
+      const r = compensatorFromShape(next, lock);
+      if (!r.ok) {
+        const message = r.issues[0]?.message ?? 'that placement is not possible';
+        setHandleProblem(message);
+        return message;
+      }
+      setHandleProblem(null);
+      if (during) setHistory((h) => replace(h, { ...h.present, compensator: r.comp }));
+      else setInput((i) => ({ ...i, compensator: r.comp }));
+      return null;
+    },
+    [lock, setInput],
+  );
 
   const onDragStart = (id: string) => {
     dragBase.current = shape;
+    dragCommitted.current = false;
     setDragging(id);
   };
-  const onDrag = (id: string, move: HandleMove) => {
-    applyShape(moved(dragBase.current ?? shape, id, move));
+  const onDrag = (id: string, offset: DragOffset) => {
+    // The first frame is one step in the history; the rest of the drag replaces it.
+    const problem = applyShape(dragShape(dragBase.current ?? shape, id, offset.dxPx, offset.dyPx, offset.scale), dragCommitted.current);
+    if (problem === null) dragCommitted.current = true;
   };
   const onDragEnd = () => {
+    if (dragCommitted.current) setHistory((h) => settle(h, sameInput));
     dragBase.current = null;
+    dragCommitted.current = false;
     setDragging(null);
   };
   const onStep = (id: string, move: HandleMove) => {
-    applyShape(moved(shape, id, move));
+    applyShape(applyMove(shape, id, move));
+  };
+
+  const onPartChange = useCallback(
+    (part: PartKey, value: number): string | null => {
+      const r = withPart(input.compensator, part, value);
+      if (!r.ok) return r.message;
+      setHandleProblem(null);
+      setInput((i) => ({ ...i, compensator: r.comp }));
+      return null;
+    },
+    [input.compensator, setInput],
+  );
+
+  const onSweepChange = (next: SweepOptions | undefined): string | null => {
+    setInput((i) => {
+      const { sweep: _drop, ...rest } = i;
+      return next ? { ...rest, sweep: next } : rest;
+    });
+    return null;
+  };
+  const onWidenSweep = bench ? () => onSweepChange(sweepCovering(sweepInUse, bench)) : undefined;
+
+  const doUndo = useCallback(() => {
+    setHistory((h) => undo(h));
+    setStageEpoch((n) => n + 1);
+  }, []);
+  const doRedo = useCallback(() => {
+    setHistory((h) => redo(h));
+    setStageEpoch((n) => n + 1);
+  }, []);
+  useEffect(() => {
+    if (readOnly) return;
+    const onKey = (e: KeyboardEvent) => {
+      const which = historyKey(e);
+      if (!which) return;
+      // Inside a text field the browser's own undo edits the text.
+      const t = e.target as HTMLElement | null;
+      if (t && (t.tagName === 'TEXTAREA' || (t.tagName === 'INPUT' && !['radio', 'checkbox'].includes((t as HTMLInputElement).type)))) return;
+      e.preventDefault();
+      if (which === 'undo') doUndo();
+      else doRedo();
+    };
+    window.addEventListener('keydown', onKey);
+    return () => window.removeEventListener('keydown', onKey);
+  }, [readOnly, doUndo, doRedo]);
+
+  const startScratch = () => setScratch(true);
+  const leaveScratch = () => {
+    setScratch(false);
+    setHistory(startHistory(initialInput));
+    setStageEpoch((n) => n + 1);
+    setHandleProblem(null);
   };
 
   const propose = (target: Omit<StartingPointRequest, 'type'> & { type: CompensatorType }): string | null => {
@@ -135,13 +227,18 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
   };
 
   const onTypeChange = (type: CompensatorType): string | null => {
-    const fsw = input.converter.fsw;
-    const base = { crossoverHz: crossoverHz ?? fsw / 10, phaseMarginDeg: 55, type };
-    // The K factor cannot reach every target (e.g. Type I); the pole-zero rules always place something.
-    const kFactor = propose({ ...base, method: 'k-factor' });
-    if (kFactor === null) return null;
-    const poleZero = propose({ ...base, method: 'pole-zero' });
-    return poleZero ?? `The K factor could not place it (${kFactor}), so the pole-zero rules did: check the margins.`;
+    if (!prepared.ok) return 'Fix the power stage first: the loop cannot be placed without it.';
+    // Keep the crossover as it is and the phase margin target of the starting point.
+    const fc = crossoverHz ?? targetFcHz;
+    const pm = pmTarget ?? startPm.current ?? 60;
+    try {
+      const placed = placeForType(prepared.value, { type, crossoverHz: fc, phaseMarginDeg: pm, r1: input.compensator.r1 });
+      setHandleProblem(null);
+      setInput((i) => ({ ...i, compensator: placed.compensator }));
+      return placed.note ?? `Placed for the same fc (${formatSi(fc, 'Hz')}) and PM target (${pm.toFixed(0)}°).`;
+    } catch (err) {
+      return firstMessage(err);
+    }
   };
 
   const onSaved = (rev: SavedRevision, savedInput: AnalyzeRequest) => {
@@ -165,11 +262,31 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
   const result = loop?.ok ? loop.value : null;
 
   return (
-    <div className="space-y-4" data-testid="tune" data-mode={mode}>
+    <div className={`space-y-4 ${scratch ? 'rounded-lg outline-dashed outline-2 outline-offset-4 outline-amber-500' : ''}`} data-testid="tune" data-mode={mode} data-scratch={scratch || undefined}>
       <div className="card flex flex-wrap items-center gap-x-6 gap-y-2 px-4 py-3">
         <RevisionPicker designId={designId} shown={shownRevision} initial={revisions} />
+        {!readOnly && (
+          <div className="flex items-center gap-1" role="group" aria-label="Undo and redo">
+            <button type="button" className="btn-secondary px-2 py-1 text-xs" onClick={doUndo} disabled={!canUndo(history)} title="Undo the last edit (Ctrl+Z)" data-testid="undo">
+              ↶ Undo
+            </button>
+            <button type="button" className="btn-secondary px-2 py-1 text-xs" onClick={doRedo} disabled={!canRedo(history)} title="Redo (Ctrl+Shift+Z)" data-testid="redo">
+              ↷ Redo
+            </button>
+          </div>
+        )}
         <div className="min-w-[20rem] flex-1">
-          {mode === 'edit' ? (
+          {scratch ? (
+            <div className="flex flex-wrap items-center justify-between gap-x-4 gap-y-2 rounded-md bg-amber-50 px-3 py-2" role="status" data-testid="scratch-banner">
+              <p className="text-sm text-amber-900">
+                <strong className="mr-1 rounded bg-amber-500 px-1.5 py-0.5 text-xs font-bold uppercase tracking-wide text-white">Scratch</strong>
+                A what-if on {shownRevision ? `r${shownRevision}` : 'this design'}: edit and watch the margins. Nothing is saved, and nothing you do here changes the design.
+              </p>
+              <button type="button" className="btn-secondary" onClick={leaveScratch} data-testid="scratch-leave">
+                Leave scratch (discard)
+              </button>
+            </div>
+          ) : mode === 'edit' ? (
             <>
               <SaveBar
                 designId={designId}
@@ -192,7 +309,11 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
             </>
           ) : mode === 'role-read-only' ? (
             <p className="text-sm text-slate-600" data-testid="read-only-note">
-              Read-only: your role (<strong>{role}</strong>) may look at designs but not change them. Handles and fields are fixed.
+              Read-only: your role (<strong>{role}</strong>) may look at designs but not change them.{' '}
+              <button type="button" className="text-indigo-700 underline" onClick={startScratch} data-testid="scratch-start">
+                Try a what-if in Scratch
+              </button>{' '}
+              (nothing is saved).
             </p>
           ) : (
             <div className="flex flex-wrap items-center justify-between gap-x-4 gap-y-2">
@@ -203,6 +324,9 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
                 </Link>
                 , or start from this one.
               </p>
+              <button type="button" className="btn-secondary" onClick={startScratch} data-testid="scratch-start" title="Edit this revision and see its margins; nothing is saved">
+                Scratch on r{shownRevision}
+              </button>
               <Link
                 className="btn-secondary"
                 href={`/designs/${designId}?from=${shownRevision}`}
@@ -224,7 +348,9 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
               margins={result.margins}
               plant={prepared.value.plant}
               handles={handles}
-              midbandGainDb={result.compensator.midbandGainDb}
+              sweep={sweepInUse}
+              onWidenSweep={onWidenSweep}
+              holdRangesKey={`${stableJson({ converter, modulator, feedback })}|${stableJson(sweepInUse)}|${input.compensator.type}`}
               dragging={dragging !== null}
               readOnly={readOnly}
               onDragStart={onDragStart}
@@ -267,13 +393,12 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
 
       <div className="grid items-start gap-4 lg:grid-cols-2 xl:grid-cols-3">
         <Card title="Power stage" aside={<span className="text-xs text-slate-500">{input.converter.topology}, voltage-mode</span>}>
-          <StageForm value={stage} readOnly={readOnly} issues={stageIssues} onChange={onStageChange} onValidityChange={setStageValid} />
+          <StageForm key={stageEpoch} value={stage} readOnly={readOnly} issues={stageIssues} onChange={onStageChange} onValidityChange={setStageValid} />
         </Card>
         <Card title="Compensator handles">
           <CompensatorTable
             shape={shape}
             handles={handles}
-            midbandGainDb={result?.compensator.midbandGainDb ?? null}
             readOnly={readOnly}
             onShape={applyShape}
             onStep={onStep}
@@ -283,7 +408,13 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
             <details className="mt-4 rounded-md border border-slate-200 p-3" open={saved.revision === null}>
               <summary className="cursor-pointer text-sm font-semibold text-slate-800">Starting point</summary>
               <div className="mt-3">
-                <StartingPointForm fsw={input.converter.fsw} type={input.compensator.type} onPropose={propose} />
+                <StartingPointForm
+                  defaultCrossoverHz={targetFcHz}
+                  defaultPhaseMarginDeg={startPm.current ?? 60}
+                  type={input.compensator.type}
+                  onPropose={propose}
+                  onPhaseMarginTarget={setPmTarget}
+                />
               </div>
             </details>
           )}
@@ -294,11 +425,17 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
               parts={parts}
               topology={input.converter.topology}
               readOnly={readOnly}
+              lock={lock?.part ?? 'r1'}
               onSeriesChange={onSeriesChange}
+              onPartChange={onPartChange}
+              onLockChange={setLockPart}
             />
           ) : (
             <p className="text-sm text-slate-500">Parts appear once the power stage is valid.</p>
           )}
+        </Card>
+        <Card title="Sweep">
+          <SweepForm sweep={sweepInUse} custom={input.sweep !== undefined} fsw={input.converter.fsw} readOnly={readOnly} onChange={onSweepChange} />
         </Card>
       </div>
     </div>

@@ -1,5 +1,6 @@
 import { and, desc, eq, isNull, or } from 'drizzle-orm';
 import type { Db } from '../connection';
+import type { BenchPoints } from '../../lib/handoff/bench-parse';
 import { benchData, designs, revisions, users } from '../schema';
 import { writeAudit } from './audit';
 import { touchDesign } from './designs';
@@ -12,11 +13,6 @@ import { touchDesign } from './designs';
  * from before that rule whose design had no revision then has none and is shown design-wide.
  */
 
-export interface BenchPointsJson {
-  f: number[];
-  gainDb: number[];
-  phaseDeg: number[];
-}
 
 const summaryColumns = {
   id: benchData.id,
@@ -57,22 +53,21 @@ export function getBenchData(db: Db, teamId: number, designId: number, benchId: 
     .leftJoin(revisions, eq(revisions.id, benchData.revisionId))
     .where(and(eq(benchData.id, benchId), eq(benchData.designId, designId), eq(designs.teamId, teamId)))
     .get();
-  return row ? { ...row, points: row.points as BenchPointsJson } : undefined;
+  return row;
 }
 
 export function createBenchData(
   db: Db,
-  b: { teamId: number; designId: number; revisionId: number; name: string; points: BenchPointsJson; phaseShifted: boolean; uploadedBy: number },
+  b: { teamId: number; designId: number; revisionId: number; name: string; points: BenchPoints; phaseShifted: boolean; uploadedBy: number },
 ) {
   return db.transaction((tx) => {
-    const txDb = tx as unknown as Db;
-    const row = txDb
+    const row = tx
       .insert(benchData)
       .values({ designId: b.designId, revisionId: b.revisionId, name: b.name, points: b.points, phaseShifted: b.phaseShifted, uploadedBy: b.uploadedBy })
       .returning({ id: benchData.id })
       .get();
-    touchDesign(txDb, b.designId);
-    writeAudit(txDb, {
+    touchDesign(tx, b.designId);
+    writeAudit(tx, {
       teamId: b.teamId,
       userId: b.uploadedBy,
       action: 'bench.uploaded',

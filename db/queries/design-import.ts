@@ -1,4 +1,6 @@
 import type { Db } from '../connection';
+import type { AnalyzeRequest } from '../../lib/engine/types';
+import type { RevisionSummary } from '../../lib/revision-summary';
 import type { Topology } from './designs';
 import { createDesign, updateDesign } from './designs';
 import { createRevision } from './revisions';
@@ -16,16 +18,15 @@ export function importDesign(
     description: string;
     topology: Topology;
     designatorMap: Record<string, string>;
-    input: unknown;
-    summary: unknown;
+    input: AnalyzeRequest;
+    summary: RevisionSummary;
     note: string;
   },
 ) {
   return db.transaction((tx) => {
-    const txDb = tx as unknown as Db;
-    const design = createDesign(txDb, actorId, teamId, { name: d.name, description: d.description, topology: d.topology });
-    if (Object.keys(d.designatorMap).length > 0) updateDesign(txDb, actorId, teamId, design.id, { designatorMap: d.designatorMap });
-    const revision = createRevision(txDb, {
+    const design = createDesign(tx, actorId, teamId, { name: d.name, description: d.description, topology: d.topology });
+    if (Object.keys(d.designatorMap).length > 0) updateDesign(tx, actorId, teamId, design.id, { designatorMap: d.designatorMap });
+    const revision = createRevision(tx, {
       teamId,
       designId: design.id,
       baseNumber: null,

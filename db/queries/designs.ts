@@ -106,7 +106,7 @@ export class DesignDeleteRefusedError extends Error {
 /** Archive or restore a design (revisions untouched). Undefined outside the team. */
 export function setDesignArchived(db: Db, actorId: number, teamId: number, designId: number, archived: boolean) {
   return db.transaction((tx) => {
-    const txDb = tx as unknown as Db;
+    const txDb: Db = tx;
     const row = txDb
       .update(designs)
       .set(archived ? { archivedAt: new Date(), archivedBy: actorId } : { archivedAt: null, archivedBy: null })
@@ -134,7 +134,7 @@ export function setDesignArchived(db: Db, actorId: number, teamId: number, desig
 export function deleteDesign(db: Db, actorId: number, teamId: number, designId: number): boolean {
   return db.transaction(
     (tx) => {
-      const txDb = tx as unknown as Db;
+      const txDb: Db = tx;
       const design = getDesign(txDb, teamId, designId);
       if (!design) return false;
       if (hasSignoffTrail(txDb, designId))
@@ -163,13 +163,12 @@ export function createDesign(
   d: { name: string; description?: string; topology: Topology },
 ) {
   return db.transaction((tx) => {
-    const txDb = tx as unknown as Db;
-    const row = txDb
+    const row = tx
       .insert(designs)
       .values({ teamId, ownerId: actorId, name: d.name.trim(), description: d.description?.trim() ?? '', topology: d.topology })
       .returning()
       .get();
-    writeAudit(txDb, { teamId, userId: actorId, action: 'design.created', entityType: 'design', entityId: row.id, detail: { name: row.name } });
+    writeAudit(tx, { teamId, userId: actorId, action: 'design.created', entityType: 'design', entityId: row.id, detail: { name: row.name } });
     return row;
   });
 }
@@ -182,15 +181,14 @@ export function updateDesign(
   patch: { name?: string; description?: string; designatorMap?: Record<string, string> },
 ) {
   return db.transaction((tx) => {
-    const txDb = tx as unknown as Db;
-    const row = txDb
+    const row = tx
       .update(designs)
       .set({ ...patch, updatedAt: new Date() })
       .where(and(eq(designs.id, designId), eq(designs.teamId, teamId)))
       .returning()
       .get();
     if (row)
-      writeAudit(txDb, { teamId, userId: actorId, action: 'design.updated', entityType: 'design', entityId: designId, detail: { fields: Object.keys(patch) } });
+      writeAudit(tx, { teamId, userId: actorId, action: 'design.updated', entityType: 'design', entityId: designId, detail: { fields: Object.keys(patch) } });
     return row;
   });
 }

@@ -30,9 +30,8 @@ export function addRemark(
   r: { teamId: number; designId: number; revisionId: number; number: number; authorId: number; body: string; comparedWith?: number | null },
 ) {
   return db.transaction((tx) => {
-    const txDb = tx as unknown as Db;
-    const row = txDb.insert(remarks).values({ revisionId: r.revisionId, authorId: r.authorId, body: r.body, comparedWith: r.comparedWith ?? null }).returning().get();
-    writeAudit(txDb, {
+    const row = tx.insert(remarks).values({ revisionId: r.revisionId, authorId: r.authorId, body: r.body, comparedWith: r.comparedWith ?? null }).returning().get();
+    writeAudit(tx, {
       teamId: r.teamId,
       userId: r.authorId,
       action: 'remark.added',

@@ -1,5 +1,7 @@
 import { and, asc, desc, eq, sql } from 'drizzle-orm';
 import type { Db } from '../connection';
+import type { AnalyzeRequest } from '../../lib/engine/types';
+import type { RevisionSummary } from '../../lib/revision-summary';
 import { revisions, users } from '../schema';
 import { writeAudit } from './audit';
 import { touchDesign } from './designs';
@@ -37,18 +39,17 @@ export function createRevision(
     teamId: number;
     designId: number;
     baseNumber: number | null;
-    input: unknown;
-    summary: unknown;
+    input: AnalyzeRequest;
+    summary: RevisionSummary;
     authorId: number;
     note: string;
   },
 ) {
   return db.transaction(
     (tx) => {
-      const txDb = tx as unknown as Db;
-      const latest = latestRevisionNumber(txDb, r.designId);
+      const latest = latestRevisionNumber(tx, r.designId);
       if (latest !== r.baseNumber) throw new RevisionConflictError(r.baseNumber, latest);
-      const row = txDb
+      const row = tx
         .insert(revisions)
         .values({
           designId: r.designId,
@@ -61,8 +62,8 @@ export function createRevision(
         })
         .returning()
         .get();
-      touchDesign(txDb, r.designId);
-      writeAudit(txDb, {
+      touchDesign(tx, r.designId);
+      writeAudit(tx, {
         teamId: r.teamId,
         userId: r.authorId,
         action: 'revision.saved',
@@ -107,6 +108,9 @@ export function getRevision(db: Db, designId: number, number: number) {
     .where(and(eq(revisions.designId, designId), eq(revisions.number, number)))
     .get();
 }
+
+/** A revision with its author's name, as the revision routes answer it. */
+export type RevisionRow = ReturnType<typeof listRevisions>[number];
 
 export function getLatestRevision(db: Db, designId: number) {
   return db

@@ -1,5 +1,5 @@
 import { alias } from 'drizzle-orm/sqlite-core';
-import { and, asc, desc, eq } from 'drizzle-orm';
+import { and, asc, desc, eq, sql } from 'drizzle-orm';
 import type { Db } from '../connection';
 import {
   checkDecide,
@@ -60,13 +60,11 @@ export function getSignoffState(db: Db, revisionId: number): SignoffState {
 
 /** State of every revision of a design, keyed by revision number. */
 export function listSignoffStates(db: Db, designId: number): Map<number, SignoffState> {
-  const rows = db.$client
-    .prepare(
-      `SELECT r.number AS number,
-              (SELECT e.state FROM signoff_events e WHERE e.revision_id = r.id ORDER BY e.id DESC LIMIT 1) AS state
-         FROM revisions r WHERE r.design_id = ?`,
-    )
-    .all(designId) as { number: number; state: SignoffState | null }[];
+  const rows = db.all<{ number: number; state: SignoffState | null }>(
+    sql`SELECT r.number AS number,
+               (SELECT e.state FROM signoff_events e WHERE e.revision_id = r.id ORDER BY e.id DESC LIMIT 1) AS state
+          FROM revisions r WHERE r.design_id = ${designId}`,
+  );
   return new Map(rows.map((r) => [r.number, r.state ?? 'draft']));
 }
 
@@ -181,15 +179,14 @@ export function getSignoffFacts(db: Db, revisionId: number): SignoffFacts {
 export function submitForReview(db: Db, ref: RevisionRef, s: { actorId: number; reviewerId: number | null; message: string }) {
   return db.transaction(
     (tx) => {
-      const txDb = tx as unknown as Db;
-      const facts = getSignoffFacts(txDb, ref.revisionId);
-      const team = getTeamSignoffSettings(txDb, ref.teamId);
-      const actorRole = roleIn(txDb, s.actorId, ref.teamId);
+      const facts = getSignoffFacts(tx, ref.revisionId);
+      const team = getTeamSignoffSettings(tx, ref.teamId);
+      const actorRole = roleIn(tx, s.actorId, ref.teamId);
       if (!actorRole) throw new SignoffForbiddenError('You are not a member of this team');
-      const reviewer = s.reviewerId == null ? null : { id: s.reviewerId, role: roleIn(txDb, s.reviewerId, ref.teamId) };
+      const reviewer = s.reviewerId == null ? null : { id: s.reviewerId, role: roleIn(tx, s.reviewerId, ref.teamId) };
       const answer = checkSubmit({ id: s.actorId, role: actorRole }, team, facts, reviewer);
       if (!answer.ok) throw policyError(answer);
-      return insertEvent(txDb, ref, { state: 'in-review', actorId: s.actorId, reviewerId: s.reviewerId, message: s.message, from: facts.state });
+      return insertEvent(tx, ref, { state: 'in-review', actorId: s.actorId, reviewerId: s.reviewerId, message: s.message, from: facts.state });
     },
     { behavior: 'immediate' },
   );
@@ -204,17 +201,16 @@ export function submitForReview(db: Db, ref: RevisionRef, s: { actorId: number; 
 export function decideSignoff(db: Db, ref: RevisionRef, d: { actorId: number; decision: Decision; message: string }) {
   return db.transaction(
     (tx) => {
-      const txDb = tx as unknown as Db;
-      const facts = getSignoffFacts(txDb, ref.revisionId);
-      const team = getTeamSignoffSettings(txDb, ref.teamId);
-      const actorRole = roleIn(txDb, d.actorId, ref.teamId);
+      const facts = getSignoffFacts(tx, ref.revisionId);
+      const team = getTeamSignoffSettings(tx, ref.teamId);
+      const actorRole = roleIn(tx, d.actorId, ref.teamId);
       if (!actorRole) throw new SignoffForbiddenError('You are not a member of this team');
       const answer = checkDecide({ id: d.actorId, role: actorRole }, team, facts);
       if (!answer.ok) throw policyError(answer);
       const msg = checkDecisionMessage(d.decision, d.message);
       if (!msg.ok) throw policyError(msg);
       const submitterId = facts.submission?.actorId ?? null;
-      const event = insertEvent(txDb, ref, { state: DECISION_STATE[d.decision], actorId: d.actorId, message: d.message, from: facts.state });
+      const event = insertEvent(tx, ref, { state: DECISION_STATE[d.decision], actorId: d.actorId, message: d.message, from: facts.state });
       const notify = [...new Set([facts.authorId, submitterId].filter((x): x is number => x != null && x !== 0 && x !== d.actorId))];
       return { event, notifyUserIds: notify };
     },

@@ -109,20 +109,19 @@ export function addTeamMember(
   m: { email: string; name?: string; role: Role; password?: string },
 ) {
   return db.transaction((tx) => {
-    const txDb = tx as unknown as Db;
-    let user = getUserByEmail(txDb, m.email);
+    let user = getUserByEmail(tx, m.email);
     let created = false;
     if (!user) {
       if (!m.password || m.password.length < 8)
         throw new MembershipError('password', 'A new account needs a password of at least 8 characters');
       if (!m.name?.trim()) throw new MembershipError('name', 'A new account needs a name');
-      user = createUser(txDb, { email: m.email, name: m.name, password: m.password });
+      user = createUser(tx, { email: m.email, name: m.name, password: m.password });
       created = true;
     }
-    if (getMembership(txDb, user.id, teamId))
+    if (getMembership(tx, user.id, teamId))
       throw new MembershipError('email', `${user.email} is already a member of this team`);
-    txDb.insert(memberships).values({ userId: user.id, teamId, role: m.role }).run();
-    writeAudit(txDb, {
+    tx.insert(memberships).values({ userId: user.id, teamId, role: m.role }).run();
+    writeAudit(tx, {
       teamId,
       userId: actorId,
       action: 'member.added',
@@ -137,15 +136,14 @@ export function addTeamMember(
 /** Change a member's role; the last admin of a team cannot be demoted. */
 export function setMemberRole(db: Db, actorId: number, teamId: number, userId: number, role: Role) {
   return db.transaction((tx) => {
-    const txDb = tx as unknown as Db;
-    const current = getMembership(txDb, userId, teamId);
+    const current = getMembership(tx, userId, teamId);
     if (!current) throw new MembershipError('userId', 'That user is not a member of this team');
     if (current.role === 'admin' && role !== 'admin') {
-      const admins = listTeamMembers(txDb, teamId).filter((m) => m.role === 'admin');
+      const admins = listTeamMembers(tx, teamId).filter((m) => m.role === 'admin');
       if (admins.length <= 1) throw new MembershipError('role', 'A team needs at least one admin');
     }
-    txDb.update(memberships).set({ role }).where(eq(memberships.id, current.id)).run();
-    writeAudit(txDb, {
+    tx.update(memberships).set({ role }).where(eq(memberships.id, current.id)).run();
+    writeAudit(tx, {
       teamId,
       userId: actorId,
       action: 'member.role-changed',

@@ -1,7 +1,8 @@
 /**
  * Checks: warnings on a design, each { id, level, message } with a stable kebab-case id
  * (one id per concern; the level says how bad) and a message that says what is wrong and
- * what to do. Thresholds are common practice (see CHECK-VALUES §4) unless stated.
+ * what to do. Thresholds are common practice unless stated; the margin limits are
+ * shared with the Tune readout (lib/catalog/margins.ts).
  *
  *   id                     level            when
  *   crossover-vs-switching caution / risk   fc > fsw/5 / fc > fsw/2
@@ -17,6 +18,7 @@
  *   part-range             note             R below 1 kΩ or above 1 MΩ, C below 10 pF
  */
 import { formatSi } from '@/lib/units/si';
+import { MARGIN_LIMITS } from '@/lib/catalog/margins';
 import type { Check, CompensatorInput, Margins, OperatingPoint } from './types';
 import type { SampledResponse } from './margins';
 
@@ -25,6 +27,8 @@ const hz = (v: number) => formatSi(v, 'Hz');
 const shown = (v: number) => Math.round(v * 10) / 10;
 const deg = (v: number) => `${shown(v).toFixed(1)}°`;
 const db = (v: number) => `${shown(v).toFixed(1)} dB`;
+const PM = MARGIN_LIMITS.phaseMarginDeg;
+const GM = MARGIN_LIMITS.gainMarginDb;
 
 /** Checks that depend on the loop only (run on every drag). */
 export const loopChecks = (args: {
@@ -89,17 +93,17 @@ export const loopChecks = (args: {
       });
     }
     const pm = margins.phaseMarginDeg === null ? null : shown(margins.phaseMarginDeg);
-    if (pm !== null && pm < 30) {
+    if (pm !== null && pm < PM.risk) {
       out.push({
         id: 'phase-margin-low',
         level: 'risk',
-        message: `Phase margin is ${deg(pm)} (under 30°): expect heavy ringing on load steps${pm <= 0 ? ', and the loop is unstable' : ''}. Move the compensator zeros closer to fc or lower fc; aim for 45–60°.`,
+        message: `Phase margin is ${deg(pm)} (under ${PM.risk}°): expect heavy ringing on load steps${pm <= 0 ? ', and the loop is unstable' : ''}. Move the compensator zeros closer to fc or lower fc; aim for ${PM.aim}.`,
       });
-    } else if (pm !== null && pm < 45) {
+    } else if (pm !== null && pm < PM.caution) {
       out.push({
         id: 'phase-margin-low',
         level: 'caution',
-        message: `Phase margin is ${deg(pm)} (under 45°): load steps will overshoot and ring. Add phase boost at fc or lower fc; aim for 45–60°.`,
+        message: `Phase margin is ${deg(pm)} (under ${PM.caution}°): load steps will overshoot and ring. Add phase boost at fc or lower fc; aim for ${PM.aim}.`,
       });
     }
     if (gainCrossings.length > 1) {
@@ -118,17 +122,17 @@ export const loopChecks = (args: {
     }
   }
   const gm = margins.gainMarginDb === null ? null : shown(margins.gainMarginDb);
-  if (gm !== null && gm < 6) {
+  if (gm !== null && gm < GM.risk) {
     out.push({
       id: 'gain-margin-low',
       level: 'risk',
-      message: `Gain margin is ${db(gm)} (under 6 dB)${gm <= 0 ? ': the loop is unstable' : ''}; part tolerances or a change of input voltage can make it oscillate. Lower the high-frequency gain (the compensator's mid-band gain) or move its poles down.`,
+      message: `Gain margin is ${db(gm)} (under ${GM.risk} dB)${gm <= 0 ? ': the loop is unstable' : ''}; part tolerances or a change of input voltage can make it oscillate. Lower the high-frequency gain (the compensator's mid-band gain) or move its poles down.`,
     });
-  } else if (gm !== null && gm < 10) {
+  } else if (gm !== null && gm < GM.caution) {
     out.push({
       id: 'gain-margin-low',
       level: 'caution',
-      message: `Gain margin is ${db(gm)} (under 10 dB). Lower the gain above fc (compensator poles closer to fc) to gain headroom.`,
+      message: `Gain margin is ${db(gm)} (under ${GM.caution} dB). Lower the gain above fc (compensator poles closer to fc) to gain headroom.`,
     });
   }
   return out;

@@ -46,4 +46,25 @@ export {
 export type { SectionedTransfer } from './transfer';
 export { loopChecks, partChecks, stageChecks } from './checks';
 export { compensatorIssues, stageIssues, validateRequest } from './validate';
+export { closedLoopResponses, complexAt, loopBlocks } from './closed-loop';
+export type { ClosedLoopResponses } from './closed-loop';
+export { simulateLoopStep, stepMetrics } from './linear-loop';
+export type { LoopBlocks, LoopInput, LoopStepInput, LoopTimeResponse, StepMetrics } from './linear-loop';
+export { DEFAULT_STEP_BAND, isVoltageMode, simulateStepResponse, stageBeforeStep } from './step-response';
+export type { StepDefinition, StepKind, StepResponseResult } from './step-response';
+export { createSwitchingSim } from './switching';
+export type { CycleRecord, Sample, SwitchControl, SwitchingSetup, SwitchingSim } from './switching';
+export {
+  MAX_INJECTIONS,
+  MAX_SWITCHING_CYCLES,
+  defaultInjectionHz,
+  estimateCheckCycles,
+  estimateStepCycles,
+  measureSteadyState,
+  modelCheck,
+  simulatorFor,
+  switchControlOf,
+  switchingStep,
+} from './switching-check';
+export type { ModelCheckPoint, ModelCheckResult, ProgressFn, SteadyStateSummary, SwitchingStepResult, Waveform } from './switching-check';
 export { BODE_SIGNIFICANT_DIGITS, roundBode, roundSignificant } from './precision';

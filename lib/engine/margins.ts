@@ -2,7 +2,7 @@
  * Stability margins of a loop gain T from a sampled Bode response, with crossings refined
  * numerically on the analytic function when one is given.
  *
- * Definitions (issue 3, item 7):
+ * Definitions (the usual ones, e.g. Ogata, Modern Control Engineering, 5th ed., §7-6):
  * - every 0 dB crossing of |T| and every −180° crossing of the unwrapped phase is listed;
  * - headline crossover fc = the highest frequency where |T| falls through 0 dB;
  * - phase margin = 180° + ∠T(j2πfc), phase unwrapped continuously from its principal value

@@ -3,7 +3,7 @@
  * as an ordinary CompensatorInput that the designer edits afterwards.
  *
  * K factor (Venable, "The K Factor: A New Mathematical Tool for Stability Analysis and
- * Synthesis", Powercon 10, 1983; equations from memory, CHECK-VALUES §2.3). With the plant
+ * Synthesis", Proc. Powercon 10, 1983; equations from memory). With the plant
  * phase P at fc (negative) and Gc = Zf/Zi (op-amp inversion not counted):
  *   boost = PM − P − 90°,  G = 1/|plant(fc)|
  *   Type II:  K = tan(boost/2 + 45°);  C2 = 1/(2π·fc·G·K·R1);  C1 = C2(K² − 1);  R2 = K/(2π·fc·C1)
@@ -11,7 +11,7 @@
  *             R3 = R1/(K − 1);  C3 = 1/(2π·fc·√K·R3)
  *   Type I:   C1 = 1/(2π·fc·G·R1) (no boost: the margin is what the plant leaves).
  *
- * Pole-zero rules (common practice, CHECK-VALUES §4): zeros at the LC resonance (Type III:
+ * Pole-zero rules (common practice): zeros at the LC resonance (Type III:
  * 0.5·f0 and f0), poles at the ESR zero (when below fsw/2) and at fsw/2, then the
  * integrator frequency scaled so |T(fc)| = 1. The target PM is not used by these rules.
  */

@@ -15,7 +15,6 @@ import { evalPoly, polyMul, polyTrim, type Poly } from './complex-poly';
 import type { TransferSummary } from './types';
 
 const TWO_PI = 2 * Math.PI;
-const RAD2DEG = 180 / Math.PI;
 
 export interface SectionedTransfer {
   /** Real gain, sign included (the sign contributes 180° of phase). */

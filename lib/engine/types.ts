@@ -6,13 +6,28 @@
  * `null`, never 0 or NaN. This module imports nothing.
  */
 
-export type Topology = 'buck' | 'boost' | 'buck-boost';
-export type CompensatorType = 'type1' | 'type2' | 'type3';
-export type ESeriesName = 'E6' | 'E12' | 'E24' | 'E48' | 'E96' | 'E192';
+/*
+ * The closed lists of the contract, as `as const` tuples: the zod schemas
+ * (lib/validation/analyze.ts), the database enums (db/schema.ts) and the
+ * catalogue (lib/catalog/) are all built from these, so adding a member here
+ * is the one place a list grows.
+ */
+export const TOPOLOGIES = ['buck', 'boost', 'buck-boost'] as const;
+export type Topology = (typeof TOPOLOGIES)[number];
 
-export const TOPOLOGIES: readonly Topology[] = ['buck', 'boost', 'buck-boost'];
-export const COMPENSATOR_TYPES: readonly CompensatorType[] = ['type1', 'type2', 'type3'];
-export const E_SERIES_NAMES: readonly ESeriesName[] = ['E6', 'E12', 'E24', 'E48', 'E96', 'E192'];
+export const COMPENSATOR_TYPES = ['type1', 'type2', 'type3'] as const;
+export type CompensatorType = (typeof COMPENSATOR_TYPES)[number];
+
+/** The error amplifier of the compensator: an inverting op-amp network. */
+export const AMPLIFIERS = ['opamp'] as const;
+export type Amplifier = (typeof AMPLIFIERS)[number];
+
+/** How the modulator turns the control voltage into duty: a fixed ramp (voltage mode). */
+export const MODULATOR_MODES = ['voltage'] as const;
+export type ModulatorMode = (typeof MODULATOR_MODES)[number];
+
+export const E_SERIES_NAMES = ['E6', 'E12', 'E24', 'E48', 'E96', 'E192'] as const;
+export type ESeriesName = (typeof E_SERIES_NAMES)[number];
 
 /** Power stage. vin and vout are magnitudes; the buck-boost output is inverted. */
 export interface ConverterInput {
@@ -31,8 +46,9 @@ export interface ConverterInput {
   vd: number;
 }
 
-/** Voltage-mode PWM: modulator gain is 1/vramp. */
+/** Voltage-mode PWM: modulator gain is 1/vramp. `mode` absent means 'voltage'. */
 export interface ModulatorInput {
+  mode?: ModulatorMode;
   vramp: number;
 }
 
@@ -49,6 +65,8 @@ export interface FeedbackInput {
  */
 export interface CompensatorInput {
   type: CompensatorType;
+  /** Absent means 'opamp'. */
+  amplifier?: Amplifier;
   r1: number;
   r2?: number;
   r3?: number;

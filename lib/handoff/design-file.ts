@@ -65,7 +65,7 @@ export function readDesignFile(body: unknown): ReadDesignFile {
       error: 'The design file contradicts itself',
       issues: [{ path: 'input.converter.topology', message: `the design is a ${file.design.topology} but its input is a ${file.input.converter.topology}` }],
     };
-  return { ok: true, file, input: file.input as unknown as AnalyzeRequest };
+  return { ok: true, file, input: file.input };
 }
 
 /**

@@ -4,6 +4,7 @@
  * passes them in.
  */
 import { analyze } from '@/lib/engine/analyze';
+import type { SignoffState } from '@/lib/catalog/signoff';
 import type { AnalyzeRequest, AnalyzeResult, Topology } from '@/lib/engine/types';
 import { builtRequest, partsAreStandard } from './built-parts';
 import { buildDesignFile, designFileJson } from './design-file';
@@ -15,7 +16,7 @@ import { spiceNetlistFile } from './spice';
 export interface ExportContext {
   design: { name: string; description: string; topology: Topology; designatorMap: Record<string, string> };
   revision: { number: number; note: string; createdAt: Date; authorName: string; input: AnalyzeRequest };
-  signoff: { state: string; at: Date | null; by: string | null };
+  signoff: { state: SignoffState; at: Date | null; by: string | null };
   result: AnalyzeResult;
   teamName: string;
   now?: Date;

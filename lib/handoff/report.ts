@@ -5,6 +5,7 @@
  * revision number, its sign-off state and the dates.
  */
 import { CAUTIONS } from '@/lib/cautions';
+import { compensatorTitle, inputApplies, inputLabel, readInput, signoffLabel, STAGE_INPUTS, topologyLabel, type SignoffState } from '@/lib/catalog';
 import type { AnalyzeRequest, AnalyzeResult, Margins } from '@/lib/engine/types';
 import { formatSi } from '@/lib/units/si';
 import { formatTolerance, PART_NAME, TOLERANCE_CONVENTION, schematicValue, type PartRow } from './parts-list';
@@ -14,7 +15,7 @@ import { bodeSvg } from './svg-plot';
 export interface ReportInput {
   design: { name: string; description: string; topology: string };
   revision: { number: number; note: string; createdAt: Date; authorName: string };
-  signoff: { state: string; at: Date | null; by: string | null };
+  signoff: { state: SignoffState; at: Date | null; by: string | null };
   input: AnalyzeRequest;
   result: AnalyzeResult;
   /** The loop with the standard part values (what will be built); defaults to the ideal one. */
@@ -93,14 +94,6 @@ ${row('Gain margin', esc(num(b.measured.gainMarginDb, 'dB')), esc(num(b.model.ga
 const esc = (s: string) =>
   s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
 
-const SIGNOFF_LABEL: Record<string, string> = {
-  draft: 'Draft',
-  'in-review': 'In review',
-  approved: 'Approved',
-  'changes-requested': 'Changes requested',
-};
-
-const COMPENSATOR_LABEL = { type1: 'Type I (integrator)', type2: 'Type II', type3: 'Type III' } as const;
 
 const date = (d: Date) => d.toISOString().slice(0, 10);
 const dateTime = (d: Date) => `${d.toISOString().slice(0, 16).replace('T', ' ')} UTC`;
@@ -130,22 +123,15 @@ export function buildReportHtml(r: ReportInput): string {
   const op = result.operatingPoint;
   const generatedAt = r.generatedAt ?? new Date();
   const title = `${r.design.name} — r${r.revision.number}`;
-  const state = SIGNOFF_LABEL[r.signoff.state] ?? r.signoff.state;
+  const state = signoffLabel(r.signoff.state);
 
   const inputs = table([
-    ['Topology', cv.topology],
-    ['Input voltage Vin', si(cv.vin, 'V')],
-    ['Output voltage Vout', si(cv.vout, 'V')],
-    ['Load current Iout', si(cv.iout, 'A')],
-    ['Switching frequency fsw', si(cv.fsw, 'Hz')],
-    ['Inductor L', si(cv.l, 'H')],
-    ['Inductor DCR', si(cv.rl, 'Ω')],
-    ['Output capacitor C', si(cv.c, 'F')],
-    ['Capacitor ESR', si(cv.rc, 'Ω')],
-    ['Diode drop', cv.vd ? si(cv.vd, 'V') : '0 (synchronous)'],
-    ['PWM ramp Vramp', si(input.modulator.vramp, 'V')],
-    ['Reference Vref', si(input.feedback.vref, 'V')],
-    ['Compensator', COMPENSATOR_LABEL[comp.type]],
+    ['Topology', topologyLabel(cv.topology)],
+    ...STAGE_INPUTS.filter((spec) => inputApplies(spec, input)).map((spec): [string, string] => {
+      const v = readInput(input, spec);
+      return [inputLabel(spec), v === 0 && spec.zeroMeans ? `0 (${spec.zeroMeans})` : si(v, spec.unit)];
+    }),
+    ['Compensator', compensatorTitle(comp.type)],
     ['Resistor / capacitor series', `${result.parts.resistorSeries} / ${result.parts.capacitorSeries}`],
   ]);
 

@@ -4,18 +4,10 @@
  * plots of the Handoff screen. Panels share the frequency axis and stack vertically.
  * Pure string building: every label is escaped, every number rounded to 0.1 px.
  */
+import { TRACE_COLORS } from '@/lib/catalog/traces';
 import { formatSi } from '@/lib/units/si';
 
-export const PLOT_COLORS = {
-  loop: '#4f46e5', // indigo
-  plant: '#0d9488', // teal
-  compensator: '#d97706', // amber
-  bench: '#6b7280', // grey dots (as the Tune plot)
-  difference: '#be123c',
-  grid: '#e2e8f0',
-  guide: '#94a3b8',
-  text: '#334155',
-} as const;
+const PLOT_COLORS = TRACE_COLORS;
 
 export interface SvgSeries {
   label: string;

@@ -1,6 +1,8 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { MeasuredMargins } from '@/lib/handoff/bench-compare';
 import type { BenchPoints } from '@/lib/handoff/bench-parse';
+import type { BenchDetailBody, BenchSummaryRow, BenchUploadedBody } from '@/lib/handoff/bench-responses';
+import type { Jsonified } from '@/lib/json';
 import { ApiError, designKeys, requestJson } from './revisions';
 
 /**
@@ -18,48 +20,9 @@ export const benchKeys = {
 
 export type { BenchPoints, MeasuredMargins };
 
-export interface BenchListItem {
-  id: number;
-  designId: number;
-  /** The revision measured; null for design-wide data from before bench data had a revision. */
-  revisionNumber: number | null;
-  name: string;
-  phaseShifted: boolean;
-  uploaderName: string;
-  createdAt: string;
-}
-
-export interface BenchDetail extends BenchListItem {
-  points: BenchPoints;
-  /** Of the data as uploaded: phase near +90° at low frequency (measured as −T). */
-  looksInverted: boolean;
-  lowFrequencyPhaseDeg: number;
-  measured: MeasuredMargins;
-  /** Present when asked with a revision. */
-  revision?: number;
-  difference?: BenchPoints;
-  largestGainDifferenceDb?: number | null;
-  largestPhaseDifferenceDeg?: number | null;
-  model?: {
-    crossoverHz: number | null;
-    phaseMarginDeg: number | null;
-    gainMarginDb: number | null;
-    bode: { f: number[]; magDb: number[]; phaseDeg: number[] };
-  };
-}
-
-export interface BenchUploaded {
-  id: number;
-  name: string;
-  rows: number;
-  frequencyUnit: 'Hz' | 'kHz' | 'MHz';
-  notes: string[];
-  looksInverted: boolean;
-  lowFrequencyPhaseDeg: number;
-  phaseShifted: boolean;
-  measured: MeasuredMargins;
-  revision: number;
-}
+export type BenchListItem = Jsonified<BenchSummaryRow>;
+export type BenchDetail = Jsonified<BenchDetailBody>;
+export type BenchUploaded = Jsonified<BenchUploadedBody> & { revision: number };
 
 /** The overlay a Bode plot takes (components/plot/bode-plot.tsx `bench`). */
 export interface BenchOverlay extends BenchPoints {

@@ -1,5 +1,8 @@
 import { queryOptions } from '@tanstack/react-query';
+import type { RevisionRow } from '@/db/queries/revisions';
 import type { AnalyzeRequest } from '@/lib/engine/types';
+import type { Jsonified } from '@/lib/json';
+import type { SavedRevisionBody } from '@/lib/revision-summary';
 
 /** Stable query keys for designs and their revisions; mutations invalidate these. */
 export const designKeys = {
@@ -9,26 +12,11 @@ export const designKeys = {
   revision: (designId: number, number: number) => ['designs', designId, 'revisions', number] as const,
 };
 
-export interface RevisionListItem {
-  id: number;
-  designId: number;
-  number: number;
-  baseNumber: number | null;
-  input: AnalyzeRequest;
-  summary: unknown;
-  authorId: number;
-  authorName: string;
-  note: string;
-  createdAt: string;
-}
+/** A revision as GET /api/designs/:id/revisions(/:number) answers it. */
+export type RevisionListItem = Jsonified<RevisionRow>;
 
-export interface SavedRevision {
-  id: number;
-  number: number;
-  baseRevision: number | null;
-  note: string;
-  createdAt: string;
-}
+/** What POST /api/designs/:id/revisions answers. */
+export type SavedRevision = Jsonified<SavedRevisionBody>;
 
 export interface SaveRevisionBody {
   baseRevision: number | null;

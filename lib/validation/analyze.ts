@@ -1,19 +1,44 @@
 import { z } from 'zod';
-import { COMPENSATOR_TYPES, E_SERIES_NAMES, TOPOLOGIES } from '@/lib/engine/types';
-import type { AnalyzeRequest } from '@/lib/engine/types';
+import {
+  AMPLIFIERS,
+  COMPENSATOR_TYPES,
+  E_SERIES_NAMES,
+  MODULATOR_MODES,
+  TOPOLOGIES,
+  type AnalyzeRequest,
+  type FieldIssue,
+} from '@/lib/engine/types';
 
 /**
  * Shape of an analysis request (POST /api/analyze, a revision's input).
  * Only structure is checked here (answers 400); physical sense (L > 0,
  * buck vout < vin, …) is the engine's job and answers 422.
+ *
+ * Direction of the contract: the engine's `AnalyzeRequest` (lib/engine/types.ts)
+ * is the source; this schema must parse to exactly that type (checked at the
+ * bottom of this file at compile time), so a field added to the engine without
+ * a schema entry, or the other way round, fails the type check.
  */
 const finite = (label: string) =>
   z.number({ error: `${label} must be a number` }).refine(Number.isFinite, `${label} must be finite`);
 
+/** `"a", "b" or "c"` for messages naming a closed list. */
+export function listWords(values: readonly string[]): string {
+  const q = values.map((v) => `"${v}"`);
+  return q.length <= 1 ? (q[0] ?? '') : `${q.slice(0, -1).join(', ')} or ${q.at(-1)}`;
+}
+
+const oneOf = <const T extends readonly [string, ...string[]]>(values: T, field: string) =>
+  z.enum(values, { error: `${field} must be ${listWords(values)}` });
+
+export const topologySchema = oneOf(TOPOLOGIES, 'topology');
+export const compensatorTypeSchema = oneOf(COMPENSATOR_TYPES, 'type');
+export const amplifierSchema = oneOf(AMPLIFIERS, 'amplifier');
+export const modulatorModeSchema = oneOf(MODULATOR_MODES, 'mode');
+export const eSeriesSchema = z.enum(E_SERIES_NAMES, { error: `series must be one of ${E_SERIES_NAMES.join(', ')}` });
+
 export const converterSchema = z.object({
-  topology: z.enum(TOPOLOGIES as [string, ...string[]], {
-    error: 'topology must be "buck", "boost" or "buck-boost"',
-  }),
+  topology: topologySchema,
   vin: finite('vin'),
   vout: finite('vout'),
   iout: finite('iout'),
@@ -25,10 +50,16 @@ export const converterSchema = z.object({
   vd: finite('vd').default(0),
 });
 
+export const modulatorSchema = z.object({
+  mode: modulatorModeSchema.optional(),
+  vramp: finite('vramp'),
+});
+
+export const feedbackSchema = z.object({ vref: finite('vref') });
+
 export const compensatorSchema = z.object({
-  type: z.enum(COMPENSATOR_TYPES as [string, ...string[]], {
-    error: 'type must be "type1", "type2" or "type3"',
-  }),
+  type: compensatorTypeSchema,
+  amplifier: amplifierSchema.optional(),
   r1: finite('r1'),
   r2: finite('r2').optional(),
   r3: finite('r3').optional(),
@@ -37,26 +68,26 @@ export const compensatorSchema = z.object({
   c3: finite('c3').optional(),
 });
 
-const seriesSchema = z.enum(E_SERIES_NAMES as [string, ...string[]], {
-  error: 'series must be one of E6, E12, E24, E48, E96, E192',
+export const partsOptionsSchema = z.object({
+  resistorSeries: eSeriesSchema.default('E96'),
+  capacitorSeries: eSeriesSchema.default('E12'),
 });
+
+export const sweepSchema = z
+  .object({
+    fStart: finite('fStart').refine((v) => v > 0, 'fStart must be above 0 Hz'),
+    fStop: finite('fStop'),
+    points: z.number().int('points must be a whole number').min(10).max(20000),
+  })
+  .refine((s) => s.fStop > s.fStart, { message: 'fStop must be above fStart', path: ['fStop'] });
 
 export const analyzeRequestSchema = z.object({
   converter: converterSchema,
-  modulator: z.object({ vramp: finite('vramp') }),
-  feedback: z.object({ vref: finite('vref') }),
+  modulator: modulatorSchema,
+  feedback: feedbackSchema,
   compensator: compensatorSchema,
-  parts: z
-    .object({ resistorSeries: seriesSchema.default('E96'), capacitorSeries: seriesSchema.default('E12') })
-    .optional(),
-  sweep: z
-    .object({
-      fStart: finite('fStart').refine((v) => v > 0, 'fStart must be above 0 Hz'),
-      fStop: finite('fStop'),
-      points: z.number().int('points must be a whole number').min(10).max(20000),
-    })
-    .refine((s) => s.fStop > s.fStart, { message: 'fStop must be above fStart', path: ['fStop'] })
-    .optional(),
+  parts: partsOptionsSchema.optional(),
+  sweep: sweepSchema.optional(),
 });
 
 /**
@@ -68,30 +99,50 @@ export const analyzeOutputSchema = z
   .object({ arrays: z.boolean({ error: 'output.arrays must be true or false' }).default(true) })
   .default({ arrays: true });
 
-export function parseAnalyzeOutput(body: unknown, url: URL) {
-  const raw = body && typeof body === 'object' && 'output' in body ? body.output : undefined;
-  const r = analyzeOutputSchema.safeParse(raw);
-  if (!r.success) return { ok: false as const, issues: zodIssues(r.error).map((i) => ({ ...i, path: i.path === '(body)' ? 'output' : `output.${i.path}` })) };
+/** The body of POST /api/analyze: a request plus what the answer should carry. */
+export const analyzeBodySchema = analyzeRequestSchema.extend({ output: analyzeOutputSchema });
+
+/** `?arrays=0|1|true|false` overrides `output.arrays`; anything else is a field issue. */
+export function arraysWanted(url: URL, fromBody: boolean): { ok: true; arrays: boolean } | { ok: false; issues: FieldIssue[] } {
   const q = url.searchParams.get('arrays');
-  if (q !== null && !['0', '1', 'true', 'false'].includes(q))
-    return { ok: false as const, issues: [{ path: 'arrays', message: 'the arrays query parameter must be 0, 1, true or false' }] };
-  const arrays = q === null ? r.data.arrays : q === '1' || q === 'true';
-  return { ok: true as const, data: { arrays } };
+  if (q === null) return { ok: true, arrays: fromBody };
+  if (!['0', '1', 'true', 'false'].includes(q))
+    return { ok: false, issues: [{ path: 'arrays', message: 'the arrays query parameter must be 0, 1, true or false' }] };
+  return { ok: true, arrays: q === '1' || q === 'true' };
 }
 
 export type AnalyzeRequestInput = z.input<typeof analyzeRequestSchema>;
 
 /** Parse into the engine's request type (defaults applied). */
-export function parseAnalyzeRequest(body: unknown) {
+export function parseAnalyzeRequest(body: unknown): { ok: true; data: AnalyzeRequest } | { ok: false; issues: FieldIssue[] } {
   const r = analyzeRequestSchema.safeParse(body);
-  if (!r.success) return { ok: false as const, issues: zodIssues(r.error) };
-  return { ok: true as const, data: r.data as unknown as AnalyzeRequest };
+  if (!r.success) return { ok: false, issues: zodIssues(r.error) };
+  return { ok: true, data: r.data };
 }
 
 /** zod issues as the API's { path, message } list, path dotted. */
-export function zodIssues(error: z.ZodError) {
+export function zodIssues(error: z.ZodError): FieldIssue[] {
   return error.issues.map((i) => ({
     path: i.path.map(String).join('.') || '(body)',
     message: i.message,
   }));
 }
+
+// Compile-time tie between the schema and the engine's request type: both
+// directions must be assignable and the key sets equal at every level.
+type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
+type SameKeys<A, B> = Same<keyof A, keyof B>;
+type Parsed = z.output<typeof analyzeRequestSchema>;
+type Req = Required<AnalyzeRequest>;
+type P = Required<Parsed>;
+const contractChecks: [
+  Same<Parsed, AnalyzeRequest>,
+  SameKeys<Parsed, AnalyzeRequest>,
+  SameKeys<P['converter'], Req['converter']>,
+  SameKeys<P['modulator'], Req['modulator']>,
+  SameKeys<P['feedback'], Req['feedback']>,
+  SameKeys<P['compensator'], Req['compensator']>,
+  SameKeys<P['parts'], Req['parts']>,
+  SameKeys<P['sweep'], Req['sweep']>,
+] = [true, true, true, true, true, true, true, true];
+void contractChecks;

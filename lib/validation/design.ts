@@ -1,8 +1,8 @@
 import { z } from 'zod';
+import { PART_ORDER } from '@/lib/catalog/compensators';
+import { topologySchema } from './analyze';
 
-export const topologySchema = z.enum(['buck', 'boost', 'buck-boost'], {
-  error: 'topology must be "buck", "boost" or "buck-boost"',
-});
+export { topologySchema };
 
 export const designCreateSchema = z.object({
   name: z
@@ -21,7 +21,7 @@ export const designUpdateSchema = designCreateSchema
     // partialRecord: a mapping may name only some parts (z.record with enum keys wants all).
     designatorMap: z
       .partialRecord(
-        z.enum(['r1', 'r2', 'r3', 'c1', 'c2', 'c3', 'rb']),
+        z.enum(PART_ORDER),
         z.string().trim().regex(/^[A-Za-z]{1,4}\d{1,5}[A-Za-z]?$/, 'use a reference designator such as R17 or C42'),
       )
       .optional(),

@@ -40,6 +40,8 @@ async function openTune(page: Page) {
 const pm = (page: Page) => page.getByTestId('readout-pm').textContent();
 
 async function dragBy(page: Page, handle: string, dx: number, dy: number) {
+  // A field lower down may have scrolled the plot away: the mouse only reaches what is in view.
+  await page.locator(`[data-handle="${handle}"]`).scrollIntoViewIfNeeded();
   const box = (await page.locator(`[data-handle="${handle}"]`).boundingBox())!;
   const x = box.x + box.width / 2;
   const y = box.y + box.height / 2;
@@ -217,6 +219,147 @@ describe.runIf(run)('Tune', () => {
     expect(saved.input).toEqual(own.input);
     const first = await (await designer.fetch(`/api/designs/${own.designId}/revisions/1`)).json();
     expect(first.input).toEqual(own.input);
+    await page.context().close();
+  });
+
+  it('reverses drags exactly (+25, −50, +25 px) for the gain and a zero, and undoes/redoes each edit (keys and buttons)', async () => {
+    const own = await savedDesign(designer, 'Browser reversible rail');
+    const page = await pageAs('designer@demo.test');
+    await page.goto(`${baseUrl}/designs/${own.designId}`);
+    await page.locator('[data-plot-ready="true"]').waitFor({ timeout: 60_000 });
+    const gain0 = await page.getByTestId('value-gain').inputValue();
+    const zero0 = await page.getByTestId('value-z0').inputValue();
+    const integrator0 = await page.getByTestId('value-integrator').inputValue();
+    // The gain handle says what it is: the compensator's gain at its own frequency, and that it sets the integrator.
+    expect(await page.locator('[data-handle="gain"]').getAttribute('aria-valuetext')).toMatch(/dB, sets the integrator$/);
+    expect(await page.locator('[data-row="gain"]').textContent()).toMatch(/Gain at .*Hz/);
+
+    for (const step of [25, -50, 25]) {
+      await dragBy(page, 'gain', 0, step);
+      await page.waitForTimeout(300);
+    }
+    expect(await page.getByTestId('value-gain').inputValue()).toBe(gain0);
+    expect(await page.getByTestId('value-integrator').inputValue()).toBe(integrator0);
+    for (const step of [25, -50, 25]) {
+      await dragBy(page, 'z0', step, 0);
+      await page.waitForTimeout(300);
+    }
+    expect(await page.getByTestId('value-z0').inputValue()).toBe(zero0);
+    // Moving a zero holds the integrator (the curve below it stays).
+    expect(await page.getByTestId('value-integrator').inputValue()).toBe(integrator0);
+
+    // Undo: each drag is one step, the last first.
+    await dragBy(page, 'z0', -60, 0);
+    const zeroMoved = await page.getByTestId('value-z0').inputValue();
+    expect(zeroMoved).not.toBe(zero0);
+    await page.locator('[data-handle="z0"]').focus();
+    await page.keyboard.press('ControlOrMeta+Z');
+    await expect.poll(() => page.getByTestId('value-z0').inputValue()).toBe(zero0);
+    await page.keyboard.press('ControlOrMeta+Shift+Z');
+    await expect.poll(() => page.getByTestId('value-z0').inputValue()).toBe(zeroMoved);
+    await page.getByTestId('undo').click();
+    await expect.poll(() => page.getByTestId('value-z0').inputValue()).toBe(zero0);
+    await page.getByTestId('redo').click();
+    await expect.poll(() => page.getByTestId('value-z0').inputValue()).toBe(zeroMoved);
+    // A stage edit is undone too (the field shows the value again).
+    const vin = await page.locator('#stage-vin').inputValue();
+    await page.locator('#stage-vin').fill(String(Number(vin) + 1));
+    await expect.poll(() => page.getByTestId('undo').isEnabled()).toBe(true);
+    await page.getByTestId('undo').click();
+    await expect.poll(() => page.locator('#stage-vin').inputValue()).toBe(vin);
+    await screenshot(page, 'tune-undo');
+    await page.context().close();
+  });
+
+  it('takes typed part values (SI prefixes) and holds a locked part while the handles move the others', async () => {
+    const own = await savedDesign(designer, 'Browser parts rail');
+    const page = await pageAs('designer@demo.test');
+    await page.goto(`${baseUrl}/designs/${own.designId}`);
+    await page.locator('[data-plot-ready="true"]').waitFor({ timeout: 60_000 });
+    const zero0 = await page.getByTestId('value-z0').inputValue();
+    const c1 = page.getByTestId('part-c1-value');
+    await c1.focus();
+    await page.keyboard.press('ControlOrMeta+A');
+    await page.keyboard.type('4.7n');
+    await page.keyboard.press('Enter');
+    await expect.poll(() => c1.inputValue()).toBe('4.7 nF');
+    await expect.poll(() => page.getByTestId('value-z0').inputValue()).not.toBe(zero0);
+
+    await page.getByTestId('part-c1-lock').check();
+    const r1Before = await page.getByTestId('part-r1-value').inputValue();
+    await dragBy(page, 'z0', 40, 0);
+    await dragBy(page, 'gain', 0, -20);
+    await page.waitForTimeout(300);
+    expect(await c1.inputValue()).toBe('4.7 nF');
+    expect(await page.getByTestId('part-r1-value').inputValue()).not.toBe(r1Before);
+    await screenshot(page, 'tune-parts-locked');
+    await page.context().close();
+  });
+
+  it('follows the stage with the target fc, keeps fc and the PM target on a type change, and explains a fallback', async () => {
+    const own = await savedDesign(designer, 'Browser starting point rail');
+    const page = await pageAs('designer@demo.test');
+    await page.goto(`${baseUrl}/designs/${own.designId}`);
+    await page.locator('[data-plot-ready="true"]').waitFor({ timeout: 60_000 });
+    await page.locator('summary', { hasText: 'Starting point' }).click();
+    const fcBefore = await page.locator('#sp-fc').inputValue();
+    const fsw = await page.locator('#stage-fsw').inputValue();
+    await page.locator('#stage-fsw').fill('800k');
+    await expect.poll(() => page.locator('#sp-fc').inputValue()).not.toBe(fcBefore);
+    await page.locator('#stage-fsw').fill(fsw);
+    await expect.poll(() => page.locator('#sp-fc').inputValue()).toBe(fcBefore);
+
+    const fc0 = await page.getByTestId('readout-fc').textContent();
+    const other = (await page.getByTestId('compensator-type').inputValue()) === 'type3' ? 'type2' : 'type3';
+    await page.getByTestId('compensator-type').selectOption(other);
+    await page.getByTestId('type-note').waitFor();
+    const note = (await page.getByTestId('type-note').textContent())!;
+    if (/same fc/.test(note)) expect(await page.getByTestId('readout-fc').textContent()).toBe(fc0);
+    else expect(note).toMatch(/Reachable with Type I/);
+    await page.getByTestId('compensator-type').selectOption('type1');
+    await expect.poll(() => page.getByTestId('type-note').textContent()).toMatch(/Type I adds no phase boost.*Placed/);
+    await screenshot(page, 'tune-type1-note');
+    await page.context().close();
+  });
+
+  it('keeps a sweep set on Tune with the revision, and says when the crossover lies above it', async () => {
+    const own = await savedDesign(designer, 'Browser sweep rail');
+    const page = await pageAs('designer@demo.test');
+    await page.goto(`${baseUrl}/designs/${own.designId}`);
+    await page.locator('[data-plot-ready="true"]').waitFor({ timeout: 60_000 });
+    const stop = page.getByTestId('sweep-stop');
+    await stop.focus();
+    await page.keyboard.press('ControlOrMeta+A');
+    await page.keyboard.type('1k');
+    await page.keyboard.press('Enter');
+    await expect.poll(() => stop.inputValue()).toBe('1 kHz');
+    // The loop is still above 0 dB at 1 kHz: the check says so instead of "no crossover".
+    await expect.poll(() => page.getByTestId('tune').textContent()).toMatch(/crossover lies above the end of the sweep/);
+    await page.getByTestId('revision-note').fill('Sweep to 1 kHz');
+    await page.getByTestId('save-revision').click();
+    await expect.poll(() => page.getByTestId('save-state').textContent(), { timeout: 20_000 }).toContain('Saved as r2');
+    const saved = await (await designer.fetch(`/api/designs/${own.designId}/revisions/2`)).json();
+    expect(saved.input.sweep).toEqual({ fStart: 10, fStop: 1000, points: 400 });
+    await page.reload();
+    await page.locator('[data-plot-ready="true"]').waitFor({ timeout: 60_000 });
+    expect(await page.getByTestId('sweep-stop').inputValue()).toBe('1 kHz');
+    await page.context().close();
+  });
+
+  it('lets a viewer try a what-if in Scratch: margins move, nothing is saved, and it is clearly marked', async () => {
+    const page = await pageAs('viewer@demo.test');
+    await openTune(page);
+    const pm0 = await pm(page);
+    await page.getByTestId('scratch-start').click();
+    await page.getByTestId('scratch-banner').waitFor();
+    expect(await page.getByTestId('tune').getAttribute('data-scratch')).toBe('true');
+    expect(await page.getByTestId('save-revision').count()).toBe(0);
+    await dragBy(page, 'z0', -90, 0);
+    await expect.poll(() => pm(page)).not.toBe(pm0);
+    await screenshot(page, 'tune-scratch');
+    await page.getByTestId('scratch-leave').click();
+    await expect.poll(() => pm(page)).toBe(pm0);
+    expect(await page.getByTestId('scratch-banner').count()).toBe(0);
     await page.context().close();
   });
 

@@ -17,10 +17,11 @@ import {
   verifyCredentials,
 } from '@/db/queries';
 import { memberships } from '@/db/schema';
-import { resolveDatabasePath, type Db } from '@/db/connection';
+import { resolveDatabasePath, type OpenDb } from '@/db/connection';
 import { tempDb } from '../support/temp-db';
+import { sampleRevisionBody } from '../support/sample-revision';
 
-let db: Db;
+let db: OpenDb;
 let cleanup: () => void;
 let teamA: number;
 let teamB: number;
@@ -95,7 +96,7 @@ describe('designs', () => {
 
 describe('revisions', () => {
   const save = (designId: number, baseNumber: number | null, note = '') =>
-    createRevision(db, { teamId: teamA, designId, baseNumber, input: { v: baseNumber }, summary: {}, authorId: alice, note });
+    createRevision(db, { teamId: teamA, designId, baseNumber, ...sampleRevisionBody(), authorId: alice, note });
 
   it('number 1, 2, … and show as draft in the list', () => {
     const d = createDesign(db, alice, teamA, { name: 'Rail', topology: 'buck' });

@@ -20,6 +20,7 @@ import {
 import type { Db } from '@/db/connection';
 import { memberships } from '@/db/schema';
 import { tempDb } from '../support/temp-db';
+import { sampleRevisionBody } from '../support/sample-revision';
 
 let db: Db;
 let cleanup: () => void;
@@ -37,7 +38,7 @@ beforeEach(() => {
   u.reviewer2 = createUser(db, { email: 'reviewer2@example.test', name: 'reviewer2', password: 'long enough' }).id;
   db.insert(memberships).values({ userId: u.reviewer2, teamId: team, role: 'reviewer' }).run();
   const design = createDesign(db, u.designer, team, { name: 'D', topology: 'buck' });
-  const rev = createRevision(db, { teamId: team, designId: design.id, baseNumber: null, input: {}, summary: {}, authorId: u.designer, note: '' });
+  const rev = createRevision(db, { teamId: team, designId: design.id, baseNumber: null, ...sampleRevisionBody(), authorId: u.designer, note: '' });
   ref = { teamId: team, designId: design.id, revisionId: rev.id, number: rev.number };
 });
 afterEach(() => cleanup());

@@ -4,7 +4,7 @@
  * team may see the other's designs (404).
  */
 import { eq } from 'drizzle-orm';
-import { openDatabase, type Db } from '@/db/connection';
+import { openDatabase } from '@/db/connection';
 import { createDesign, createRevision, createTeam, createUser, getUserByEmail } from '@/db/queries';
 import { memberships, revisions, teams } from '@/db/schema';
 import { Client } from './http';
@@ -17,8 +17,7 @@ export async function otherTeam(baseUrl: string, dbPath: string) {
   try {
     // Two test files may ask at once: one immediate transaction each.
     ids = db.transaction(
-      (tx) => {
-        const t = tx as unknown as Db;
+      (t) => {
         const team = t.select().from(teams).where(eq(teams.slug, 'harbor-power')).get() ?? createTeam(t, { name: 'Harbor Instruments — Power', slug: 'harbor-power' });
         let user = getUserByEmail(t, OUTSIDER.email);
         if (!user) {
@@ -26,7 +25,7 @@ export async function otherTeam(baseUrl: string, dbPath: string) {
           t.insert(memberships).values({ userId: user.id, teamId: team.id, role: 'admin' }).run();
         }
         const sample = t.select().from(revisions).limit(1).get()!;
-        const topology = (sample.input as { converter: { topology: 'buck' | 'boost' | 'buck-boost' } }).converter.topology;
+        const topology = sample.input.converter.topology;
         const design = createDesign(t, user.id, team.id, { name: 'Harbor 12 V bus', topology });
         createRevision(t, { teamId: team.id, designId: design.id, baseNumber: null, input: sample.input, summary: sample.summary, authorId: user.id, note: 'theirs' });
         return { designId: design.id, teamId: team.id, userId: user.id };

@@ -1,8 +1,8 @@
 import { NextResponse } from 'next/server';
 import { analyze } from '@/lib/engine/analyze';
 import { roundBode } from '@/lib/engine/precision';
-import { HttpError, withUser } from '@/lib/api';
-import { parseAnalyzeOutput, parseAnalyzeRequest } from '@/lib/validation/analyze';
+import { HttpError, parseJson, withUser } from '@/lib/api';
+import { analyzeBodySchema, arraysWanted } from '@/lib/validation/analyze';
 
 /**
  * Analyse a power stage + compensator; any signed-in user may (it writes nothing).
@@ -10,16 +10,9 @@ import { parseAnalyzeOutput, parseAnalyzeRequest } from '@/lib/validation/analyz
  * leaves them out.
  */
 export const POST = withUser(async (req) => {
-  let body: unknown;
-  try {
-    body = await req.json();
-  } catch {
-    throw new HttpError(400, 'The request body is not valid JSON', [{ path: '(body)', message: 'expected a JSON object' }]);
-  }
-  const output = parseAnalyzeOutput(body, new URL(req.url));
-  const parsed = parseAnalyzeRequest(body);
-  const issues = [...(output.ok ? [] : output.issues), ...(parsed.ok ? [] : parsed.issues)];
-  if (!parsed.ok || !output.ok) throw new HttpError(400, 'The request does not fit the analysis contract', issues);
-  const { bode, ...rest } = analyze(parsed.data);
-  return NextResponse.json(output.data.arrays ? { ...rest, bode: roundBode(bode) } : rest);
+  const { output, ...request } = await parseJson(req, analyzeBodySchema);
+  const wanted = arraysWanted(new URL(req.url), output.arrays);
+  if (!wanted.ok) throw new HttpError(400, 'The request does not fit the analysis contract', wanted.issues);
+  const { bode, ...rest } = analyze(request);
+  return NextResponse.json(wanted.arrays ? { ...rest, bode: roundBode(bode) } : rest);
 });

@@ -3,14 +3,12 @@ import { getDb } from '@/db/client';
 import { createDesign, getTeamSignoffSettings, listDesigns } from '@/db/queries';
 import { mayReview } from '@/lib/signoff-policy';
 import { can } from '@/lib/auth';
-import { HttpError, parseJson, withUser } from '@/lib/api';
-import { zodIssues } from '@/lib/validation/analyze';
+import { parseJson, parseQuery, withUser } from '@/lib/api';
 import { designCreateSchema, designListQuerySchema } from '@/lib/validation/design';
 
 /** Designs of the team: ?archived=active (default) | archived | all, ?waiting=me (in review, asking me). */
 export const GET = withUser(async (req, { user }) => {
-  const q = designListQuerySchema.safeParse(Object.fromEntries(new URL(req.url).searchParams));
-  if (!q.success) throw new HttpError(400, 'The list filter is not understood', zodIssues(q.error));
+  const q = { data: parseQuery(req, designListQuerySchema) };
   const db = getDb();
   const waiting = q.data.waiting === 'me';
   const designs = listDesigns(db, user.teamId, {

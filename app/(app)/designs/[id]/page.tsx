@@ -39,7 +39,7 @@ export default async function TunePage({ params, searchParams }: { params: Promi
     authorName: x.authorName,
     createdAt: new Date(x.createdAt).toISOString(),
   }));
-  const shownInput = shown ? (shown.input as AnalyzeRequest) : startingInput(design.topology);
+  const shownInput = shown ? shown.input : startingInput(design.topology);
   return (
     <div className="space-y-4">
       <CautionsPanel />
@@ -47,7 +47,7 @@ export default async function TunePage({ params, searchParams }: { params: Promi
         // ?from=N and the latest share a key: after a save the address drops ?from without a remount.
         key={r !== null ? `r${r}` : 'latest'}
         designId={design.id}
-        initialInput={from ? (from.input as AnalyzeRequest) : shownInput}
+        initialInput={from ? from.input : shownInput}
         savedInput={shownInput}
         editFrom={from && from.number !== shown?.number ? from.number : null}
         shownRevision={shown?.number ?? null}

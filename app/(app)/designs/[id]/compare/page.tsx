@@ -51,7 +51,7 @@ export default async function ComparePage({ params, searchParams }: Props) {
   const a = byNumber.get(Number(q.a)) ?? byNumber.get(fallbackA) ?? revisions[0];
   const missing = [q.a && !byNumber.has(Number(q.a)) ? `r${q.a}` : null, q.b && !byNumber.has(Number(q.b)) ? `r${q.b}` : null].filter(Boolean);
 
-  const side = (r: typeof a): RevisionSide => ({ input: r.input as AnalyzeRequest, summary: r.summary as RevisionSummary });
+  const side = (r: typeof a): RevisionSide => ({ input: r.input, summary: r.summary });
   const labelA = `r${a.number}`;
   const labelB = `r${b.number}`;
   const rows = diffRevisions(side(a), side(b));

@@ -4,7 +4,6 @@ import { getSignoffState, listRevisions } from '@/db/queries';
 import { can } from '@/lib/auth';
 import { loadDesignPage } from '@/lib/design-page';
 import { analyze } from '@/lib/engine/analyze';
-import type { AnalyzeRequest } from '@/lib/engine/types';
 import { buildPartsList, DEFAULT_DESIGNATOR, duplicateDesignators, PART_NAME, TOLERANCE_CONVENTION } from '@/lib/handoff/parts-list';
 import { spiceNetlistFile } from '@/lib/handoff/spice';
 import { CautionsPanel } from '@/components/cautions-panel';
@@ -43,7 +42,7 @@ export default async function HandoffPage({ params, searchParams }: Props) {
 
   const latest = revisions[revisions.length - 1];
   const revision = revisions.find((x) => String(x.number) === r) ?? latest;
-  const input = revision.input as AnalyzeRequest;
+  const input = revision.input;
   const result = analyze(input);
   const rows = buildPartsList(result.parts, input.compensator.type, design.designatorMap);
   const netlist = spiceNetlistFile({ designName: design.name, revision: revision.number, input, parts: result.parts });

@@ -4,7 +4,6 @@ import { getSignoffFacts, getTeamSignoffSettings, listRemarks, listRevisions, li
 import { checkDecide, checkSubmit, eligibleReviewers, mayReview } from '@/lib/signoff-policy';
 import { can } from '@/lib/auth';
 import { loadDesignPage } from '@/lib/design-page';
-import type { RevisionSummary } from '@/lib/revision-summary';
 import { RevisionTable, type RevisionRow } from '@/components/review/revision-table';
 import { SignoffPanel, type TimelineItem } from '@/components/review/signoff-panel';
 
@@ -31,7 +30,7 @@ export default async function HistoryPage({ params, searchParams }: Props) {
   const states = listSignoffStates(db, design.id);
   const rows: RevisionRow[] = revisions
     .map((rev) => {
-      const margins = (rev.summary as RevisionSummary).margins;
+      const margins = rev.summary.margins;
       return {
         number: rev.number,
         baseNumber: rev.baseNumber,

@@ -3,7 +3,7 @@ import { getDb } from '@/db/client';
 import { createBenchData, getLatestRevision, getRevision, listBenchData } from '@/db/queries';
 import { can } from '@/lib/auth';
 import { HttpError, parseId, withUser } from '@/lib/api';
-import { measureMargins, displayBenchPoints } from '@/lib/handoff/bench-compare';
+import { benchUploadedBody } from '@/lib/handoff/bench-responses';
 import { BENCH_MAX_BYTES, BenchParseError, parseBenchData, type FrequencyUnit } from '@/lib/handoff/bench-parse';
 import { requireActiveDesign, requireDesign } from '@/lib/design-access';
 
@@ -119,21 +119,7 @@ export const POST = withUser<P>(
       phaseShifted: upload.phaseShifted,
       uploadedBy: user.id,
     });
-    return NextResponse.json(
-      {
-        id,
-        revision: revision.number,
-        name: upload.name,
-        rows: parsed.rows,
-        frequencyUnit: parsed.frequencyUnit,
-        notes: parsed.notes,
-        looksInverted: parsed.looksInverted,
-        lowFrequencyPhaseDeg: parsed.lowFrequencyPhaseDeg,
-        phaseShifted: upload.phaseShifted,
-        measured: measureMargins(displayBenchPoints(parsed.points, upload.phaseShifted)),
-      },
-      { status: 201 },
-    );
+    return NextResponse.json({ ...benchUploadedBody(id, upload.name, upload.phaseShifted, parsed), revision: revision.number }, { status: 201 });
   },
   { allow: can.editDesigns, action: 'upload bench data' },
 );

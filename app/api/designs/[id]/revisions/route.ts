@@ -2,11 +2,10 @@ import { NextResponse } from 'next/server';
 import { getDb } from '@/db/client';
 import { createRevision, listRevisions } from '@/db/queries';
 import { analyze } from '@/lib/engine/analyze';
-import type { AnalyzeRequest } from '@/lib/engine/types';
 import { can } from '@/lib/auth';
 import { HttpError, parseJson, withUser } from '@/lib/api';
 import { requireActiveDesign, requireDesign } from '@/lib/design-access';
-import { summarizeAnalysis } from '@/lib/revision-summary';
+import { savedRevisionBody, summarizeAnalysis } from '@/lib/revision-summary';
 import { revisionCreateSchema } from '@/lib/validation/revision';
 
 type P = { id: string };
@@ -21,7 +20,7 @@ export const POST = withUser<P>(
   async (req, { user, params }) => {
     const design = requireActiveDesign(user, params.id);
     const body = await parseJson(req, revisionCreateSchema);
-    const input = body.input as unknown as AnalyzeRequest;
+    const input = body.input;
     if (input.converter.topology !== design.topology)
       throw new HttpError(422, 'The topology of a design cannot change', [
         { path: 'input.converter.topology', message: `this design is a ${design.topology}` },
@@ -36,10 +35,7 @@ export const POST = withUser<P>(
       authorId: user.id,
       note: body.note,
     });
-    return NextResponse.json(
-      { id: row.id, number: row.number, baseRevision: row.baseNumber, note: row.note, createdAt: row.createdAt, summary },
-      { status: 201 },
-    );
+    return NextResponse.json(savedRevisionBody(row, summary), { status: 201 });
   },
   { allow: can.editDesigns, action: 'save revisions' },
 );

@@ -6,9 +6,7 @@ import { can } from '@/lib/auth';
 import { HttpError, parseId, parseJson, withUser } from '@/lib/api';
 import { requireDesign } from '@/lib/design-access';
 import { analyze } from '@/lib/engine/analyze';
-import type { AnalyzeRequest } from '@/lib/engine/types';
-import { compareBench, displayBenchPoints, measureMargins } from '@/lib/handoff/bench-compare';
-import { inspectLowFrequencyPhase } from '@/lib/handoff/bench-parse';
+import { benchDetailBody } from '@/lib/handoff/bench-responses';
 
 type P = { id: string; benchId: string };
 
@@ -28,40 +26,15 @@ function requireBench(user: Parameters<typeof requireDesign>[0], params: P) {
 export const GET = withUser<P>(async (req, { user, params }) => {
   const { design, bench } = requireBench(user, params);
   const revParam = new URL(req.url).searchParams.get('revision');
-  const base = {
-    id: bench.id,
-    designId: bench.designId,
-    name: bench.name,
-    phaseShifted: bench.phaseShifted,
-    uploaderName: bench.uploaderName,
-    createdAt: bench.createdAt,
-    // Of the data as uploaded: near +90° at low frequency means measured as −T.
-    ...inspectLowFrequencyPhase(bench.points.phaseDeg),
-  };
-  if (!revParam) {
-    const points = displayBenchPoints(bench.points, bench.phaseShifted);
-    return NextResponse.json({ ...base, points, measured: measureMargins(points) });
-  }
+  if (!revParam) return NextResponse.json(benchDetailBody(bench));
   const number = parseId(revParam, 'revision');
   const revision = getRevision(getDb(), design.id, number);
   if (!revision) throw new HttpError(404, `No revision r${number} of design ${design.id}`);
-  const input = revision.input as AnalyzeRequest;
-  const fsw = input.converter.fsw;
+  const input = revision.input;
   // Sweep the model down to the lowest measured frequency (the averaged model stops at fsw/2).
   const fStart = Math.min(10, bench.points.f[0]);
-  const model = analyze({ ...input, sweep: { fStart, fStop: fsw / 2, points: 600 } });
-  const cmp = compareBench(bench.points, bench.phaseShifted, { f: model.bode.f, magDb: model.bode.loop.magDb, phaseDeg: model.bode.loop.phaseDeg });
-  return NextResponse.json({
-    ...base,
-    ...cmp,
-    revision: number,
-    model: {
-      crossoverHz: model.margins.crossoverHz,
-      phaseMarginDeg: model.margins.phaseMarginDeg,
-      gainMarginDb: model.margins.gainMarginDb,
-      bode: { f: model.bode.f, magDb: model.bode.loop.magDb, phaseDeg: model.bode.loop.phaseDeg },
-    },
-  });
+  const result = analyze({ ...input, sweep: { fStart, fStop: input.converter.fsw / 2, points: 600 } });
+  return NextResponse.json(benchDetailBody(bench, { revision: number, result }));
 });
 
 const patchSchema = z.object({ phaseShifted: z.boolean({ error: 'phaseShifted must be true or false' }) });

@@ -2,7 +2,6 @@ import { getDb } from '@/db/client';
 import { getBenchData, getSignoffState, listBenchData, listRemarks, listSignoffEvents } from '@/db/queries';
 import { HttpError, withUser } from '@/lib/api';
 import { analyze } from '@/lib/engine/analyze';
-import type { AnalyzeRequest } from '@/lib/engine/types';
 import { buildExport } from '@/lib/handoff/exports';
 import { contentDisposition, EXPORT_FORMATS, type ExportFormat } from '@/lib/handoff/files';
 import { benchForReport } from '@/lib/handoff/report-bench';
@@ -22,7 +21,7 @@ export const GET = withUser<P>(async (req, { user, params }) => {
     throw new HttpError(400, 'Unknown export format', [{ path: 'format', message: `format must be one of ${EXPORT_FORMATS.join(', ')}` }]);
   const { design, revision } = requireRevision(user, params);
   const db = getDb();
-  const input = revision.input as AnalyzeRequest;
+  const input = revision.input;
   const events = listSignoffEvents(db, revision.id);
   const last = events.at(-1);
   // The report also carries the review and the bench: the trail, the remarks, and up to six

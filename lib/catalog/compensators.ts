@@ -1,0 +1,144 @@
+/**
+ * The compensator registry: for each compensator type its name, the parts it
+ * uses and their roles, and which part sets each zero, pole and the gain
+ * handle. The handle table, the parts tables, the revision diff, the report,
+ * the netlist comments and the starting-point form read from here.
+ *
+ * Adding a compensator variant = its transfer function in lib/engine, one
+ * entry in COMPENSATORS below (and parts in PARTS if it has new ones), tests.
+ */
+import type { Amplifier, CompensatorType, PartValues } from '../engine/types';
+
+export type PartKey = keyof PartValues;
+
+export interface PartSpec {
+  /** Schematic name: "R2". */
+  name: string;
+  kind: 'resistor' | 'capacitor';
+  unit: 'Ω' | 'F';
+  /** Where it sits in the network (used when a type does not say otherwise). */
+  role: string;
+}
+
+/** Every part a compensator or its divider may have; the engine's PartValues keys. */
+export const PARTS = {
+  r1: { name: 'R1', kind: 'resistor', unit: 'Ω', role: 'output to inverting input (held fixed)' },
+  r2: { name: 'R2', kind: 'resistor', unit: 'Ω', role: 'feedback, in series with C1' },
+  c1: { name: 'C1', kind: 'capacitor', unit: 'F', role: 'feedback, in series with R2' },
+  c2: { name: 'C2', kind: 'capacitor', unit: 'F', role: 'across the feedback path' },
+  r3: { name: 'R3', kind: 'resistor', unit: 'Ω', role: 'in series with C3, across R1' },
+  c3: { name: 'C3', kind: 'capacitor', unit: 'F', role: 'in series with R3, across R1' },
+  rb: { name: 'Rb', kind: 'resistor', unit: 'Ω', role: 'lower divider resistor (sets Vout)' },
+} as const satisfies Record<PartKey, PartSpec>;
+
+/** Display order of parts in tables and files. */
+export const PART_ORDER = ['r1', 'r2', 'c1', 'c2', 'r3', 'c3', 'rb'] as const satisfies readonly PartKey[];
+
+/** A zero or pole of the compensator and the parts that place it. */
+export interface Landmark {
+  /** The time constant as engineers write it: "R2·C1". */
+  formula: string;
+  parts: readonly PartKey[];
+  /** Absent when one of its parts is 0 (C2 = 0 removes the high-frequency pole). */
+  optional?: boolean;
+}
+
+export interface CompensatorEntry {
+  type: CompensatorType;
+  /** "Type II". */
+  label: string;
+  /** "one zero, one pole". */
+  summary: string;
+  amplifier: Amplifier;
+  /** The parts this type uses (the divider's Rb is always added), in PART_ORDER. */
+  parts: readonly PartKey[];
+  /** Roles that differ from PARTS[key].role in this type. */
+  roles?: Partial<Record<PartKey, string>>;
+  /** Zeros and poles in the order the engine's CompensatorShape lists them (origin pole excluded). */
+  zeros: readonly Landmark[];
+  poles: readonly Landmark[];
+  /** What the gain handle moves. */
+  gain: Landmark;
+  /** Most phase boost the type can add at crossover, degrees (K-factor method). */
+  maxBoostDeg: number;
+}
+
+export const COMPENSATORS: Readonly<Record<CompensatorType, CompensatorEntry>> = {
+  type1: {
+    type: 'type1',
+    label: 'Type I',
+    summary: 'integrator',
+    amplifier: 'opamp',
+    parts: ['r1', 'c1'],
+    roles: { c1: 'feedback capacitor (integrator)' },
+    zeros: [],
+    poles: [],
+    gain: { formula: 'R1·C1', parts: ['r1', 'c1'] },
+    maxBoostDeg: 0,
+  },
+  type2: {
+    type: 'type2',
+    label: 'Type II',
+    summary: 'one zero, one pole',
+    amplifier: 'opamp',
+    parts: ['r1', 'r2', 'c1', 'c2'],
+    zeros: [{ formula: 'R2·C1', parts: ['r2', 'c1'] }],
+    poles: [{ formula: 'C2', parts: ['c2'], optional: true }],
+    gain: { formula: 'R1·(C1+C2)', parts: ['r1', 'c1', 'c2'] },
+    maxBoostDeg: 90,
+  },
+  type3: {
+    type: 'type3',
+    label: 'Type III',
+    summary: 'two zeros, two poles',
+    amplifier: 'opamp',
+    parts: ['r1', 'r2', 'c1', 'c2', 'r3', 'c3'],
+    zeros: [
+      { formula: 'R2·C1', parts: ['r2', 'c1'] },
+      { formula: '(R1+R3)·C3', parts: ['r1', 'r3', 'c3'] },
+    ],
+    poles: [
+      { formula: 'C2', parts: ['c2'], optional: true },
+      { formula: 'R3·C3', parts: ['r3', 'c3'] },
+    ],
+    gain: { formula: 'R1·(C1+C2)', parts: ['r1', 'c1', 'c2'] },
+    maxBoostDeg: 180,
+  },
+};
+
+export const compensatorEntry = (type: CompensatorType): CompensatorEntry => COMPENSATORS[type];
+
+/** "Type II". */
+export const compensatorLabel = (type: CompensatorType): string => COMPENSATORS[type].label;
+
+/** "Type II (one zero, one pole)". */
+export const compensatorTitle = (type: CompensatorType): string => `${COMPENSATORS[type].label} (${COMPENSATORS[type].summary})`;
+
+/** A part's role in this type's network. */
+export const partRole = (type: CompensatorType, part: PartKey): string => {
+  return COMPENSATORS[type].roles?.[part] ?? PARTS[part].role;
+};
+
+/** Whether a type uses a part (Rb, the divider, always). */
+export const usesPart = (type: CompensatorType, part: PartKey): boolean =>
+  part === 'rb' || COMPENSATORS[type].parts.includes(part);
+
+/**
+ * The landmarks a shape actually has: when it lists fewer poles (or zeros) than the
+ * entry, the optional ones are the missing ones.
+ */
+export function presentLandmarks(list: readonly Landmark[], count: number): Landmark[] {
+  let drop = list.length - count;
+  return list.filter((l) => !(l.optional && drop-- > 0));
+}
+
+/** Which zeros, poles and gain a part sets in a type: "Zero 1, gain". Empty when none. */
+export function landmarksSetBy(type: CompensatorType, part: PartKey): string[] {
+  const e = COMPENSATORS[type];
+  const name = (kind: string, list: readonly Landmark[], i: number) => (list.length > 1 ? `${kind} ${i + 1}` : kind);
+  return [
+    ...e.zeros.flatMap((z, i) => (z.parts.includes(part) ? [name('zero', e.zeros, i)] : [])),
+    ...e.poles.flatMap((p, i) => (p.parts.includes(part) ? [name('pole', e.poles, i)] : [])),
+    ...(e.gain.parts.includes(part) ? ['gain'] : []),
+  ];
+}
