@@ -83,7 +83,7 @@ export function handlesOf(shape: CompensatorShape, anchorHz: number | null): Han
     })),
   ];
   const hz = gainHandleHz(shape, anchorHz);
-  out.push({ id: 'gain', kind: 'gain', hz, label: `Gain at ${formatSi(hz, 'Hz')}`, parts: 'the integrator, R1·(C1+C2)', gainDb: compensatorGainDbAt(shape, hz) });
+  out.push({ id: 'gain', kind: 'gain', hz, label: `Gain at ${formatSi(hz, 'Hz')}`, parts: shape.type === 'type1' ? 'the integrator, R1·C1' : 'the integrator, R1·(C1+C2)', gainDb: compensatorGainDbAt(shape, hz) });
   return out;
 }
 

@@ -14,6 +14,8 @@ import { ComparePlot, type CompareLoop } from '@/components/review/compare-plot'
 import { DiffTable } from '@/components/review/diff-table';
 import { formatDate } from '@/components/review/format';
 import { MarginDeltas } from '@/components/review/margin-deltas';
+import { RangeCompare } from '@/components/range/range-compare';
+import { summarizeRange } from '@/lib/range-summary';
 
 export const metadata: Metadata = { title: 'Compare' };
 
@@ -62,6 +64,9 @@ export default async function ComparePage({ params, searchParams }: Props) {
   const remarks: CompareRemark[] = [a, ...(a.number === b.number ? [] : [b])]
     .flatMap((r) => listRemarks(db, r.id).map((m) => ({ id: m.id, number: r.number, authorName: m.authorName, body: m.body, comparedWith: m.comparedWith, at: m.createdAt.toISOString() })))
     .sort((x, y) => x.at.localeCompare(y.at) || x.id - y.id);
+  // Worst case across each revision's own operating range (corners and a fixed-seed spread).
+  const rangeA = summarizeRange(side(a).input);
+  const rangeB = summarizeRange(side(b).input);
 
   return (
     <div className="space-y-4" data-testid="compare">
@@ -103,6 +108,8 @@ export default async function ComparePage({ params, searchParams }: Props) {
       </div>
 
       <MarginDeltas deltas={deltas} labelA={labelA} labelB={labelB} />
+
+      <RangeCompare a={rangeA} b={rangeB} labelA={labelA} labelB={labelB} />
 
       {loopA && loopB ? (
         <ComparePlot a={loopA} b={loopB} />
