@@ -71,6 +71,9 @@ export const designs = sqliteTable(
       .references(() => users.id),
     /** Compensator part → schematic reference designator, e.g. { "r2": "R17" }. */
     designatorMap: text('designator_map', { mode: 'json' }).$type<Record<string, string>>().notNull().default({}),
+    /** Set when archived (hidden from the list, read-only, restorable); revisions are never touched. */
+    archivedAt: integer('archived_at', { mode: 'timestamp_ms' }),
+    archivedBy: integer('archived_by').references(() => users.id),
     createdAt: createdAt(),
     updatedAt: integer('updated_at', { mode: 'timestamp_ms' })
       .notNull()
@@ -148,6 +151,8 @@ export const remarks = sqliteTable(
       .notNull()
       .references(() => users.id),
     body: text('body').notNull(),
+    /** Written on Compare: the number of the other revision on the plot (null when written on the revision alone). */
+    comparedWith: integer('compared_with'),
     createdAt: createdAt(),
   },
   (t) => [index('remarks_revision').on(t.revisionId)],
@@ -161,6 +166,11 @@ export const benchData = sqliteTable(
     designId: integer('design_id')
       .notNull()
       .references(() => designs.id, { onDelete: 'cascade' }),
+    /**
+     * The revision measured (its model is the one compared). Null only for data uploaded before
+     * bench data belonged to revisions to a design that had no revision then: shown design-wide.
+     */
+    revisionId: integer('revision_id').references(() => revisions.id, { onDelete: 'cascade' }),
     name: text('name').notNull(),
     /** As uploaded: frequency rising, Hz / dB / degrees. */
     points: text('points', { mode: 'json' }).$type<BenchPoints>().notNull(),
@@ -170,7 +180,7 @@ export const benchData = sqliteTable(
       .references(() => users.id),
     createdAt: createdAt(),
   },
-  (t) => [index('bench_data_design').on(t.designId)],
+  (t) => [index('bench_data_design').on(t.designId), index('bench_data_revision').on(t.revisionId)],
 );
 
 export const auditLog = sqliteTable(

@@ -1,7 +1,10 @@
 /**
- * Demo data: an invented company's power team, four accounts (one per role)
- * and three designs with a first revision each. Idempotent: running it again
- * changes nothing. Only run when PHASEWRIGHT_DEMO=1 (see instrumentation.ts).
+ * Demo data: an invented company's power team, four accounts (one per role),
+ * three designs with a first revision each, and the review story of
+ * db/seed-story.ts (a design taken through three revisions, remarks, bench data
+ * and an approval, with its mail; a design waiting for the demo reviewer).
+ * Idempotent: running it again changes nothing. Only run when PHASEWRIGHT_DEMO=1
+ * (see instrumentation.ts).
  */
 import { eq } from 'drizzle-orm';
 import { analyze } from '@/lib/engine/analyze';
@@ -10,6 +13,7 @@ import { summarizeAnalysis } from '@/lib/revision-summary';
 import type { Db } from './connection';
 import { createDesign, createRevision, createTeam, createUser, getUserByEmail, listDesigns } from './queries';
 import { memberships, teams, type Role } from './schema';
+import { seedStories } from './seed-story';
 
 export const DEMO_PASSWORD = 'phasewright-demo';
 export const DEMO_TEAM = { name: 'Northwind Robotics — Power', slug: 'northwind-power' };
@@ -35,9 +39,11 @@ export function seedDemo(db: Db) {
   db.transaction((t) => {
     const team = t.select().from(teams).where(eq(teams.slug, DEMO_TEAM.slug)).get() ?? createTeam(t, DEMO_TEAM);
     const ids: Record<string, number> = {};
+    const people: Record<string, { id: number; email: string; name: string }> = {};
     for (const u of DEMO_USERS) {
       const user = getUserByEmail(t, u.email) ?? createUser(t, { ...u, password: DEMO_PASSWORD });
       ids[u.role] = user.id;
+      people[u.role] = { id: user.id, email: user.email, name: user.name };
       t.insert(memberships).values({ userId: user.id, teamId: team.id, role: u.role }).onConflictDoNothing().run();
     }
     const lab = t.select().from(teams).where(eq(teams.slug, DEMO_SECOND_TEAM.slug)).get() ?? createTeam(t, DEMO_SECOND_TEAM);
@@ -45,7 +51,7 @@ export function seedDemo(db: Db) {
       const user = getUserByEmail(t, email)!;
       t.insert(memberships).values({ userId: user.id, teamId: lab.id, role }).onConflictDoNothing().run();
     }
-    const existing = new Set(listDesigns(t, team.id).map((d) => d.name));
+    const existing = new Set(listDesigns(t, team.id, { archived: 'all' }).map((d) => d.name));
     for (const demo of DEMO_DESIGNS) {
       if (existing.has(demo.name)) continue;
       const sample = SAMPLE_DESIGNS.find((s) => s.key === demo.sample);
@@ -65,5 +71,7 @@ export function seedDemo(db: Db) {
         note: 'First pass from the power-stage datasheet values',
       });
     }
+    const now = new Map(listDesigns(t, team.id, { archived: 'all' }).map((d) => [d.name, { id: d.id, latestRevision: d.latestRevision }]));
+    seedStories(t, team.id, { designer: people.designer, reviewer: people.reviewer, admin: people.admin }, now);
   });
 }

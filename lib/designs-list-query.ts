@@ -9,10 +9,14 @@ export type DesignSort = (typeof DESIGN_SORTS)[number];
 /** Sign-off states (as db/schema's SIGNOFF_STATES) plus 'unsaved' for a design with no revision. */
 export const DESIGN_STATUSES = ['unsaved', 'draft', 'in-review', 'approved', 'changes-requested'] as const;
 const TOPOLOGIES = ['all', 'buck', 'boost', 'buck-boost'] as const;
+/** Which designs by archive state: the active ones (default), the archived ones, or both. */
+export const DESIGN_ARCHIVED = ['active', 'archived', 'all'] as const;
 
 /**
  * `q` (name, description or owner contains), `topology`, `status`, `sort`, `dir` (default: newest
- * first for updatedAt, else ascending), `page` (from 1). Absent or empty means "all" / the default.
+ * first for updatedAt, else ascending), `page` (from 1), `archived` (active | archived | all,
+ * default active), `waiting=me` (latest revision waits for my sign-off). Absent or empty means
+ * "all" / the default.
  */
 export interface DesignListQuery {
   q: string;
@@ -21,6 +25,8 @@ export interface DesignListQuery {
   sort: DesignSort;
   dir?: 'asc' | 'desc';
   page: number;
+  archived: (typeof DESIGN_ARCHIVED)[number];
+  waiting?: 'me';
 }
 
 export type DesignListParams = URLSearchParams | Record<string, string | string[] | undefined>;
@@ -50,6 +56,8 @@ export function readDesignListQuery(params: DesignListParams): DesignListQuery {
     sort: oneOf(DESIGN_SORTS, raw.sort, 'updatedAt'),
     dir: raw.dir === 'asc' || raw.dir === 'desc' ? raw.dir : undefined,
     page: Number.isInteger(page) && page >= 1 ? page : 1,
+    archived: oneOf(DESIGN_ARCHIVED, raw.archived, 'active'),
+    waiting: raw.waiting === 'me' ? 'me' : undefined,
   };
 }
 
@@ -64,5 +72,7 @@ export function designListSearch(q: DesignListQuery): string {
   if (q.sort !== 'updatedAt') p.set('sort', q.sort);
   if (q.dir && q.dir !== defaultSortDir(q.sort)) p.set('dir', q.dir);
   if (q.page > 1) p.set('page', String(q.page));
+  if (q.archived !== 'active') p.set('archived', q.archived);
+  if (q.waiting) p.set('waiting', q.waiting);
   return p.toString();
 }

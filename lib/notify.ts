@@ -82,3 +82,27 @@ export async function notifyInvitation(m: { to: string; teamId: number; teamName
     link: { label: 'Accept the invitation', url: `${await appBaseUrl()}/invitations/accept?token=${encodeURIComponent(m.token)}` },
   });
 }
+
+/** A remark on a revision (on its own or written on Compare), to its author and its reviewer. */
+export async function notifyRemark(m: {
+  to: { email: string; name: string };
+  by: string;
+  teamId: number;
+  revision: RevisionMailRef;
+  comparedWith: number | null;
+  body: string;
+}) {
+  const where = m.comparedWith ? ` while comparing it with r${m.comparedWith}` : '';
+  const base = await appBaseUrl();
+  const url = m.comparedWith
+    ? `${base}/designs/${m.revision.designId}/compare?a=${m.comparedWith}&b=${m.revision.number}`
+    : await revisionUrl(m.revision);
+  return sendMail({
+    to: m.to.email,
+    teamId: m.teamId,
+    subject: `Remark on ${label(m.revision)}`,
+    paragraphs: [`Hello ${m.to.name},`, `${m.by} left a remark on ${label(m.revision)}${where}.`],
+    quote: m.body,
+    link: { label: m.comparedWith ? `Open the comparison r${m.comparedWith} → r${m.revision.number}` : `Open r${m.revision.number}`, url },
+  });
+}

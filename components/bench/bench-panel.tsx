@@ -29,7 +29,7 @@ const db = (v: number | null | undefined) => (v === null || v === undefined ? '�
 
 export function BenchPanel({ designId, revision, canEdit }: { designId: number; revision: number; canEdit: boolean }) {
   const qc = useQueryClient();
-  const list = useQuery(benchListQueryOptions(designId));
+  const list = useQuery(benchListQueryOptions(designId, revision));
   const [selected, setSelected] = useState<number | null>(null);
   const [unit, setUnit] = useState('');
   const [uploaded, setUploaded] = useState<BenchUploaded | null>(null);
@@ -37,12 +37,15 @@ export function BenchPanel({ designId, revision, canEdit }: { designId: number; 
   const fileRef = useRef<HTMLInputElement>(null);
   const items = list.data?.benchData ?? [];
   const current = selected ?? items[0]?.id ?? null;
-  const detail = useQuery({ ...benchDetailQueryOptions(designId, current ?? 0, revision), enabled: current !== null });
+  // Each data set is compared with the model of the revision it was measured on.
+  const currentItem = items.find((b) => b.id === current);
+  const compareWith = currentItem?.revisionNumber ?? revision;
+  const detail = useQuery({ ...benchDetailQueryOptions(designId, current ?? 0, compareWith), enabled: current !== null });
 
-  const invalidate = () => qc.invalidateQueries({ queryKey: benchKeys.list(designId) });
+  const invalidate = () => qc.invalidateQueries({ queryKey: benchKeys.all(designId) });
 
   const upload = useMutation({
-    mutationFn: (file: File) => uploadBenchData(designId, file, { frequencyUnit: unit || undefined }),
+    mutationFn: (file: File) => uploadBenchData(designId, file, { frequencyUnit: unit || undefined, revision }),
     onMutate: () => {
       setFailure(null);
       setUploaded(null);
@@ -77,11 +80,12 @@ export function BenchPanel({ designId, revision, canEdit }: { designId: number; 
       <div className="flex flex-wrap items-start gap-4">
         <div className="min-w-[16rem] flex-1">
           <h2 id="bench-heading" className="text-lg font-semibold">
-            Bench data
+            Bench data <span className="text-sm font-normal text-slate-500">measured on r{revision}</span>
           </h2>
           <p className="text-sm text-slate-600">
             The loop gain T measured with a network or frequency-response analyzer: CSV or TSV of frequency, gain (dB) and phase (°), up to
-            10 MB or 20,000 rows. The phase is that of T, near −90° at low frequency with an integrating compensator. Shown on Tune as grey dots.
+            10 MB or 20,000 rows. The phase is that of T, near −90° at low frequency with an integrating compensator. An upload belongs to r{revision}
+            (the board built from it) and is compared with r{revision}&apos;s model; shown on Tune as grey dots.
           </p>
         </div>
         {canEdit && (
@@ -137,7 +141,7 @@ export function BenchPanel({ designId, revision, canEdit }: { designId: number; 
               <button type="button" className="text-left" onClick={() => setSelected(b.id)} aria-pressed={b.id === current}>
                 <span className="font-medium">{b.name}</span>{' '}
                 <span className="text-xs text-slate-500">
-                  {new Date(b.createdAt).toISOString().slice(0, 10)} · {b.uploaderName}
+                  {b.revisionNumber ? `r${b.revisionNumber}` : 'design-wide'} · {new Date(b.createdAt).toISOString().slice(0, 10)} · {b.uploaderName}
                   {b.phaseShifted ? ' · shifted 180°' : ''}
                 </span>
               </button>
@@ -157,7 +161,7 @@ export function BenchPanel({ designId, revision, canEdit }: { designId: number; 
           ))}
         </div>
       )}
-      {list.isSuccess && items.length === 0 && <p className="mt-4 text-sm text-slate-500">No bench data uploaded for this design yet.</p>}
+      {list.isSuccess && items.length === 0 && <p className="mt-4 text-sm text-slate-500">No bench data uploaded for r{revision} yet.</p>}
 
       {detail.data && (
         <BenchDetailView

@@ -37,7 +37,18 @@ const STATUS_LABELS: Record<(typeof DESIGN_STATUSES)[number], string> = {
  * The designs list: filters, sort and page live in the URL (Back returns to the previous page
  * or filter); rows come 100 at a time from GET /api/designs. The server renders the first page.
  */
-export function DesignsTable({ teamId, initial, initialSearch }: { teamId: number; initial: DesignPage; initialSearch: string }) {
+export function DesignsTable({
+  teamId,
+  initial,
+  initialSearch,
+  emptyText = 'No designs yet.',
+}: {
+  teamId: number;
+  initial: DesignPage;
+  initialSearch: string;
+  /** What an empty, unfiltered view says (active, waiting for my review, archived). */
+  emptyText?: string;
+}) {
   const searchParams = useSearchParams();
   const query = readDesignListQuery(searchParams);
   const search = designListSearch(query);
@@ -139,6 +150,7 @@ export function DesignsTable({ teamId, initial, initialSearch }: { teamId: numbe
                 <Link href={`/designs/${d.id}`} className="font-medium text-indigo-700 hover:underline">
                   {d.name}
                 </Link>
+                {d.archivedAt && <span className="ml-2 rounded bg-slate-200 px-1.5 py-0.5 text-xs text-slate-600">archived</span>}
                 {d.description && <div className="text-xs text-slate-500">{d.description}</div>}
               </td>
               <td>{topologyLabel(d.topology)}</td>
@@ -154,7 +166,7 @@ export function DesignsTable({ teamId, initial, initialSearch }: { teamId: numbe
           {data.designs.length === 0 && (
             <tr>
               <td colSpan={5} className="py-10 text-center text-slate-500">
-                {filtered ? 'No design matches the filter.' : 'No designs yet.'}
+                {filtered ? 'No design matches the filter.' : emptyText}
               </td>
             </tr>
           )}

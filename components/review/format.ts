@@ -19,7 +19,27 @@ export function formatValue(kind: DiffKind, value: number | string | null, unit 
   }
 }
 
-const signed = (x: number, digits: number) => `${x > 0 ? '+' : x < 0 ? '−' : '±'}${Math.abs(x).toFixed(digits)}`;
+/**
+ * A change with its sign, rounded as shown first: −0.04 at one decimal reads ±0.0, never −0.0.
+ * The minus is a true minus sign (U+2212).
+ */
+export function signed(x: number, digits: number): string {
+  const text = Math.abs(x).toFixed(digits);
+  const zero = Number(text) === 0;
+  return `${zero ? '±' : x > 0 ? '+' : '−'}${text}`;
+}
+
+/** The change of one margin on Compare (fc relative and absolute, PM in °, GM in dB). */
+export function formatMarginDelta(d: { key: 'fc' | 'pm' | 'gm'; a: number | null; b: number | null; delta: number | null }): string {
+  if (d.delta === null) return d.a === d.b ? 'no change' : 'one side has none';
+  if (d.key === 'fc') {
+    const abs = Math.abs(d.delta);
+    const sign = signed(d.delta, 12).charAt(0);
+    const pct = d.a ? ` (${signed((d.delta / d.a) * 100, 0)} %)` : '';
+    return `${sign}${formatSi(abs, 'Hz')}${pct}`;
+  }
+  return d.key === 'pm' ? `${signed(d.delta, 1)}°` : `${signed(d.delta, 1)} dB`;
+}
 
 /** The change from a to b: absolute for degrees, dB and %, relative for SI quantities. */
 export function formatChange(kind: DiffKind, a: number | string | null, b: number | string | null, unit = ''): string {

@@ -34,6 +34,8 @@ export interface SignoffPanelProps {
   decideBlockedReason?: string | null;
   /** Compare with the revision this one was based on, when there is one. */
   compareWith?: number | null;
+  /** In review: the reviewer asked, named to everyone but them. */
+  waitingFor?: string | null;
 }
 
 const EVENT_WORDS: Record<string, string> = {
@@ -170,7 +172,13 @@ export function SignoffPanel(p: SignoffPanelProps) {
             </form>
           )}
 
-          {!canSubmitNow && !canDecideNow && !p.decideBlockedReason && (
+          {p.state === 'in-review' && !canDecideNow && (
+            <p className="rounded-md border-l-2 border-indigo-300 bg-indigo-50 px-3 py-2 text-sm text-indigo-900" data-testid="waiting-for">
+              Waiting for {p.waitingFor ?? 'a reviewer of the team'} to approve r{p.number} or request changes.
+            </p>
+          )}
+
+          {!canSubmitNow && !canDecideNow && !p.decideBlockedReason && p.state !== 'in-review' && (
             <p className="text-sm text-slate-500">{idleText(p)}</p>
           )}
 
@@ -236,8 +244,6 @@ function idleText(p: SignoffPanelProps) {
   switch (p.state) {
     case 'approved':
       return `r${p.number} is approved. A change means a new revision, which starts as a draft.`;
-    case 'in-review':
-      return p.may.decide ? '' : 'Waiting for the reviewer.';
     case 'changes-requested':
       return 'Changes were requested. Save a new revision from Tune, or submit this one again with an answer.';
     default:

@@ -95,7 +95,7 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
   // Scratch: any reader (viewer, reviewer, an earlier revision) edits and sees margins; nothing is saved.
   const [scratch, setScratch] = useState(false);
   const readOnly = mode !== 'edit' && !scratch;
-  const bench = useBenchOverlay(designId); // Bench data overlay
+  const bench = useBenchOverlay(designId, shownRevision); // the shown revision's bench data
   // Every edit on Tune goes through the history, so Ctrl+Z / Ctrl+Shift+Z undo and redo it.
   // The operating range is written out (defaults filled) so every save stores it; an older
   // revision without one opens with the defaults and is not counted as changed.

@@ -1,7 +1,7 @@
-import { and, desc, eq } from 'drizzle-orm';
+import { and, desc, eq, isNull, or } from 'drizzle-orm';
 import type { Db } from '../connection';
 import type { BenchPoints } from '../../lib/handoff/bench-parse';
-import { benchData, designs, users } from '../schema';
+import { benchData, designs, revisions, users } from '../schema';
 import { writeAudit } from './audit';
 import { touchDesign } from './designs';
 
@@ -9,13 +9,16 @@ import { touchDesign } from './designs';
  * Bench data of a design: measured loop responses, stored as uploaded (points rising in
  * frequency, Hz / dB / degrees). `phaseShifted` marks data measured as −T that is shown
  * with 180° taken off; the stored points are never rewritten. Every function is scoped by
- * team through the design.
+ * team through the design. Bench data belongs to the revision measured (`revisionId`); data
+ * from before that rule whose design had no revision then has none and is shown design-wide.
  */
 
 
 const summaryColumns = {
   id: benchData.id,
   designId: benchData.designId,
+  revisionId: benchData.revisionId,
+  revisionNumber: revisions.number,
   name: benchData.name,
   phaseShifted: benchData.phaseShifted,
   uploadedBy: benchData.uploadedBy,
@@ -23,14 +26,19 @@ const summaryColumns = {
   createdAt: benchData.createdAt,
 };
 
-/** Bench data of a design, newest first, without the points. */
-export function listBenchData(db: Db, teamId: number, designId: number) {
+/**
+ * Bench data of a design, newest first, without the points. With `revisionNumber`, only that
+ * revision's (and design-wide data, which belongs to every revision).
+ */
+export function listBenchData(db: Db, teamId: number, designId: number, opts: { revisionNumber?: number } = {}) {
+  const scope = and(eq(benchData.designId, designId), eq(designs.teamId, teamId));
   return db
     .select(summaryColumns)
     .from(benchData)
     .innerJoin(designs, eq(designs.id, benchData.designId))
     .innerJoin(users, eq(users.id, benchData.uploadedBy))
-    .where(and(eq(benchData.designId, designId), eq(designs.teamId, teamId)))
+    .leftJoin(revisions, eq(revisions.id, benchData.revisionId))
+    .where(opts.revisionNumber === undefined ? scope : and(scope, or(eq(revisions.number, opts.revisionNumber), isNull(benchData.revisionId))))
     .orderBy(desc(benchData.id))
     .all();
 }
@@ -42,6 +50,7 @@ export function getBenchData(db: Db, teamId: number, designId: number, benchId: 
     .from(benchData)
     .innerJoin(designs, eq(designs.id, benchData.designId))
     .innerJoin(users, eq(users.id, benchData.uploadedBy))
+    .leftJoin(revisions, eq(revisions.id, benchData.revisionId))
     .where(and(eq(benchData.id, benchId), eq(benchData.designId, designId), eq(designs.teamId, teamId)))
     .get();
   return row;
@@ -49,12 +58,12 @@ export function getBenchData(db: Db, teamId: number, designId: number, benchId: 
 
 export function createBenchData(
   db: Db,
-  b: { teamId: number; designId: number; name: string; points: BenchPoints; phaseShifted: boolean; uploadedBy: number },
+  b: { teamId: number; designId: number; revisionId: number; name: string; points: BenchPoints; phaseShifted: boolean; uploadedBy: number },
 ) {
   return db.transaction((tx) => {
     const row = tx
       .insert(benchData)
-      .values({ designId: b.designId, name: b.name, points: b.points, phaseShifted: b.phaseShifted, uploadedBy: b.uploadedBy })
+      .values({ designId: b.designId, revisionId: b.revisionId, name: b.name, points: b.points, phaseShifted: b.phaseShifted, uploadedBy: b.uploadedBy })
       .returning({ id: benchData.id })
       .get();
     touchDesign(tx, b.designId);
@@ -64,7 +73,7 @@ export function createBenchData(
       action: 'bench.uploaded',
       entityType: 'bench_data',
       entityId: row.id,
-      detail: { designId: b.designId, name: b.name, points: b.points.f.length },
+      detail: { designId: b.designId, revisionId: b.revisionId, name: b.name, points: b.points.f.length },
     });
     return row.id;
   });

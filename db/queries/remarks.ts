@@ -1,6 +1,6 @@
-import { asc, eq } from 'drizzle-orm';
+import { and, asc, desc, eq } from 'drizzle-orm';
 import type { Db } from '../connection';
-import { remarks, users } from '../schema';
+import { remarks, revisions, signoffEvents, users } from '../schema';
 import { writeAudit } from './audit';
 
 /** Remarks on a revision, oldest first, with the author's name. */
@@ -12,6 +12,7 @@ export function listRemarks(db: Db, revisionId: number) {
       authorId: remarks.authorId,
       authorName: users.name,
       body: remarks.body,
+      comparedWith: remarks.comparedWith,
       createdAt: remarks.createdAt,
     })
     .from(remarks)
@@ -26,18 +27,34 @@ export type RemarkView = ReturnType<typeof listRemarks>[number];
 /** Attach a remark to a revision (the revision itself stays untouched). */
 export function addRemark(
   db: Db,
-  r: { teamId: number; designId: number; revisionId: number; number: number; authorId: number; body: string },
+  r: { teamId: number; designId: number; revisionId: number; number: number; authorId: number; body: string; comparedWith?: number | null },
 ) {
   return db.transaction((tx) => {
-    const row = tx.insert(remarks).values({ revisionId: r.revisionId, authorId: r.authorId, body: r.body }).returning().get();
+    const row = tx.insert(remarks).values({ revisionId: r.revisionId, authorId: r.authorId, body: r.body, comparedWith: r.comparedWith ?? null }).returning().get();
     writeAudit(tx, {
       teamId: r.teamId,
       userId: r.authorId,
       action: 'remark.added',
       entityType: 'revision',
       entityId: r.revisionId,
-      detail: { designId: r.designId, number: r.number, remarkId: row.id },
+      detail: { designId: r.designId, number: r.number, remarkId: row.id, comparedWith: r.comparedWith ?? null },
     });
     return row;
   });
+}
+
+/**
+ * Who hears of a remark on a revision: its author and the reviewer last asked to review it,
+ * never the one who wrote the remark. User ids, without repeats.
+ */
+export function remarkRecipients(db: Db, revisionId: number, writerId: number): number[] {
+  const author = db.select({ id: revisions.authorId }).from(revisions).where(eq(revisions.id, revisionId)).get()?.id;
+  const reviewer = db
+    .select({ id: signoffEvents.reviewerId })
+    .from(signoffEvents)
+    .where(and(eq(signoffEvents.revisionId, revisionId), eq(signoffEvents.state, 'in-review')))
+    .orderBy(desc(signoffEvents.id))
+    .limit(1)
+    .get()?.id;
+  return [...new Set([author, reviewer].filter((id): id is number => id != null && id !== writerId))];
 }

@@ -17,5 +17,7 @@ export type MarginTone = 'good' | 'caution' | 'risk' | 'none';
 export function marginTone(kind: keyof typeof MARGIN_LIMITS, value: number | null): MarginTone {
   if (value === null) return 'none';
   const l = MARGIN_LIMITS[kind];
-  return value < l.risk ? 'risk' : value < l.caution ? 'caution' : 'good';
+  // Judged on the value as shown (0.1), as the Checks are: 44.96° reads 45.0° and is good.
+  const shown = Math.round(value * 10) / 10;
+  return shown < l.risk ? 'risk' : shown < l.caution ? 'caution' : 'good';
 }

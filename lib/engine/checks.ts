@@ -26,8 +26,10 @@ import type { Check, CompensatorInput, Margins, ModulatorSummary, OperatingPoint
 import type { SampledResponse } from './margins';
 
 const hz = (v: number) => formatSi(v, 'Hz');
-const deg = (v: number) => `${v.toFixed(1)}°`;
-const db = (v: number) => `${v.toFixed(1)} dB`;
+/** Margins are shown to 0.1; thresholds compare the shown value, so "45.0° (under 45°)" cannot happen. */
+const shown = (v: number) => Math.round(v * 10) / 10;
+const deg = (v: number) => `${shown(v).toFixed(1)}°`;
+const db = (v: number) => `${shown(v).toFixed(1)} dB`;
 const PM = MARGIN_LIMITS.phaseMarginDeg;
 const GM = MARGIN_LIMITS.gainMarginDb;
 
@@ -93,7 +95,7 @@ export const loopChecks = (args: {
         message: `Crossover ${hz(fc)} is above a third of the RHP zero (${hz(rhpZeroHz)}); its phase lag grows quickly with load. Keep fc below ${hz(rhpZeroHz / 3)}, and check at maximum load and minimum input.`,
       });
     }
-    const pm = margins.phaseMarginDeg;
+    const pm = margins.phaseMarginDeg === null ? null : shown(margins.phaseMarginDeg);
     if (pm !== null && pm < PM.risk) {
       out.push({
         id: 'phase-margin-low',
@@ -122,7 +124,7 @@ export const loopChecks = (args: {
       });
     }
   }
-  const gm = margins.gainMarginDb;
+  const gm = margins.gainMarginDb === null ? null : shown(margins.gainMarginDb);
   if (gm !== null && gm < GM.risk) {
     out.push({
       id: 'gain-margin-low',

@@ -41,6 +41,8 @@ export interface SpiceNetlistOptions {
   pointsPerDecade?: number;
   /** Gain of the ideal op-amp (VCVS), default 1e8. */
   opAmpGain?: number;
+  /** Lower divider resistor, Ω; defaults to the exact value for Vout (a built board uses a standard one). */
+  rb?: number;
 }
 
 /** A value as SPICE reads it (plain decimal or exponent form, 12 significant digits). */
@@ -64,7 +66,8 @@ export const buildSpiceNetlist = (req: AnalyzeRequest, options: SpiceNetlistOpti
   const sign = inverted ? -1 : 1;
   const comp = req.compensator;
   const gmStage = comp.amplifier === 'transconductance';
-  const rb = gmStage && comp.rb !== undefined ? comp.rb : dividerRb(comp.r1, req.feedback.vref, cv.vout);
+  // A gm stage's own Rb is part of its loop; otherwise the caller's (standard) Rb, else the exact one.
+  const rb = gmStage && comp.rb !== undefined ? comp.rb : (options.rb ?? dividerRb(comp.r1, req.feedback.vref, cv.vout));
   const fStart = options.fStart ?? req.sweep?.fStart ?? 10;
   const fStop = options.fStop ?? req.sweep?.fStop ?? cv.fsw / 2;
   const ppd = options.pointsPerDecade ?? 20;

@@ -10,6 +10,9 @@ import { inspectLowFrequencyPhase, type BenchParseResult, type BenchPoints } fro
 export interface BenchSummaryRow {
   id: number;
   designId: number;
+  /** The revision measured; null for design-wide data from before bench data had a revision. */
+  revisionId: number | null;
+  revisionNumber: number | null;
   name: string;
   phaseShifted: boolean;
   uploadedBy: number;
@@ -63,6 +66,8 @@ export function benchDetailBody(
   const base = {
     id: bench.id,
     designId: bench.designId,
+    revisionId: bench.revisionId,
+    revisionNumber: bench.revisionNumber,
     name: bench.name,
     phaseShifted: bench.phaseShifted,
     uploaderName: bench.uploaderName,

@@ -3,12 +3,14 @@
  * Pure: the route handler loads the design, revision and sign-off, runs the analysis and
  * passes them in.
  */
+import { analyze } from '@/lib/engine/analyze';
 import type { SignoffState } from '@/lib/catalog/signoff';
 import type { AnalyzeRequest, AnalyzeResult, Topology } from '@/lib/engine/types';
+import { builtRequest, partsAreStandard } from './built-parts';
 import { buildDesignFile, designFileJson } from './design-file';
 import { EXPORT_CONTENT_TYPE, exportFileName, type ExportFormat } from './files';
 import { buildPartsList, partsListCsv } from './parts-list';
-import { buildReportHtml } from './report';
+import { buildReportHtml, type ReportInput } from './report';
 import { spiceNetlistFile } from './spice';
 
 export interface ExportContext {
@@ -18,6 +20,10 @@ export interface ExportContext {
   result: AnalyzeResult;
   teamName: string;
   now?: Date;
+  /** For the report: sign-off events, remarks and bench data of the revision. */
+  trail?: ReportInput['trail'];
+  remarks?: ReportInput['remarks'];
+  bench?: ReportInput['bench'];
 }
 
 export interface ExportFile {
@@ -38,7 +44,7 @@ export function buildExport(format: ExportFormat, ctx: ExportContext): ExportFil
       body = designFileJson(buildDesignFile({ design, revision, result, now: ctx.now }));
       break;
     case 'spice':
-      body = spiceNetlistFile({ designName: design.name, revision: revision.number, input: revision.input });
+      body = spiceNetlistFile({ designName: design.name, revision: revision.number, input: revision.input, parts: result.parts });
       break;
     case 'report':
       body = buildReportHtml({
@@ -47,9 +53,14 @@ export function buildExport(format: ExportFormat, ctx: ExportContext): ExportFil
         signoff: ctx.signoff,
         input: revision.input,
         result,
+        // The plot shows the loop as built (standard values) unless the parts already are standard.
+        builtBode: partsAreStandard(result.parts) ? result.bode : analyze(builtRequest(revision.input, result.parts)).bode,
         parts: parts(),
         teamName: ctx.teamName,
         generatedAt: ctx.now,
+        trail: ctx.trail,
+        remarks: ctx.remarks,
+        bench: ctx.bench,
       });
       break;
   }

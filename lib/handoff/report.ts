@@ -10,6 +10,7 @@ import { AMPLIFIER_LABELS, compensatorTitle, inputApplies, MODULATOR_MODE_LABELS
 import type { AnalyzeRequest, AnalyzeResult, Margins } from '@/lib/engine/types';
 import { formatSi } from '@/lib/units/si';
 import { formatTolerance, PART_NAME, TOLERANCE_CONVENTION, schematicValue, type PartRow } from './parts-list';
+import type { ReportBench } from './report-bench';
 import { bodeSvg } from './svg-plot';
 import { timeDomainSections } from './report-time-domain';
 import { summarizeRange, worstCaseSentence, type RangeSummary } from '@/lib/range-summary';
@@ -20,9 +21,77 @@ export interface ReportInput {
   signoff: { state: SignoffState; at: Date | null; by: string | null };
   input: AnalyzeRequest;
   result: AnalyzeResult;
+  /** The loop with the standard part values (what will be built); defaults to the ideal one. */
+  builtBode?: AnalyzeResult['bode'];
   parts: PartRow[];
   teamName: string;
   generatedAt?: Date;
+  /** Sign-off events of the revision, oldest first. */
+  trail?: { state: string; actorName: string; reviewerName: string | null; message: string; at: Date }[];
+  /** Remarks on the revision, oldest first. */
+  remarks?: { authorName: string; body: string; at: Date; comparedWith: number | null }[];
+  /** Bench data measured on the revision (and design-wide data), each against this revision's model. */
+  bench?: ReportBench[];
+}
+
+const TRAIL_WORDS: Record<string, string> = {
+  'in-review': 'submitted for review',
+  approved: 'approved',
+  'changes-requested': 'requested changes',
+};
+
+function trailSection(r: ReportInput): string {
+  const trail = r.trail ?? [];
+  if (trail.length === 0) return `<p class="muted">Not submitted for review yet.</p>`;
+  return `<table class="grid trail" data-testid="report-trail"><thead><tr><th>When</th><th>Who</th><th>Step</th><th>Message</th></tr></thead><tbody>${trail
+    .map(
+      (e) =>
+        `<tr><td class="nowrap">${esc(dateTime(e.at))}</td><td>${esc(e.actorName)}</td><td>${esc(TRAIL_WORDS[e.state] ?? e.state)}${
+          e.state === 'in-review' && e.reviewerName ? ` — asked ${esc(e.reviewerName)}` : ''
+        }</td><td class="msg">${esc(e.message || '—')}</td></tr>`,
+    )
+    .join('')}</tbody></table>`;
+}
+
+function remarksSection(r: ReportInput): string {
+  const remarks = r.remarks ?? [];
+  if (remarks.length === 0) return `<p class="muted">No remarks.</p>`;
+  return `<ol class="remarks" data-testid="report-remarks">${remarks
+    .map(
+      (m) =>
+        `<li><div class="who"><b>${esc(m.authorName)}</b> · ${esc(dateTime(m.at))}${m.comparedWith ? ` · on Compare with r${m.comparedWith}` : ''}</div><div class="msg">${esc(m.body)}</div></li>`,
+    )
+    .join('')}</ol>`;
+}
+
+function benchSection(r: ReportInput): string {
+  const list = r.bench ?? [];
+  if (list.length === 0) return `<p class="muted">No bench data attached to r${r.revision.number}.</p>`;
+  return list
+    .map((b, i) => {
+      const row = (label: string, measured: string, model: string) => `<tr><th>${label}</th><td>${measured}</td><td>${model}</td></tr>`;
+      const d = (v: number | null, unit: string) => (v === null ? '—' : `${v.toFixed(unit === 'dB' ? 2 : 1)}${unit === '°' ? '°' : ` ${unit}`}`);
+      const plot = bodeSvg(b.model.bode, {
+        id: `report-bench-${i}`,
+        title: `Model r${r.revision.number} and bench data ${b.name}`,
+        loopLabel: `Model r${r.revision.number}`,
+        bench: b.points,
+        crossoverHz: b.model.crossoverHz,
+        width: 700,
+        panelHeight: 150,
+      });
+      return `<div class="bench" data-testid="report-bench">
+<h3>${esc(b.name)} <span class="muted small">${b.revisionNumber ? `measured on r${b.revisionNumber}` : 'design-wide'} · uploaded ${esc(date(b.createdAt))} by ${esc(b.uploaderName)}${b.phaseShifted ? ' · shown with 180° taken off (measured as −T)' : ''}</span></h3>
+<table class="grid narrow"><thead><tr><th></th><th>Bench data</th><th>Model r${r.revision.number}</th></tr></thead><tbody>
+${row('Crossover fc', esc(si(b.measured.crossoverHz, 'Hz')), esc(si(b.model.crossoverHz, 'Hz')))}
+${row('Phase margin', esc(num(b.measured.phaseMarginDeg, '°')), esc(num(b.model.phaseMarginDeg, '°')))}
+${row('Gain margin', esc(num(b.measured.gainMarginDb, 'dB')), esc(num(b.model.gainMarginDb, 'dB')))}
+</tbody></table>
+<p class="small">Largest difference, model minus bench, inside the model sweep: ${esc(d(b.largestGainDifferenceDb, 'dB'))}, ${esc(d(b.largestPhaseDifferenceDeg, '°'))}.</p>
+<figure class="plot">${plot}</figure>
+</div>`;
+    })
+    .join('');
 }
 
 /** The worst case across the operating range as a report section (corners and spread). */
@@ -164,14 +233,15 @@ export function buildReportHtml(r: ReportInput): string {
 
   const cautions = `<ul class="cautions">${CAUTIONS.map((c) => `<li><b>${esc(c.title)}.</b> ${esc(c.text)}</li>`).join('')}</ul>`;
 
-  const plot = bodeSvg(result.bode, {
+  const plot = bodeSvg(r.builtBode ?? result.bode, {
     id: 'report-bode',
-    title: `Bode plot of ${title}`,
+    title: `Bode plot of ${title} with the standard part values`,
     parts: true,
     width: 700,
     panelHeight: 220,
-    crossoverHz: result.margins.crossoverHz,
+    crossoverHz: r.builtBode ? result.parts.snappedMargins.crossoverHz : result.margins.crossoverHz,
   });
+  const builtNote = `<p class="muted small" data-testid="report-built-note">Build with the standard values. The plot, the “Standard values” margins, the parts list and the SPICE netlist all use them; the ideal values are shown for reference only.</p>`;
 
   const signoffLine =
     r.signoff.at && r.signoff.state !== 'draft'
@@ -183,7 +253,7 @@ export function buildReportHtml(r: ReportInput): string {
 <meta name="viewport" content="width=device-width, initial-scale=1">
 <title>${esc(title)} — Phasewright report</title>
 <style>
-@page { size: A4; margin: 14mm 12mm 16mm; }
+@page { margin: 14mm 12mm 16mm; }
 * { box-sizing: border-box; }
 body { font-family: Inter, system-ui, -apple-system, "Segoe UI", sans-serif; color: #0f172a; margin: 0 auto; max-width: 760px; padding: 24px; font-size: 12px; line-height: 1.45; -webkit-print-color-adjust: exact; print-color-adjust: exact; }
 header.top { display: flex; justify-content: space-between; align-items: flex-start; border-bottom: 3px solid #312e81; padding-bottom: 10px; margin-bottom: 14px; }
@@ -191,7 +261,8 @@ header.top .brand { font-weight: 700; color: #312e81; letter-spacing: .02em; }
 h1 { font-size: 20px; margin: 2px 0 4px; }
 h2 { font-size: 14px; margin: 18px 0 6px; color: #312e81; border-bottom: 1px solid #e2e8f0; padding-bottom: 3px; }
 .meta { text-align: right; font-size: 11px; color: #475569; }
-.state { display: inline-block; padding: 2px 8px; border-radius: 999px; font-weight: 600; font-size: 11px; border: 1px solid currentColor; }
+.meta { flex: none; }
+.state { display: inline-block; padding: 2px 8px; border-radius: 999px; font-weight: 600; font-size: 11px; border: 1px solid currentColor; white-space: nowrap; }
 .state.approved { color: #047857; } .state.in-review { color: #4338ca; } .state.changes-requested { color: #b45309; } .state.draft { color: #475569; }
 .cols { display: grid; grid-template-columns: 1fr 1fr; gap: 18px; }
 table { border-collapse: collapse; width: 100%; }
@@ -202,13 +273,24 @@ table.grid thead th { background: #eef2ff; color: #312e81; font-weight: 600; }
 table.parts td:nth-child(3) { color: #334155; }
 table.parts td:nth-child(4), table.parts td:nth-child(5), table.parts td:nth-child(7) { white-space: nowrap; }
 .muted { color: #64748b; } .small { font-size: 10.5px; }
-.plot svg { width: 100%; height: auto; }
+.plot svg { width: 100%; height: auto; max-height: 225mm; }
+.plot { break-inside: avoid; page-break-inside: avoid; margin: 0; }
+h2, h3 { break-after: avoid; page-break-after: avoid; }
+h3 { font-size: 12.5px; margin: 12px 0 4px; }
+table.narrow { width: auto; min-width: 60%; }
+.nowrap { white-space: nowrap; }
+td.msg, .remarks .msg { white-space: pre-wrap; }
+ol.remarks { list-style: none; padding: 0; margin: 0; }
+ol.remarks li { border: 1px solid #e2e8f0; border-radius: 4px; padding: 5px 8px; margin: 4px 0; break-inside: avoid; }
+ol.remarks .who { font-size: 11px; color: #475569; }
+tr { break-inside: avoid; page-break-inside: avoid; }
+.bench { margin-bottom: 10px; }
 ul.checks, ul.cautions { padding-left: 0; list-style: none; margin: 0; }
 li.check { padding: 4px 8px; margin: 3px 0; border-left: 4px solid; background: #f8fafc; }
 li.check.note { border-color: #64748b; } li.check.caution { border-color: #d97706; background: #fffbeb; } li.check.risk { border-color: #dc2626; background: #fef2f2; }
 li.check .level { font-weight: 700; text-transform: uppercase; font-size: 10px; margin-right: 6px; }
 ul.cautions li { margin: 4px 0; padding: 6px 8px; background: #fff7ed; border: 1px solid #fed7aa; border-radius: 4px; }
-section { break-inside: avoid; page-break-inside: avoid; }
+section.keep { break-inside: avoid; page-break-inside: avoid; }
 footer { margin-top: 18px; border-top: 1px solid #e2e8f0; padding-top: 6px; font-size: 10.5px; color: #64748b; }
 @media print { body { padding: 0; max-width: none; } a { color: inherit; text-decoration: none; } }
 </style></head>
@@ -227,17 +309,20 @@ footer { margin-top: 18px; border-top: 1px solid #e2e8f0; padding-top: 6px; font
   </div>
 </header>
 ${r.revision.note ? `<p><b>Revision note:</b> ${esc(r.revision.note)}</p>` : ''}
-<section class="cols">
+<section class="keep"><h2>Margins</h2>${margins}${builtNote}</section>
+<section><h2>Bode plot (standard values, as built)</h2><figure class="plot">${plot}</figure></section>
+<section class="cols keep">
   <div><h2>Inputs</h2>${inputs}</div>
   <div><h2>Operating point</h2>${operating}</div>
 </section>
-<section><h2>Margins</h2>${margins}</section>
 <section data-section="range"><h2>Across the operating range</h2>${across}</section>
-<section class="plot"><h2>Bode plot</h2>${plot}</section>
 ${timeDomainSections(input, result)}
 <section><h2>Parts</h2>${parts}</section>
 <section><h2>Checks</h2>${checks}</section>
-<section><h2>Cautions</h2>${cautions}</section>
+<section><h2>Bench data against the model</h2>${benchSection(r)}</section>
+<section><h2>Sign-off trail</h2>${trailSection(r)}</section>
+<section><h2>Remarks</h2>${remarksSection(r)}</section>
+<section class="keep"><h2>Cautions</h2>${cautions}</section>
 <footer>Small-signal averaged model at one operating point; the values above are estimates to be verified on the bench. Generated by Phasewright on ${esc(dateTime(generatedAt))}.</footer>
 </body></html>
 `;

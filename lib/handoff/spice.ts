@@ -2,20 +2,57 @@
  * The .cir export: the engine's netlist (lib/engine/spice-netlist.ts: averaged power stage at
  * the operating point, op-amp compensator, .ac card) with a title naming the design and
  * revision, ready for `ngspice -b <file>.cir` without edits.
+ *
+ * The compensator and the divider use the standard values of the parts list (what will be
+ * built), each with its ideal value in a comment, so the simulated circuit is the soldered one.
  */
 import { buildSpiceNetlist } from '@/lib/engine/spice-netlist';
-import type { AnalyzeRequest } from '@/lib/engine/types';
+import type { AnalyzeRequest, PartsResult, PartValues } from '@/lib/engine/types';
+import { builtRequest } from './built-parts';
+import { PART_KEYS, PART_NAME } from './parts-list';
 
-export function spiceNetlistFile(args: { designName: string; revision: number; input: AnalyzeRequest }): string {
+/** A value as SPICE reads it (the netlist writes the same 12 significant digits). */
+const v = (x: number): string => String(Number(x.toPrecision(12)));
+
+function partComments(parts: PartsResult): string[] {
+  const lines = [`* Parts at their standard values (${parts.resistorSeries} resistors, ${parts.capacitorSeries} capacitors), as in the parts list:`];
+  for (const k of PART_KEYS) {
+    const built = parts.snapped[k as keyof PartValues];
+    const ideal = parts.ideal[k as keyof PartValues];
+    if (built === null || ideal === null || !(built > 0)) continue;
+    lines.push(`*   ${PART_NAME[k]} = ${v(built)}  (ideal ${v(ideal)})`);
+  }
+  return lines;
+}
+
+/** The output voltage the standard divider sets (sign as entered), or null without Rb. */
+export function builtOutputVoltage(input: AnalyzeRequest, parts: PartsResult): number | null {
+  const { r1, rb } = parts.snapped;
+  if (!rb) return null;
+  return Math.sign(input.converter.vout) * input.feedback.vref * (1 + r1 / rb);
+}
+
+function voutComment(input: AnalyzeRequest, parts: PartsResult): string[] {
+  const vout = builtOutputVoltage(input, parts);
+  return vout === null ? [] : [`*   With the standard R1 and Rb the output sets to ${v(Number(vout.toPrecision(5)))} V (entered ${v(input.converter.vout)} V).`];
+}
+
+export function spiceNetlistFile(args: { designName: string; revision: number; input: AnalyzeRequest; parts: PartsResult }): string {
   // The title line is the first line SPICE reads; keep it to one printable line.
   const name = args.designName.replace(/[\r\n]+/g, ' ').replace(/[^\x20-\x7e]/g, '-');
-  const netlist = buildSpiceNetlist(args.input, { title: `Phasewright ${name} r${args.revision}: loop gain check` });
+  const built = builtRequest(args.input, args.parts);
+  const netlist = buildSpiceNetlist(built, {
+    title: `Phasewright ${name} r${args.revision}: loop gain check`,
+    rb: args.parts.snapped.rb ?? undefined,
+  });
   // The engine's control block ends with `quit`, so `ngspice -b` exits 0 when done.
   const [title, ...rest] = netlist.split('\n');
   return [
     title,
     '* Small-signal averaged model at one operating point: an estimate. Verify the loop on the bench.',
     '* Run: ngspice -b <this file>   (prints V(duty), then frequency, loopdb, loopdeg)',
+    ...partComments(args.parts),
+    ...voutComment(args.input, args.parts),
     ...rest,
   ].join('\n');
 }

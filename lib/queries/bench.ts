@@ -11,7 +11,9 @@ import { ApiError, designKeys, requestJson } from './revisions';
  * `{ f, gainDb, phaseDeg, name }` (points as displayed: shift applied, phase on the branch of T).
  */
 export const benchKeys = {
-  list: (designId: number) => [...designKeys.detail(designId), 'bench'] as const,
+  /** Every list of the design (a prefix: invalidating it refreshes the per-revision lists too). */
+  all: (designId: number) => [...designKeys.detail(designId), 'bench'] as const,
+  list: (designId: number, revision: number | null = null) => [...designKeys.detail(designId), 'bench', 'list', revision ?? 'all'] as const,
   detail: (designId: number, benchId: number, revision: number | null) =>
     [...designKeys.detail(designId), 'bench', benchId, revision ?? 'none'] as const,
 };
@@ -20,17 +22,18 @@ export type { BenchPoints, MeasuredMargins };
 
 export type BenchListItem = Jsonified<BenchSummaryRow>;
 export type BenchDetail = Jsonified<BenchDetailBody>;
-export type BenchUploaded = Jsonified<BenchUploadedBody>;
+export type BenchUploaded = Jsonified<BenchUploadedBody> & { revision: number };
 
 /** The overlay a Bode plot takes (components/plot/bode-plot.tsx `bench`). */
 export interface BenchOverlay extends BenchPoints {
   name?: string;
 }
 
-export const benchListQueryOptions = (designId: number) =>
+/** Bench data of a design, or with `revision` only that revision's (and design-wide data). */
+export const benchListQueryOptions = (designId: number, revision: number | null = null) =>
   queryOptions({
-    queryKey: benchKeys.list(designId),
-    queryFn: () => requestJson<{ benchData: BenchListItem[] }>(`/api/designs/${designId}/bench`),
+    queryKey: benchKeys.list(designId, revision),
+    queryFn: () => requestJson<{ benchData: BenchListItem[] }>(`/api/designs/${designId}/bench${revision ? `?revision=${revision}` : ''}`),
   });
 
 export const benchDetailQueryOptions = (designId: number, benchId: number, revision: number | null = null) =>
@@ -41,9 +44,10 @@ export const benchDetailQueryOptions = (designId: number, benchId: number, revis
   });
 
 /** Upload a file (multipart); throws ApiError whose body names the line of a bad file. */
-export function uploadBenchData(designId: number, file: File, opts: { name?: string; frequencyUnit?: string; phaseShifted?: boolean } = {}) {
+export function uploadBenchData(designId: number, file: File, opts: { name?: string; frequencyUnit?: string; phaseShifted?: boolean; revision?: number } = {}) {
   const form = new FormData();
   form.set('file', file);
+  if (opts.revision) form.set('revision', String(opts.revision));
   if (opts.name) form.set('name', opts.name);
   if (opts.frequencyUnit) form.set('frequencyUnit', opts.frequencyUnit);
   if (opts.phaseShifted) form.set('phaseShifted', 'true');
@@ -63,11 +67,12 @@ export async function deleteBenchData(designId: number, benchId: number) {
 }
 
 /**
- * The newest bench data of a design as a plot overlay, or null when there is none.
- * Tune: `const bench = useBenchOverlay(designId); <BodePlot bench={bench ?? undefined} … />`.
+ * The newest bench data of a design (with `revision`: of that revision) as a plot overlay, or
+ * null when there is none.
+ * Tune: `const bench = useBenchOverlay(designId, shownRevision); <BodePlot bench={bench ?? undefined} … />`.
  */
-export function useBenchOverlay(designId: number): BenchOverlay | null {
-  const list = useQuery(benchListQueryOptions(designId));
+export function useBenchOverlay(designId: number, revision: number | null = null): BenchOverlay | null {
+  const list = useQuery(benchListQueryOptions(designId, revision));
   const newest = list.data?.benchData[0];
   const detail = useQuery({ ...benchDetailQueryOptions(designId, newest?.id ?? 0), enabled: newest !== undefined });
   if (!newest || !detail.data) return null;

@@ -30,9 +30,9 @@ export const designUpdateSchema = designCreateSchema
 export type DesignCreate = z.infer<typeof designCreateSchema>;
 export type DesignUpdate = z.infer<typeof designUpdateSchema>;
 
-import { DESIGN_SORTS, DESIGN_STATUSES, entriesOf, type DesignListParams } from '@/lib/designs-list-query';
+import { DESIGN_ARCHIVED, DESIGN_SORTS, DESIGN_STATUSES, entriesOf, type DesignListParams } from '@/lib/designs-list-query';
 
-export { DESIGN_PAGE_SIZE, DESIGN_SORTS, DESIGN_STATUSES, defaultSortDir, designListSearch, readDesignListQuery } from '@/lib/designs-list-query';
+export { DESIGN_ARCHIVED, DESIGN_PAGE_SIZE, DESIGN_SORTS, DESIGN_STATUSES, defaultSortDir, designListSearch, readDesignListQuery } from '@/lib/designs-list-query';
 export type { DesignListQuery, DesignSort } from '@/lib/designs-list-query';
 
 /**
@@ -46,6 +46,8 @@ export const designListQuerySchema = z.object({
   sort: z.enum(DESIGN_SORTS, { error: `sort must be one of ${DESIGN_SORTS.join(', ')}` }).default('updatedAt'),
   dir: z.enum(['asc', 'desc'], { error: 'dir must be asc or desc' }).optional(),
   page: z.coerce.number({ error: 'page must be a number' }).int('page must be a whole number').min(1, 'page starts at 1').default(1),
+  archived: z.enum(DESIGN_ARCHIVED, { error: 'archived must be "active", "archived" or "all"' }).default('active'),
+  waiting: z.enum(['me'], { error: 'waiting must be "me"' }).optional(),
 });
 
 export function parseDesignListQuery(params: DesignListParams) {

@@ -26,6 +26,8 @@ export const remarkSchema = z.object({
     .trim()
     .min(1, 'body must not be empty')
     .max(4000, 'body must be at most 4000 characters'),
+  /** Written on Compare: the other revision on the plot. */
+  comparedWith: z.number({ error: 'comparedWith must be a revision number' }).int().positive().optional(),
 });
 
 export type SubmitForReview = z.infer<typeof submitForReviewSchema>;

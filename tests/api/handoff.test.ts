@@ -33,9 +33,10 @@ beforeAll(async () => {
 
 const exportUrl = (format: string, rev = 1, id = designId) => `/api/designs/${id}/revisions/${rev}/export?format=${format}`;
 
-function upload(client: Client, body: string | Uint8Array, opts: { name?: string; fileName?: string; phaseShifted?: boolean } = {}) {
+function upload(client: Client, body: string | Uint8Array, opts: { name?: string; fileName?: string; phaseShifted?: boolean; revision?: string } = {}) {
   const form = new FormData();
   form.set('file', new Blob([body as BlobPart], { type: 'text/csv' }), opts.fileName ?? 'loop.csv');
+  if (opts.revision) form.set('revision', opts.revision);
   if (opts.name) form.set('name', opts.name);
   if (opts.phaseShifted) form.set('phaseShifted', 'true');
   return client.fetch(`/api/designs/${designId}/bench`, { method: 'POST', body: form });
@@ -243,6 +244,25 @@ describe('bench data', () => {
     expect((await anon.fetch(`/api/designs/${designId}/bench`)).status).toBe(401);
     expect((await upload(anon, benchCsvFor(input))).status).toBe(401);
     expect((await outsider.client.fetch(`/api/designs/${designId}/bench/${id}`)).status).toBe(404);
+  });
+
+  it('bench data belongs to a revision: the latest by default, or the one named; listed per revision', async () => {
+    const r2 = await clients.designer.json(`/api/designs/${designId}/revisions`, 'POST', { baseRevision: 1, note: 'bench r2', input });
+    expect(r2.status).toBe(201);
+    const onLatest = await upload(clients.designer, benchCsvFor(input), { name: 'board B' });
+    expect(onLatest.status).toBe(201);
+    expect((await onLatest.json()).revision).toBe(2);
+    const onFirst = await upload(clients.designer, benchCsvFor(input), { name: 'board A', revision: '1' });
+    expect((await onFirst.json()).revision).toBe(1);
+    const names = async (q: string) =>
+      ((await (await clients.viewer.fetch(`/api/designs/${designId}/bench${q}`)).json()).benchData as { name: string; revisionNumber: number }[]).map((b) => `${b.name}@r${b.revisionNumber}`);
+    expect(await names('?revision=2')).toContain('board B@r2');
+    expect(await names('?revision=2')).not.toContain('board A@r1');
+    expect(await names('?revision=1')).toContain('board A@r1');
+    expect(await names('')).toEqual(expect.arrayContaining(['board A@r1', 'board B@r2']));
+    const bad = await upload(clients.designer, benchCsvFor(input), { revision: '99' });
+    expect(bad.status).toBe(422);
+    expect((await bad.json()).issues[0].path).toBe('revision');
   });
 
   it('designer deletes one; it is gone', async () => {

@@ -84,6 +84,8 @@ describe.runIf(run)('Compare and Sign-off', () => {
     await designer.getByLabel('Message to the reviewer').fill('Gain raised by lowering R1; please check PM');
     await designer.getByRole('button', { name: 'Submit r2 for review' }).click();
     await expect.poll(() => panel.locator('[data-state]').first().getAttribute('data-state')).toBe('in-review');
+    // The author's side says whom it waits for (it used to be an empty half).
+    await expect.poll(() => panel.getByTestId('waiting-for').textContent()).toBe('Waiting for Rui Reviewer to approve r2 or request changes.');
     await screenshot(designer, 'history-submitted');
 
     const request = mailTo('reviewer@demo.test').find((m) => m.text.includes('Gain raised by lowering R1'));

@@ -1,6 +1,20 @@
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { listDesigns, listRevisions, listTeamMembers, listTeamsForUser, getUserByEmail, verifyCredentials } from '@/db/queries';
+import {
+  countDesignsWaitingFor,
+  getSignoffState,
+  listBenchData,
+  listDesigns,
+  listMail,
+  listMailTo,
+  listRemarks,
+  listRevisions,
+  listTeamMembers,
+  listTeamsForUser,
+  getUserByEmail,
+  verifyCredentials,
+} from '@/db/queries';
 import { DEMO_PASSWORD, DEMO_USERS, seedDemo } from '@/db/seed';
+import { DEMO_STORIES, DEMO_WAITING } from '@/db/seed-story';
 import type { Db } from '@/db/connection';
 import { tempDb } from '../support/temp-db';
 
@@ -20,7 +34,7 @@ describe('demo seed', () => {
   it('creates a buck, a boost and a buck-boost, each with a first revision with sensible margins', () => {
     seedDemo(db);
     const teamId = listTeamsForUser(db, getUserByEmail(db, 'admin@demo.test')!.id)[0].teamId;
-    const designs = listDesigns(db, teamId);
+    const designs = listDesigns(db, teamId).filter((d) => !DEMO_STORIES.some((s) => s.name === d.name));
     expect(designs.map((d) => d.topology).sort()).toEqual(['boost', 'buck', 'buck-boost']);
     for (const d of designs) {
       const [r1] = listRevisions(db, d.id);
@@ -34,11 +48,50 @@ describe('demo seed', () => {
 
   it('is idempotent', () => {
     seedDemo(db);
+    const mailCount = listMail(db, 1000).length;
     seedDemo(db);
     const teamId = listTeamsForUser(db, getUserByEmail(db, 'admin@demo.test')!.id)[0].teamId;
-    expect(listDesigns(db, teamId)).toHaveLength(3);
+    expect(listDesigns(db, teamId)).toHaveLength(3 + DEMO_STORIES.length);
+    expect(listMail(db, 1000)).toHaveLength(mailCount);
+    expect(listRevisions(db, listDesigns(db, teamId).find((d) => d.name === DEMO_WAITING.name)!.id)).toHaveLength(2);
     expect(listTeamsForUser(db, getUserByEmail(db, 'viewer@demo.test')!.id)).toHaveLength(1);
     // The designer also reads a second team, with a different role there.
     expect(listTeamsForUser(db, getUserByEmail(db, 'designer@demo.test')!.id).map((t) => t.role)).toEqual(['designer', 'viewer']);
+  });
+});
+
+describe('demo review story', () => {
+  it('takes a design through three revisions: thin margin sent back with remarks, sent back again, approved with bench data', () => {
+    seedDemo(db);
+    const teamId = listTeamsForUser(db, getUserByEmail(db, 'admin@demo.test')!.id)[0].teamId;
+    const story = listDesigns(db, teamId).find((d) => d.name === DEMO_STORIES[0].name)!;
+    const revs = listRevisions(db, story.id);
+    expect(revs.map((r) => r.number)).toEqual([1, 2, 3]);
+    const pm = (r: (typeof revs)[number]) => (r.summary as { margins: { phaseMarginDeg: number } }).margins.phaseMarginDeg;
+    expect(pm(revs[0])).toBeLessThan(40); // the thin first try
+    expect(pm(revs[2])).toBeGreaterThan(50);
+    expect(revs.map((r) => getSignoffState(db, r.id))).toEqual(['changes-requested', 'changes-requested', 'approved']);
+    expect(listRemarks(db, revs[0].id).length).toBeGreaterThanOrEqual(2);
+    expect(listRemarks(db, revs[1].id)[0].comparedWith).toBe(1);
+    expect(listBenchData(db, teamId, story.id, { revisionNumber: 3 }).map((b) => b.revisionNumber)).toEqual([3]);
+    expect(listBenchData(db, teamId, story.id, { revisionNumber: 1 }).map((b) => b.revisionNumber)).toEqual([1]);
+  });
+
+  it('stores the mail each step sends: requests to the reviewer, decisions and remarks to the designer', () => {
+    seedDemo(db);
+    const name = DEMO_STORIES[0].name;
+    const toReviewer = listMailTo(db, 'reviewer@demo.test', 100).map((m) => m.subject);
+    const toDesigner = listMailTo(db, 'designer@demo.test', 100).map((m) => m.subject);
+    expect(toReviewer).toEqual(expect.arrayContaining([`Review requested: ${name} r1`, `Review requested: ${name} r3`, `Review requested: ${DEMO_WAITING.name} r2`, `Remark on ${name} r1`]));
+    expect(toDesigner).toEqual(expect.arrayContaining([`Changes requested: ${name} r1`, `Changes requested: ${name} r2`, `Approved: ${name} r3`, `Remark on ${name} r2`]));
+    expect(listMailTo(db, 'designer@demo.test', 100).every((m) => m.teamId !== null)).toBe(true);
+  });
+
+  it('leaves one design waiting for the demo reviewer', () => {
+    seedDemo(db);
+    const teamId = listTeamsForUser(db, getUserByEmail(db, 'admin@demo.test')!.id)[0].teamId;
+    const reviewer = getUserByEmail(db, 'reviewer@demo.test')!;
+    expect(countDesignsWaitingFor(db, teamId, reviewer.id)).toBe(1);
+    expect(listDesigns(db, teamId, { waitingForUserId: reviewer.id }).map((d) => d.name)).toEqual([DEMO_WAITING.name]);
   });
 });

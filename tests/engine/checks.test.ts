@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { analyze } from '@/lib/engine/analyze';
-import { partChecks, stageChecks } from '@/lib/engine/checks';
+import { loopChecks, partChecks, stageChecks } from '@/lib/engine/checks';
 import { partsFromShape, shapeFromParts } from '@/lib/engine/compensator';
 import { computeOperatingPoint } from '@/lib/engine/steady-state';
 import { SAMPLE_DESIGNS } from '@/lib/engine/samples';
@@ -73,5 +73,31 @@ describe('checks (thresholds: common practice, CHECK-VALUES §4)', () => {
       expect(c.id).toMatch(/^[a-z]+(-[a-z0-9]+)*$/);
       expect(c.message.length).toBeGreaterThan(40);
     }
+  });
+});
+
+describe('margin checks compare the value as shown (0.1° / 0.1 dB)', () => {
+  const loop = { f: [1e3, 1e4, 1e5], magDb: [20, 0, -20], phaseDeg: [-100, -130, -170] };
+  const checksFor = (pm: number, gm: number) =>
+    loopChecks({
+      margins: { crossoverHz: 1e4, phaseMarginDeg: pm, gainMarginDb: gm, phaseCrossoverHz: 2e5, crossings: [{ kind: 'gain', hz: 1e4, direction: 'down' }] },
+      loop,
+      fsw: 1e6,
+      rhpZeroHz: null,
+    });
+
+  it('44.96° reads 45.0° and raises nothing; 44.94° reads 44.9° (under 45°)', () => {
+    expect(checksFor(44.96, 20).find((c) => c.id === 'phase-margin-low')).toBeUndefined();
+    const low = checksFor(44.94, 20).find((c) => c.id === 'phase-margin-low');
+    expect(low?.message).toContain('Phase margin is 44.9° (under 45°)');
+    for (const pm of [29.96, 44.951, 45, 45.04]) {
+      for (const c of checksFor(pm, 20)) expect(c.message).not.toMatch(/is 45\.0° \(under 45°\)|is 30\.0° \(under 30°\)/);
+    }
+  });
+
+  it('9.96 dB reads 10.0 dB and raises nothing; 5.96 dB is a caution, not a risk', () => {
+    expect(checksFor(60, 9.96).find((c) => c.id === 'gain-margin-low')).toBeUndefined();
+    expect(checksFor(60, 5.96).find((c) => c.id === 'gain-margin-low')?.level).toBe('caution');
+    expect(checksFor(60, 5.94).find((c) => c.id === 'gain-margin-low')?.message).toContain('5.9 dB (under 6 dB)');
   });
 });

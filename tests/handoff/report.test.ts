@@ -5,6 +5,7 @@ import { SAMPLE_DESIGNS } from '@/lib/engine/samples';
 import { buildExport, type ExportContext } from '@/lib/handoff/exports';
 import { contentDisposition, exportFileName, slugify } from '@/lib/handoff/files';
 import { bodeSvg, differenceSvg } from '@/lib/handoff/svg-plot';
+import { benchForReport } from '@/lib/handoff/report-bench';
 
 const sample = SAMPLE_DESIGNS[0];
 const ctx = (over: Partial<ExportContext> = {}): ExportContext => ({
@@ -69,6 +70,11 @@ describe('printable report', () => {
     expect(html).not.toContain('<5 V>');
   });
 
+  it('plots the loop as built (standard values) and says that every export uses them', () => {
+    expect(html).toContain('Bode plot (standard values, as built)');
+    expect(html).toMatch(/data-testid="report-built-note">Build with the standard values\./);
+  });
+
   it('says draft without a date for a draft', () => {
     const d = buildExport('report', ctx({ signoff: { state: 'draft', at: null, by: null } })).body;
     expect(d).toMatch(/data-testid="report-signoff">Draft</);
@@ -103,5 +109,72 @@ describe('SVG plots', () => {
     expect(dots).toBeLessThanOrEqual(2 * 800);
     expect(svg).toContain('fill="#6b7280"');
     expect(differenceSvg(bench, { id: 'd', title: 'diff' })).toContain('Δ phase');
+  });
+});
+
+describe('report: review and bench', () => {
+  const benchPoints = (() => {
+    const m = analyze({ ...sample.request, sweep: { fStart: 100, fStop: 200e3, points: 60 } }).bode;
+    return { f: m.f, gainDb: m.loop.magDb.map((x) => x - 1), phaseDeg: m.loop.phaseDeg.map((x) => x - 3) };
+  })();
+  const full = buildExport(
+    'report',
+    ctx({
+      trail: [
+        { state: 'in-review', actorName: 'Dara Designer', reviewerName: 'Rui Reviewer', message: 'Please check PM', at: new Date('2026-02-03T11:00:00Z') },
+        { state: 'approved', actorName: 'Rui Reviewer', reviewerName: null, message: 'Good for the pilot run', at: new Date('2026-02-04T09:00:00Z') },
+      ],
+      remarks: [{ authorName: 'Rui Reviewer', body: 'Zero moved <closer> to fc', at: new Date('2026-02-03T12:00:00Z'), comparedWith: 2 }],
+      bench: [
+        benchForReport(sample.request, {
+          name: 'Board 1, 24 V in',
+          uploaderName: 'Dara Designer',
+          createdAt: new Date('2026-02-04T08:00:00Z'),
+          revisionNumber: 3,
+          phaseShifted: false,
+          points: benchPoints,
+        }),
+      ],
+    }),
+  ).body;
+
+  it('shows the sign-off trail in order with who asked whom', () => {
+    expect(full).toContain('data-testid="report-trail"');
+    expect(full).toMatch(/Dara Designer<\/td><td>submitted for review — asked Rui Reviewer<\/td><td class="msg">Please check PM/);
+    expect(full.indexOf('submitted for review')).toBeLessThan(full.indexOf('Good for the pilot run'));
+  });
+
+  it('shows the remarks, escaped, with the comparison they were written on', () => {
+    expect(full).toContain('Zero moved &lt;closer&gt; to fc');
+    expect(full).toContain('on Compare with r2');
+  });
+
+  it('shows each bench data set against the model: margins side by side, differences, and an overlay plot', () => {
+    expect(full).toContain('data-testid="report-bench"');
+    expect(full).toContain('Board 1, 24 V in');
+    expect(full).toContain('measured on r3');
+    expect(full).toMatch(/<th>Bench data<\/th><th>Model r3<\/th>/);
+    // Bench gain 1 dB below the model everywhere → the largest gain difference is 1 dB.
+    // (the phase difference is read between model samples: 3° within 0.1°)
+    expect(full).toMatch(/Largest difference, model minus bench, inside the model sweep: 1\.00 dB, 3\.[01]°\./);
+    // The Bode plot and the bench overlay, besides the time-domain section's plots.
+    const timeDomain = full.indexOf('<section data-section="range">');
+    const benchAt = full.indexOf('data-testid="report-bench"');
+    expect((full.slice(0, timeDomain).match(/<svg/g) ?? []).length).toBe(1);
+    expect((full.slice(benchAt).match(/<svg/g) ?? []).length).toBe(1);
+  });
+
+  it('says so when a revision has no bench data, trail or remarks', () => {
+    const html = buildExport('report', ctx()).body;
+    expect(html).toContain('No bench data attached to r3.');
+    expect(html).toContain('Not submitted for review yet.');
+    expect(html).toContain('No remarks.');
+  });
+
+  it('prints on any paper: no fixed page size; the badge never wraps; plots no taller than a page', () => {
+    expect(full).toMatch(/@page \{ margin:/);
+    expect(full).not.toMatch(/@page \{[^}]*size:/);
+    expect(full).toMatch(/\.state \{[^}]*white-space: nowrap/);
+    expect(full).toMatch(/\.plot svg \{[^}]*max-height/);
   });
 });

@@ -3,12 +3,16 @@ import { analyze } from '@/lib/engine/analyze';
 import { interpolateLogF } from '@/lib/engine/margins';
 import { SAMPLE_DESIGNS } from '@/lib/engine/samples';
 import type { AnalyzeRequest } from '@/lib/engine/types';
+import { builtRequest } from '@/lib/handoff/built-parts';
 import { buildExport } from '@/lib/handoff/exports';
+import { builtOutputVoltage } from '@/lib/handoff/spice';
+import { buildPartsList, partsListCsv } from '@/lib/handoff/parts-list';
 import { ngspiceAvailable, readNgspiceTable, runNgspice } from '../support/ngspice';
 
 /**
- * The exported .cir, run as it is by Debian's ngspice, against the engine: loop gain within
- * 0.1 dB and 1° at every ngspice frequency (engine swept densely and interpolated in log f).
+ * The exported .cir, run as it is by Debian's ngspice, against the engine with the parts as
+ * built (standard values): loop gain within 0.1 dB and 1° at every ngspice frequency (engine
+ * swept densely and interpolated in log f).
  */
 const haveNgspice = ngspiceAvailable();
 
@@ -32,7 +36,11 @@ describe.skipIf(!haveNgspice)('exported SPICE netlist agrees with the engine (ng
       const rows = readNgspiceTable(out, ['frequency', 'loopdb', 'loopdeg']);
       expect(rows.length).toBeGreaterThan(50);
       const fStop = sample.request.converter.fsw / 2;
-      const dense = analyze({ ...sample.request, sweep: { fStart: 10, fStop, points: 8000 } }).bode;
+      const parts = analyze(sample.request).parts;
+      const built = builtRequest(sample.request, parts);
+      // The standard divider moves the output a little; the simulator finds that operating point.
+      built.converter = { ...built.converter, vout: builtOutputVoltage(sample.request, parts)! };
+      const dense = analyze({ ...built, sweep: { fStart: 10, fStop, points: 8000 } }).bode;
       let worstDb = 0;
       let worstDeg = 0;
       for (const [f, db, deg] of rows) {
@@ -45,6 +53,40 @@ describe.skipIf(!haveNgspice)('exported SPICE netlist agrees with the engine (ng
       }
       expect(worstDb).toBeLessThan(0.1);
       expect(worstDeg).toBeLessThan(1);
+    });
+  }
+});
+
+/** The part lines of a netlist: name → value (SPICE reads a plain number or exponent form). */
+function netlistParts(cir: string): Map<string, number> {
+  const out = new Map<string, number>();
+  for (const line of cir.split('\n')) {
+    const m = /^(R1|R2|R3|C1|C2|C3|Rb) \S+ \S+ (\S+)$/.exec(line);
+    if (m) out.set(m[1], Number(m[2]));
+  }
+  return out;
+}
+
+describe('the netlist builds the parts of the parts list', () => {
+  for (const sample of SAMPLE_DESIGNS) {
+    it(`${sample.key}: every R and C in the netlist equals the parts list's standard value`, () => {
+      const result = analyze(sample.request);
+      const cir = exportCir(sample.request, sample.name).body;
+      const rows = buildPartsList(result.parts, sample.request.compensator.type);
+      const inNetlist = netlistParts(cir);
+      // Rb appears in the netlist under its drawing name; the parts list names it R4 by default.
+      const names = rows.map((r) => (r.part === 'rb' ? 'Rb' : r.designator)).sort();
+      expect([...inNetlist.keys()].sort()).toEqual(names);
+      // The CSV's base-unit column is what a BOM tool reads: compare with that too.
+      const csv = partsListCsv(rows).trim().split('\r\n').slice(1).map((l) => Number(l.split(',').at(-1)));
+      rows.forEach((r, i) => {
+        const name = r.part === 'rb' ? 'Rb' : r.designator;
+        expect(inNetlist.get(name)).toBeCloseTo(r.standard, 12);
+        expect(inNetlist.get(name)! / csv[i]).toBeCloseTo(1, 5);
+      });
+      // The ideal values stay as comments, and the netlist says it uses the standard ones.
+      expect(cir).toMatch(/^\* Parts at their standard values/m);
+      for (const r of rows) expect(cir).toMatch(new RegExp(`^\\*   ${r.part === 'rb' ? 'Rb' : r.part.toUpperCase()} = \\S+  \\(ideal `, 'm'));
     });
   }
 });

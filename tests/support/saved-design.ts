@@ -9,7 +9,9 @@ export type AnalyzeInput = {
 /** The input of a seeded demo revision: a known-good analysis request. */
 export async function demoInput(client: Client): Promise<AnalyzeInput> {
   const { designs } = await (await client.fetch('/api/designs')).json();
-  const seeded = designs.find((d: { latestRevision: number | null }) => d.latestRevision);
+  // The demo's buck-boost (its first revision is a plain, well-margined design); else any saved design.
+  const seeded =
+    designs.find((d: { name: string }) => d.name === '−12 V bias — motor current amplifier') ?? designs.find((d: { latestRevision: number | null }) => d.latestRevision);
   const rev = await (await client.fetch(`/api/designs/${seeded.id}/revisions/1`)).json();
   return rev.input;
 }

@@ -1,16 +1,22 @@
 import { NextResponse } from 'next/server';
 import { getDb } from '@/db/client';
-import { createDesign, listDesignsPage } from '@/db/queries';
+import { createDesign, getTeamSignoffSettings, listDesignsPage } from '@/db/queries';
+import { mayReview } from '@/lib/signoff-policy';
 import { can } from '@/lib/auth';
 import { HttpError, parseJson, withUser } from '@/lib/api';
 import { designCreateSchema, parseDesignListQuery } from '@/lib/validation/design';
 import { zodIssues } from '@/lib/validation/analyze';
 
-/** One page (100 rows) of the team's designs: ?q, topology, status, sort, dir, page. */
+/**
+ * One page (100 rows) of the team's designs: ?q, topology, status, sort, dir, page,
+ * archived=active (default) | archived | all, waiting=me (in review, asking me).
+ */
 export const GET = withUser(async (req, { user }) => {
   const query = parseDesignListQuery(new URL(req.url).searchParams);
   if (!query.success) throw new HttpError(400, 'The list parameters do not fit', zodIssues(query.error));
-  return NextResponse.json(listDesignsPage(getDb(), user.teamId, query.data));
+  const db = getDb();
+  const reviewsUnnamed = mayReview(user.role, getTeamSignoffSettings(db, user.teamId));
+  return NextResponse.json(listDesignsPage(db, user.teamId, query.data, { userId: user.id, reviewsUnnamed }));
 });
 
 export const POST = withUser(

@@ -1,9 +1,10 @@
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { getDb } from '@/db/client';
-import { getDesign, getLatestRevision } from '@/db/queries';
-import { requireUser } from '@/lib/auth';
+import { getDesign, getLatestRevision, hasSignoffTrail } from '@/db/queries';
+import { can, requireUser } from '@/lib/auth';
 import { topologyLabel } from '@/lib/topology';
+import { ArchiveControl } from '@/components/designs/archive-control';
 import { DesignTabs } from '@/components/designs/design-tabs';
 
 export default async function DesignLayout({ children, params }: { children: React.ReactNode; params: Promise<{ id: string }> }) {
@@ -29,6 +30,13 @@ export default async function DesignLayout({ children, params }: { children: Rea
           </p>
         </div>
         <DesignTabs designId={design.id} />
+        <ArchiveControl
+          designId={design.id}
+          name={design.name}
+          archivedAt={design.archivedAt?.toISOString() ?? null}
+          canEdit={can.editDesigns(user.role)}
+          deletable={!hasSignoffTrail(db, design.id)}
+        />
       </div>
       {children}
     </div>

@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { listRevisions, listSignoffStates } from '@/db/queries';
+import { listRemarks, listRevisions, listSignoffStates } from '@/db/queries';
+import { can } from '@/lib/auth';
 import { loadDesignPage } from '@/lib/design-page';
 import { analyze } from '@/lib/engine/analyze';
 import type { AnalyzeRequest } from '@/lib/engine/types';
@@ -8,6 +9,7 @@ import { diffRevisions, marginDeltas, type RevisionSide } from '@/lib/revision-d
 import type { RevisionSummary } from '@/lib/revision-summary';
 import { SignoffBadge } from '@/components/designs/signoff-badge';
 import { ComparePicker } from '@/components/review/compare-picker';
+import { CompareRemarks, type CompareRemark } from '@/components/review/compare-remarks';
 import { ComparePlot, type CompareLoop } from '@/components/review/compare-plot';
 import { DiffTable } from '@/components/review/diff-table';
 import { formatDate } from '@/components/review/format';
@@ -32,7 +34,7 @@ function loopOf(label: string, input: AnalyzeRequest, summary: RevisionSummary):
 
 export default async function ComparePage({ params, searchParams }: Props) {
   const [{ id }, q] = await Promise.all([params, searchParams]);
-  const { db, design } = await loadDesignPage(id);
+  const { user, db, design } = await loadDesignPage(id);
 
   const revisions = listRevisions(db, design.id);
   if (revisions.length < 2)
@@ -65,6 +67,9 @@ export default async function ComparePage({ params, searchParams }: Props) {
   const step = side(b).input.step ?? stepOf(side(a).input);
   const stepA = stepResponseOf(labelA, side(a).input, step);
   const stepB = stepResponseOf(labelB, side(b).input, step);
+  const remarks: CompareRemark[] = [a, ...(a.number === b.number ? [] : [b])]
+    .flatMap((r) => listRemarks(db, r.id).map((m) => ({ id: m.id, number: r.number, authorName: m.authorName, body: m.body, comparedWith: m.comparedWith, at: m.createdAt.toISOString() })))
+    .sort((x, y) => x.at.localeCompare(y.at) || x.id - y.id);
   // Worst case across each revision's own operating range (corners and a fixed-seed spread).
   const rangeA = summarizeRange(side(a).input);
   const rangeB = summarizeRange(side(b).input);
@@ -119,6 +124,7 @@ export default async function ComparePage({ params, searchParams }: Props) {
       )}
 
       {stepA && stepB && <StepCompare a={stepA} b={stepB} title={describeStep(step)} />}
+      <CompareRemarks designId={design.id} a={a.number} b={b.number} remarks={remarks} canRemark={can.remark(user.role)} />
 
       <DiffTable rows={rows} labelA={labelA} labelB={labelB} />
     </div>

@@ -45,7 +45,7 @@ export default async function HandoffPage({ params, searchParams }: Props) {
   const input = revision.input;
   const result = analyze(input);
   const rows = buildPartsList(result.parts, input.compensator.type, design.designatorMap, input.compensator.amplifier);
-  const netlist = spiceNetlistFile({ designName: design.name, revision: revision.number, input });
+  const netlist = spiceNetlistFile({ designName: design.name, revision: revision.number, input, parts: result.parts });
   const state = getSignoffState(db, revision.id);
 
   return (
@@ -108,7 +108,8 @@ export default async function HandoffPage({ params, searchParams }: Props) {
           SPICE netlist
         </h2>
         <p className="mb-3 text-sm text-slate-600">
-          Averaged power stage at the operating point, the op-amp compensator and an <code>.ac</code> sweep. Runs as it is:{' '}
+          Averaged power stage at the operating point, the op-amp compensator with the parts list&apos;s standard values (what will be built; the
+          ideal values are in the comments) and an <code>.ac</code> sweep. Runs as it is:{' '}
           <code className="rounded bg-slate-100 px-1">ngspice -b file.cir</code> prints the duty, then frequency, loop gain in dB and phase.
         </p>
         <NetlistView text={netlist} />

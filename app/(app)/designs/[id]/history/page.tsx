@@ -48,8 +48,10 @@ export default async function HistoryPage({ params, searchParams }: Props) {
   const latest = revisions[revisions.length - 1];
   const selected = revisions.find((x) => String(x.number) === r) ?? latest;
   const state = states.get(selected.number) ?? 'draft';
+  const events = listSignoffEvents(db, selected.id);
+  const waitingFor = state === 'in-review' ? (events.findLast((e) => e.state === 'in-review')?.reviewerName ?? null) : null;
   const timeline: TimelineItem[] = [
-    ...listSignoffEvents(db, selected.id).map((e) => ({
+    ...events.map((e) => ({
       kind: 'event' as const,
       id: e.id,
       at: e.createdAt.toISOString(),
@@ -58,7 +60,13 @@ export default async function HistoryPage({ params, searchParams }: Props) {
       reviewerName: e.state === 'in-review' ? e.reviewerName : null,
       text: e.message,
     })),
-    ...listRemarks(db, selected.id).map((m) => ({ kind: 'remark' as const, id: m.id, at: m.createdAt.toISOString(), who: m.authorName, text: m.body })),
+    ...listRemarks(db, selected.id).map((m) => ({
+      kind: 'remark' as const,
+      id: m.id,
+      at: m.createdAt.toISOString(),
+      who: m.authorName,
+      text: m.comparedWith ? `(on Compare with r${m.comparedWith}) ${m.body}` : m.body,
+    })),
   ].sort((x, y) => x.at.localeCompare(y.at));
 
   // Who may do what is the sign-off policy's answer (lib/signoff-policy.ts); the routes ask it again.
@@ -85,6 +93,7 @@ export default async function HistoryPage({ params, searchParams }: Props) {
         timeline={timeline}
         reviewers={reviewers}
         may={{ submit: submit.ok, decide: decide.ok, remark: can.remark(user.role) }}
+        waitingFor={waitingFor}
         compareWith={selected.baseNumber ?? (selected.number > 1 ? selected.number - 1 : null)}
         decideBlockedReason={decideBlockedReason}
       />

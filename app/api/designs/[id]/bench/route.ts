@@ -1,11 +1,11 @@
 import { NextResponse } from 'next/server';
 import { getDb } from '@/db/client';
-import { createBenchData, listBenchData } from '@/db/queries';
+import { createBenchData, getLatestRevision, getRevision, listBenchData } from '@/db/queries';
 import { can } from '@/lib/auth';
-import { HttpError, withUser } from '@/lib/api';
+import { HttpError, parseId, withUser } from '@/lib/api';
 import { benchUploadedBody } from '@/lib/handoff/bench-responses';
 import { BENCH_MAX_BYTES, BenchParseError, parseBenchData, type FrequencyUnit } from '@/lib/handoff/bench-parse';
-import { requireDesign } from '@/lib/design-access';
+import { requireActiveDesign, requireDesign } from '@/lib/design-access';
 
 type P = { id: string };
 
@@ -13,9 +13,12 @@ type P = { id: string };
 const MULTIPART_SLACK = 64 * 1024;
 const UNITS: FrequencyUnit[] = ['Hz', 'kHz', 'MHz'];
 
-export const GET = withUser<P>(async (_req, { user, params }) => {
+/** Bench data of the design, newest first; ?revision=N: that revision's (and any design-wide data). */
+export const GET = withUser<P>(async (req, { user, params }) => {
   const design = requireDesign(user, params.id);
-  return NextResponse.json({ benchData: listBenchData(getDb(), user.teamId, design.id) });
+  const rev = new URL(req.url).searchParams.get('revision');
+  const revisionNumber = rev === null ? undefined : parseId(rev, 'revision');
+  return NextResponse.json({ benchData: listBenchData(getDb(), user.teamId, design.id, { revisionNumber }) });
 });
 
 const tooLarge = () => new HttpError(413, `Bench data files are at most ${BENCH_MAX_BYTES / 1024 / 1024} MB`, [{ path: 'file', message: 'the file is too large' }]);
@@ -44,6 +47,8 @@ async function readCapped(req: Request, limit: number): Promise<Uint8Array> {
 interface Upload {
   bytes: Uint8Array;
   name: string;
+  /** The revision measured; the latest when not given. */
+  revision?: string;
   frequencyUnit?: FrequencyUnit;
   phaseShifted: boolean;
 }
@@ -75,17 +80,28 @@ async function readUpload(req: Request): Promise<Upload> {
   if (unit && !UNITS.includes(unit as FrequencyUnit))
     throw new HttpError(400, 'Unknown frequency unit', [{ path: 'frequencyUnit', message: 'frequencyUnit must be Hz, kHz or MHz' }]);
   const name = (fields('name') || fileName || `Bench data ${new Date().toISOString().slice(0, 16).replace('T', ' ')}`).trim().slice(0, 120);
-  return { bytes, name, frequencyUnit: (unit as FrequencyUnit) || undefined, phaseShifted: ['1', 'true', 'on'].includes(fields('phaseShifted') ?? '') };
+  return { bytes, name, revision: fields('revision') || undefined, frequencyUnit: (unit as FrequencyUnit) || undefined, phaseShifted: ['1', 'true', 'on'].includes(fields('phaseShifted') ?? '') };
 }
 
 /**
- * Upload bench data (designer, admin). A file that cannot be read answers 422 naming the line
- * and the problem, 413 when too large; nothing is stored then.
+ * Upload bench data (designer, admin) for one revision (field or query `revision`, default the
+ * latest): the board measured was built from that revision. A file that cannot be read answers
+ * 422 naming the line and the problem, 413 when too large; nothing is stored then.
  */
 export const POST = withUser<P>(
   async (req, { user, params }) => {
-    const design = requireDesign(user, params.id);
+    const design = requireActiveDesign(user, params.id);
     const upload = await readUpload(req);
+    const db = getDb();
+    let revision;
+    if (upload.revision !== undefined) {
+      const n = Number(upload.revision);
+      revision = Number.isInteger(n) && n > 0 ? getRevision(db, design.id, n) : undefined;
+      if (!revision) throw new HttpError(422, `There is no revision r${upload.revision} to attach the bench data to`, [{ path: 'revision', message: 'name a saved revision of this design' }]);
+    } else {
+      revision = getLatestRevision(db, design.id);
+      if (!revision) throw new HttpError(422, 'Save a revision first: bench data is compared with the model of the revision measured', [{ path: 'revision', message: 'the design has no revision yet' }]);
+    }
     let parsed;
     try {
       parsed = parseBenchData(upload.bytes, { frequencyUnit: upload.frequencyUnit });
@@ -94,15 +110,16 @@ export const POST = withUser<P>(
       const issue = { path: err.line === null ? 'file' : `line ${err.line}`, message: err.problem };
       throw new HttpError(err.tooLarge ? 413 : 422, `The bench data was not stored: ${err.message}`, [issue], { line: err.line });
     }
-    const id = createBenchData(getDb(), {
+    const id = createBenchData(db, {
       teamId: user.teamId,
       designId: design.id,
+      revisionId: revision.id,
       name: upload.name,
       points: parsed.points,
       phaseShifted: upload.phaseShifted,
       uploadedBy: user.id,
     });
-    return NextResponse.json(benchUploadedBody(id, upload.name, upload.phaseShifted, parsed), { status: 201 });
+    return NextResponse.json({ ...benchUploadedBody(id, upload.name, upload.phaseShifted, parsed), revision: revision.number }, { status: 201 });
   },
   { body: 'upload', maxBytes: BENCH_MAX_BYTES + MULTIPART_SLACK, allow: can.editDesigns, action: 'upload bench data' },
 );

@@ -4,7 +4,7 @@ import { createRevision, listRevisions } from '@/db/queries';
 import { analyze } from '@/lib/engine/analyze';
 import { can } from '@/lib/auth';
 import { HttpError, parseJson, withUser } from '@/lib/api';
-import { requireDesign } from '@/lib/design-access';
+import { requireActiveDesign, requireDesign } from '@/lib/design-access';
 import { savedRevisionBody, summarizeAnalysis } from '@/lib/revision-summary';
 import { revisionCreateSchema } from '@/lib/validation/revision';
 
@@ -18,7 +18,7 @@ export const GET = withUser<P>(async (_req, { user, params }) => {
 /** Save a new immutable revision; the server re-runs the analysis it stores. */
 export const POST = withUser<P>(
   async (req, { user, params }) => {
-    const design = requireDesign(user, params.id);
+    const design = requireActiveDesign(user, params.id);
     const body = await parseJson(req, revisionCreateSchema);
     const input = body.input;
     if (input.converter.topology !== design.topology)

@@ -1,9 +1,10 @@
 import { getDb } from '@/db/client';
-import { getSignoffState, listSignoffEvents } from '@/db/queries';
+import { getBenchData, getSignoffState, listBenchData, listRemarks, listSignoffEvents } from '@/db/queries';
 import { HttpError, withUser } from '@/lib/api';
 import { analyze } from '@/lib/engine/analyze';
 import { buildExport } from '@/lib/handoff/exports';
 import { contentDisposition, EXPORT_FORMATS, type ExportFormat } from '@/lib/handoff/files';
+import { benchForReport } from '@/lib/handoff/report-bench';
 import { requireRevision } from '@/lib/revision-access';
 
 type P = { id: string; number: string };
@@ -23,7 +24,22 @@ export const GET = withUser<P>(async (req, { user, params }) => {
   const input = revision.input;
   const events = listSignoffEvents(db, revision.id);
   const last = events.at(-1);
+  // The report also carries the review and the bench: the trail, the remarks, and up to six
+  // bench data sets of this revision, each against this revision's model.
+  const review =
+    format === 'report'
+      ? {
+          trail: events.map((e) => ({ state: e.state, actorName: e.actorName, reviewerName: e.reviewerName, message: e.message, at: e.createdAt })),
+          remarks: listRemarks(db, revision.id).map((m) => ({ authorName: m.authorName, body: m.body, at: m.createdAt, comparedWith: m.comparedWith })),
+          bench: listBenchData(db, user.teamId, design.id, { revisionNumber: revision.number })
+            .slice(0, 6)
+            .map((b) => getBenchData(db, user.teamId, design.id, b.id))
+            .filter((b) => b !== undefined)
+            .map((b) => benchForReport(input, b)),
+        }
+      : {};
   const file = buildExport(format, {
+    ...review,
     design,
     revision: { ...revision, input },
     signoff: { state: getSignoffState(db, revision.id), at: last?.createdAt ?? null, by: last?.actorName ?? null },

@@ -1,8 +1,9 @@
 import { NextResponse } from 'next/server';
 import { getDb } from '@/db/client';
-import { addRemark, listRemarks } from '@/db/queries';
+import { addRemark, getRevision, getUserById, listRemarks, remarkRecipients } from '@/db/queries';
 import { can } from '@/lib/auth';
-import { parseJson, withUser } from '@/lib/api';
+import { HttpError, parseJson, withUser } from '@/lib/api';
+import { notifyRemark } from '@/lib/notify';
 import { requireRevision } from '@/lib/revision-access';
 import { remarkSchema } from '@/lib/validation/signoff';
 
@@ -13,13 +14,35 @@ export const GET = withUser<P>(async (_req, { user, params }) => {
   return NextResponse.json({ remarks: listRemarks(getDb(), ref.revisionId) });
 });
 
-/** Attach a remark to a revision (designers, reviewers and admins; viewers only read). */
+/**
+ * Attach a remark to a revision (designers, reviewers and admins; viewers only read), with
+ * `comparedWith` when written on Compare. The revision's author and its reviewer get a mail
+ * (not the writer).
+ */
 export const POST = withUser<P>(
   async (req, { user, params }) => {
-    const { ref } = requireRevision(user, params);
+    const { design, ref } = requireRevision(user, params);
     const body = await parseJson(req, remarkSchema);
-    const row = addRemark(getDb(), { ...ref, authorId: user.id, body: body.body });
-    return NextResponse.json({ ...row, authorName: user.name }, { status: 201 });
+    const db = getDb();
+    if (body.comparedWith !== undefined && !getRevision(db, design.id, body.comparedWith))
+      throw new HttpError(422, `There is no r${body.comparedWith} to compare with`, [{ path: 'comparedWith', message: `no revision r${body.comparedWith} in this design` }]);
+    const row = addRemark(db, { ...ref, authorId: user.id, body: body.body, comparedWith: body.comparedWith ?? null });
+    const results = await Promise.all(
+      remarkRecipients(db, ref.revisionId, user.id)
+        .map((id) => getUserById(db, id))
+        .filter((u) => u !== undefined)
+        .map((u) =>
+          notifyRemark({
+            to: { email: u.email, name: u.name },
+            by: user.name,
+            teamId: user.teamId,
+            revision: { designId: design.id, designName: design.name, number: ref.number },
+            comparedWith: row.comparedWith,
+            body: body.body,
+          }),
+        ),
+    );
+    return NextResponse.json({ ...row, authorName: user.name, mailed: results.filter((r) => r.sent).length }, { status: 201 });
   },
   { allow: can.remark, action: 'write remarks' },
 );
