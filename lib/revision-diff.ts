@@ -3,6 +3,7 @@
  * operating-point figures, side by side, each row marked when it differs.
  * Pure data; Compare formats it.
  */
+import { compensatorLabel, inputApplies, inputLabel, PART_ORDER, PARTS, readInput, STAGE_INPUTS, type PartKey } from '@/lib/catalog';
 import type { AnalyzeRequest } from '@/lib/engine/types';
 import type { RevisionSummary } from './revision-summary';
 
@@ -29,40 +30,35 @@ export interface RevisionSide {
 
 type Spec = Omit<DiffRow, 'a' | 'b' | 'changed'> & { get: (s: RevisionSide) => number | string | null | undefined };
 
-const PARTS = ['r1', 'r2', 'r3', 'c1', 'c2', 'c3'] as const;
-const partUnit = (p: string) => (p.startsWith('r') ? 'Ω' : 'F');
-const partLabel = (p: string) => p.toUpperCase();
+const COMP_PARTS = PART_ORDER.filter((p): p is Exclude<PartKey, 'rb'> => p !== 'rb');
 
 const SPECS: Spec[] = [
   { group: 'Power stage', key: 'topology', label: 'Topology', kind: 'text', get: (s) => s.input.converter.topology },
-  { group: 'Power stage', key: 'vin', label: 'Input voltage Vin', kind: 'si', unit: 'V', get: (s) => s.input.converter.vin },
-  { group: 'Power stage', key: 'vout', label: 'Output voltage Vout', kind: 'si', unit: 'V', get: (s) => s.input.converter.vout },
-  { group: 'Power stage', key: 'iout', label: 'Load current Iout', kind: 'si', unit: 'A', get: (s) => s.input.converter.iout },
-  { group: 'Power stage', key: 'fsw', label: 'Switching frequency fsw', kind: 'si', unit: 'Hz', get: (s) => s.input.converter.fsw },
-  { group: 'Power stage', key: 'l', label: 'Inductor L', kind: 'si', unit: 'H', get: (s) => s.input.converter.l },
-  { group: 'Power stage', key: 'rl', label: 'Inductor DCR', kind: 'si', unit: 'Ω', get: (s) => s.input.converter.rl },
-  { group: 'Power stage', key: 'c', label: 'Output capacitor C', kind: 'si', unit: 'F', get: (s) => s.input.converter.c },
-  { group: 'Power stage', key: 'rc', label: 'Capacitor ESR', kind: 'si', unit: 'Ω', get: (s) => s.input.converter.rc },
-  { group: 'Power stage', key: 'vd', label: 'Diode drop Vd', kind: 'si', unit: 'V', get: (s) => s.input.converter.vd },
-  { group: 'Modulator and feedback', key: 'vramp', label: 'PWM ramp Vramp', kind: 'si', unit: 'V', get: (s) => s.input.modulator.vramp },
-  { group: 'Modulator and feedback', key: 'vref', label: 'Reference Vref', kind: 'si', unit: 'V', get: (s) => s.input.feedback.vref },
-  { group: 'Compensator', key: 'type', label: 'Type', kind: 'text', get: (s) => typeLabel(s.input.compensator.type) },
-  ...PARTS.map<Spec>((p) => ({
+  ...STAGE_INPUTS.map<Spec>((spec) => ({
+    group: spec.group,
+    key: spec.field,
+    label: inputLabel(spec),
+    kind: 'si',
+    unit: spec.unit,
+    get: (s) => (inputApplies(spec, s.input) ? readInput(s.input, spec) : null),
+  })),
+  { group: 'Compensator', key: 'type', label: 'Type', kind: 'text', get: (s) => compensatorLabel(s.input.compensator.type) },
+  ...COMP_PARTS.map<Spec>((p) => ({
     group: 'Compensator',
     key: `comp.${p}`,
-    label: `${partLabel(p)} as entered`,
+    label: `${PARTS[p].name} as entered`,
     kind: 'si',
-    unit: partUnit(p),
+    unit: PARTS[p].unit,
     get: (s) => s.input.compensator[p],
   })),
   { group: 'Parts', key: 'resistorSeries', label: 'Resistor series', kind: 'text', get: (s) => s.summary.parts?.resistorSeries },
   { group: 'Parts', key: 'capacitorSeries', label: 'Capacitor series', kind: 'text', get: (s) => s.summary.parts?.capacitorSeries },
-  ...[...PARTS, 'rb' as const].map<Spec>((p) => ({
+  ...PART_ORDER.map<Spec>((p) => ({
     group: 'Parts',
     key: `part.${p}`,
-    label: p === 'rb' ? 'Rb (divider, to ground)' : `${partLabel(p)} standard value`,
+    label: p === 'rb' ? `${PARTS.rb.name} (divider, to ground)` : `${PARTS[p].name} standard value`,
     kind: 'si',
-    unit: partUnit(p),
+    unit: PARTS[p].unit,
     get: (s) => s.summary.parts?.snapped?.[p],
   })),
   { group: 'Margins', key: 'fc', label: 'Crossover fc', kind: 'si', unit: 'Hz', get: (s) => s.summary.margins?.crossoverHz },
@@ -79,8 +75,6 @@ const SPECS: Spec[] = [
   { group: 'Checks', key: 'checks', label: 'Checks (risk / caution / note)', kind: 'text', get: (s) => checkCounts(s.summary) },
 ];
 
-const TYPE_LABELS: Record<string, string> = { type1: 'Type I', type2: 'Type II', type3: 'Type III' };
-const typeLabel = (t: string) => TYPE_LABELS[t] ?? t;
 
 function checkCounts(s: RevisionSummary) {
   const list = s.checks ?? [];

@@ -1,18 +1,14 @@
 'use client';
 
+import { compensatorTitle } from '@/lib/catalog/compensators';
 import { useState } from 'react';
-import type { CompensatorShape, CompensatorType } from '@/lib/engine/types';
+import { COMPENSATOR_TYPES, type CompensatorShape, type CompensatorType } from '@/lib/engine/types';
 import { formatSi } from '@/lib/units/si';
 import type { HandleMove } from './handle-overlay';
 import { moveFrequency, setGainAt, type HandleSpec } from './handles';
 import { parseSiField, toSiText } from './si-schema';
 import { ValueCell } from './value-cell';
 
-const TYPE_NAMES: Record<CompensatorType, string> = {
-  type1: 'Type I (integrator)',
-  type2: 'Type II (one zero, one pole)',
-  type3: 'Type III (two zeros, two poles)',
-};
 
 const GLYPH: Record<HandleSpec['kind'], string> = { zero: '○', pole: '✕', gain: '◆' };
 
@@ -66,11 +62,14 @@ export function CompensatorTable({ shape, handles, readOnly, onShape, onStep, on
           value={shape.type}
           disabled={readOnly}
           data-testid="compensator-type"
-          onChange={(e) => setTypeError(onTypeChange(e.target.value as CompensatorType))}
+          onChange={(e) => {
+            const type = COMPENSATOR_TYPES.find((t) => t === e.target.value);
+            if (type) setTypeError(onTypeChange(type));
+          }}
         >
-          {(Object.keys(TYPE_NAMES) as CompensatorType[]).map((t) => (
+          {COMPENSATOR_TYPES.map((t) => (
             <option key={t} value={t}>
-              {TYPE_NAMES[t]}
+              {compensatorTitle(t)}
             </option>
           ))}
         </select>

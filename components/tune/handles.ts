@@ -14,6 +14,7 @@
  * poles and zeros fix every time constant, and the remaining freedom, the impedance
  * level (R × k, C ÷ k), is set by the locked part.
  */
+import { COMPENSATORS, presentLandmarks } from '@/lib/catalog/compensators';
 import { compensatorTransfer, partsFromShape, shapeFromParts } from '@/lib/engine/compensator';
 import { transferEvaluator } from '@/lib/engine/sweep';
 import { formatSi } from '@/lib/units/si';
@@ -34,11 +35,13 @@ export interface HandleSpec {
   gainDb?: number | null;
 }
 
+/** What sets each zero and pole of this shape, from the compensator registry. */
 function poleZeroParts(shape: CompensatorShape): { zeros: string[]; poles: string[] } {
-  if (shape.type === 'type1') return { zeros: [], poles: [] };
-  if (shape.type === 'type2') return { zeros: ['R2·C1'], poles: ['C2'] };
-  const poles = shape.polesHz.length > 1 ? ['C2', 'R3·C3'] : ['R3·C3'];
-  return { zeros: ['R2·C1', '(R1+R3)·C3'], poles };
+  const entry = COMPENSATORS[shape.type];
+  return {
+    zeros: presentLandmarks(entry.zeros, shape.zerosHz.length).map((l) => l.formula),
+    poles: presentLandmarks(entry.poles, shape.polesHz.length).map((l) => l.formula),
+  };
 }
 
 /**
@@ -83,7 +86,7 @@ export function handlesOf(shape: CompensatorShape, anchorHz: number | null): Han
     })),
   ];
   const hz = gainHandleHz(shape, anchorHz);
-  out.push({ id: 'gain', kind: 'gain', hz, label: `Gain at ${formatSi(hz, 'Hz')}`, parts: 'the integrator, R1·(C1+C2)', gainDb: compensatorGainDbAt(shape, hz) });
+  out.push({ id: 'gain', kind: 'gain', hz, label: `Gain at ${formatSi(hz, 'Hz')}`, parts: `the integrator, ${COMPENSATORS[shape.type].gain.formula}`, gainDb: compensatorGainDbAt(shape, hz) });
   return out;
 }
 

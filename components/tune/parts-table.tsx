@@ -2,20 +2,13 @@
 
 import { memo } from 'react';
 import { E_SERIES_NAMES, type ESeriesName, type PartsOptions, type PartsResult, type Topology } from '@/lib/engine/types';
+import { PART_ORDER, PARTS } from '@/lib/catalog/compensators';
 import { formatSi } from '@/lib/units/si';
 import type { PartKey } from './handles';
 import { parseSiField, toSiText } from './si-schema';
 import { ValueCell } from './value-cell';
 
-const ROWS: { key: keyof PartsResult['ideal']; name: string; unit: 'Ω' | 'F'; role: string }[] = [
-  { key: 'r1', name: 'R1', unit: 'Ω', role: 'output to inverting input' },
-  { key: 'r2', name: 'R2', unit: 'Ω', role: 'feedback, in series with C1' },
-  { key: 'c1', name: 'C1', unit: 'F', role: 'feedback, in series with R2' },
-  { key: 'c2', name: 'C2', unit: 'F', role: 'across the feedback path' },
-  { key: 'r3', name: 'R3', unit: 'Ω', role: 'in series with C3, across R1' },
-  { key: 'c3', name: 'C3', unit: 'F', role: 'in series with R3, across R1' },
-  { key: 'rb', name: 'Rb', unit: 'Ω', role: 'lower divider resistor (sets Vout)' },
-];
+const ROWS = PART_ORDER.map((key) => ({ key, ...PARTS[key] }));
 
 function SeriesSelect({ id, label, value, disabled, onChange }: { id: string; label: string; value: ESeriesName; disabled: boolean; onChange: (s: ESeriesName) => void }) {
   return (

@@ -1,80 +1,39 @@
 'use client';
 
 import { zodResolver } from '@hookform/resolvers/zod';
-import { memo, useEffect, useRef } from 'react';
+import { memo, useEffect, useMemo, useRef } from 'react';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
-import type { AnalyzeRequest, FieldIssue } from '@/lib/engine/types';
+import { inputApplies, inputLabel, inputPath, readInput, STAGE_INPUTS, writeInput, type InputSpec, type Stage } from '@/lib/catalog/stage-inputs';
+import type { FieldIssue } from '@/lib/engine/types';
 import { siText, toSiText } from './si-schema';
 import { TextField } from './text-field';
 
-type Stage = Pick<AnalyzeRequest, 'converter' | 'modulator' | 'feedback'>;
+type StageField = string;
 
-interface FieldSpec {
-  name: StageField;
-  label: string;
-  unit: string;
-  path: string;
-  hint?: string;
-  bound?: 'positive' | 'nonNegative';
-  /** Shown without a prefix (0.8 rather than 800m). */
-  plain?: boolean;
-}
+/** The inputs this stage's modes use, from the catalogue. */
+const fieldsFor = (stage: Stage): InputSpec[] => STAGE_INPUTS.filter((spec) => inputApplies(spec, stage));
 
-type StageField = 'vin' | 'vout' | 'iout' | 'fsw' | 'l' | 'rl' | 'c' | 'rc' | 'vd' | 'vramp' | 'vref';
+const schemaFor = (fields: readonly InputSpec[]) =>
+  z.object(Object.fromEntries(fields.map((f) => [f.field, siText(inputLabel(f), f.unit, f.bound)])));
 
-const FIELDS: readonly FieldSpec[] = [
-  { name: 'vin', plain: true, label: 'Input voltage Vin', unit: 'V', path: 'converter.vin' },
-  { name: 'vout', plain: true, label: 'Output voltage Vout', unit: 'V', path: 'converter.vout', hint: 'magnitude' },
-  { name: 'iout', plain: true, label: 'Load current Iout', unit: 'A', path: 'converter.iout' },
-  { name: 'fsw', label: 'Switching frequency fsw', unit: 'Hz', path: 'converter.fsw' },
-  { name: 'l', label: 'Inductance L', unit: 'H', path: 'converter.l' },
-  { name: 'rl', label: 'Inductor DCR', unit: 'Ω', path: 'converter.rl', bound: 'nonNegative' },
-  { name: 'c', label: 'Output capacitance C', unit: 'F', path: 'converter.c' },
-  { name: 'rc', label: 'Capacitor ESR', unit: 'Ω', path: 'converter.rc', bound: 'nonNegative' },
-  { name: 'vd', plain: true, label: 'Diode drop Vd', unit: 'V', path: 'converter.vd', hint: '0 = synchronous', bound: 'nonNegative' },
-  { name: 'vramp', plain: true, label: 'PWM ramp Vramp', unit: 'V', path: 'modulator.vramp' },
-  { name: 'vref', plain: true, label: 'Reference Vref', unit: 'V', path: 'feedback.vref' },
-];
+type StageText = Record<StageField, string>;
+type StageValues = Record<StageField, number>;
 
-const stageFormSchema = z.object(
-  Object.fromEntries(FIELDS.map((f) => [f.name, siText(f.label, f.unit, f.bound)])) as Record<
-    StageField,
-    ReturnType<typeof siText>
-  >,
-);
+const numbersOf = (s: Stage, fields: readonly InputSpec[]): StageValues =>
+  Object.fromEntries(fields.map((f) => [f.field, readInput(s, f) ?? 0]));
 
-type StageText = z.input<typeof stageFormSchema>;
-type StageValues = z.output<typeof stageFormSchema>;
-
-const numbersOf = (s: Stage): Record<StageField, number> => ({
-  vin: s.converter.vin,
-  vout: s.converter.vout,
-  iout: s.converter.iout,
-  fsw: s.converter.fsw,
-  l: s.converter.l,
-  rl: s.converter.rl ?? 0,
-  c: s.converter.c,
-  rc: s.converter.rc ?? 0,
-  vd: s.converter.vd ?? 0,
-  vramp: s.modulator.vramp,
-  vref: s.feedback.vref,
-});
-
-const toText = (s: Stage): StageText => {
-  const n = numbersOf(s);
-  return Object.fromEntries(FIELDS.map((f) => [f.name, f.plain ? String(Number(n[f.name].toPrecision(6))) : toSiText(n[f.name], 6)])) as StageText;
+const toText = (s: Stage, fields: readonly InputSpec[]): StageText => {
+  const n = numbersOf(s, fields);
+  return Object.fromEntries(fields.map((f) => [f.field, f.plain ? String(Number(n[f.field].toPrecision(6))) : toSiText(n[f.field], 6)]));
 };
 
-const fromValues = (v: StageValues, topology: AnalyzeRequest['converter']['topology']): Stage => ({
-  converter: { topology, vin: v.vin, vout: v.vout, iout: v.iout, fsw: v.fsw, l: v.l, rl: v.rl, c: v.c, rc: v.rc, vd: v.vd },
-  modulator: { vramp: v.vramp },
-  feedback: { vref: v.vref },
-});
+const fromValues = (v: StageValues, base: Stage, fields: readonly InputSpec[]): Stage =>
+  fields.reduce((stage, f) => writeInput(stage, f, v[f.field]), base);
 
 /** Fields whose text was not touched keep their exact starting value (the text may round it). */
-const keepUntouched = (parsed: StageValues, text: Partial<StageText>, start: StageText, startValues: Record<StageField, number>): StageValues =>
-  Object.fromEntries(FIELDS.map((f) => [f.name, text[f.name] === start[f.name] ? startValues[f.name] : parsed[f.name]])) as StageValues;
+const keepUntouched = (parsed: StageValues, text: Partial<StageText>, start: StageText, startValues: StageValues, fields: readonly InputSpec[]): StageValues =>
+  Object.fromEntries(fields.map((f) => [f.field, text[f.field] === start[f.field] ? startValues[f.field] : parsed[f.field]]));
 
 export interface StageFormProps {
   value: Stage;
@@ -88,42 +47,45 @@ export interface StageFormProps {
 
 /** Power stage, modulator and reference inputs; SI-prefix text, checked as typed. */
 export const StageForm = memo(function StageForm({ value, readOnly, issues, onChange, onValidityChange }: StageFormProps) {
-  const topology = value.converter.topology;
-  const start = useRef({ text: toText(value), values: numbersOf(value) });
+  const fields = useMemo(() => fieldsFor(value), [value]);
+  const schema = useMemo(() => schemaFor(fields), [fields]);
+  const start = useRef({ text: toText(value, fields), values: numbersOf(value, fields) });
   const {
     register,
     watch,
     formState: { errors },
   } = useForm<StageText, unknown, StageValues>({
-    resolver: zodResolver(stageFormSchema),
+    resolver: zodResolver(schema),
     mode: 'onChange',
     defaultValues: start.current.text,
   });
-  const callbacks = useRef({ onChange, onValidityChange });
-  callbacks.current = { onChange, onValidityChange };
+  const latest = useRef({ onChange, onValidityChange, value, fields, schema });
+  latest.current = { onChange, onValidityChange, value, fields, schema };
 
   useEffect(() => {
     const sub = watch((text) => {
-      const r = stageFormSchema.safeParse(text);
-      callbacks.current.onValidityChange(r.success);
-      if (r.success) callbacks.current.onChange(fromValues(keepUntouched(r.data, text, start.current.text, start.current.values), topology));
+      const { fields, schema, value } = latest.current;
+      const r = schema.safeParse(text);
+      latest.current.onValidityChange(r.success);
+      if (r.success) latest.current.onChange(fromValues(keepUntouched(r.data, text, start.current.text, start.current.values, fields), value, fields));
     });
     return () => sub.unsubscribe();
-  }, [watch, topology]);
+  }, [watch]);
 
   return (
     <fieldset className="grid grid-cols-2 gap-x-3 gap-y-2" disabled={readOnly} aria-label="Power stage">
-      {FIELDS.map((f) => {
-        const engineError = issues.find((i) => i.path === f.path)?.message;
+      {fields.map((f) => {
+        const engineError = issues.find((i) => i.path === inputPath(f))?.message;
         return (
           <TextField
-            key={f.name}
-            id={`stage-${f.name}`}
-            label={f.label}
+            key={f.field}
+            id={`stage-${f.field}`}
+            label={inputLabel(f)}
             unit={f.unit}
-            error={errors[f.name]?.message ?? engineError}
-            placeholder={f.hint}
-            {...register(f.name)}
+            error={errors[f.field]?.message ?? engineError}
+            placeholder={f.zeroMeans ? `0 = ${f.zeroMeans}` : undefined}
+            title={f.help}
+            {...register(f.field)}
           />
         );
       })}

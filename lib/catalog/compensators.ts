@@ -22,7 +22,7 @@ export interface PartSpec {
 
 /** Every part a compensator or its divider may have; the engine's PartValues keys. */
 export const PARTS = {
-  r1: { name: 'R1', kind: 'resistor', unit: 'Ω', role: 'output to inverting input (held fixed)' },
+  r1: { name: 'R1', kind: 'resistor', unit: 'Ω', role: 'output to inverting input' },
   r2: { name: 'R2', kind: 'resistor', unit: 'Ω', role: 'feedback, in series with C1' },
   c1: { name: 'C1', kind: 'capacitor', unit: 'F', role: 'feedback, in series with R2' },
   c2: { name: 'C2', kind: 'capacitor', unit: 'F', role: 'across the feedback path' },
