@@ -25,12 +25,14 @@ export async function notifyReviewRequested(m: {
   teamId: number;
   revision: RevisionMailRef;
   message: string;
+  /** The worst case across the operating range, one sentence. */
+  worstCase?: string;
 }) {
   return sendMail({
     to: m.to.email,
     teamId: m.teamId,
     subject: `Review requested: ${label(m.revision)}`,
-    paragraphs: [`Hello ${m.to.name},`, `${m.by} asks you to review ${label(m.revision)} and sign it off.`],
+    paragraphs: [`Hello ${m.to.name},`, `${m.by} asks you to review ${label(m.revision)} and sign it off.`, ...(m.worstCase ? [m.worstCase] : [])],
     quote: m.message || undefined,
     link: { label: `Open r${m.revision.number}`, url: await revisionUrl(m.revision) },
   });

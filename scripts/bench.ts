@@ -10,6 +10,9 @@ import { simulateStepResponse } from '@/lib/engine/step-response';
 import { simulatorFor } from '@/lib/engine/switching-check';
 import type { CompensatorShape } from '@/lib/engine/types';
 import { tuneDragCase } from '@/components/tune/drag-bench';
+import { defaultRange } from '@/lib/engine/range';
+import { runSpread } from '@/lib/engine/spread';
+import { analyzeCorners } from '@/lib/engine/corners';
 
 export interface BenchCase {
   name: string;
@@ -129,13 +132,30 @@ export const BENCH_CASES: BenchCase[] = [
   tuneDragCase(),
   stepCase,
   switchingCase(),
+  {
+    name: 'corners: 32 corners of a sample design, each a full analyze()',
+    batch: 1,
+    batches: 30,
+    warmup: 6,
+    run: (i) => analyzeCorners(requests[i % requests.length], defaultRange(requests[i % requests.length].converter)),
+  },
+  {
+    name: 'spread: 10,000 samples of a sample design (margins only, one core)',
+    targetUs: 1_000_000,
+    batch: 1,
+    batches: 9,
+    warmup: 2,
+    run: (i) => runSpread(requests[i % requests.length], defaultRange(requests[i % requests.length].converter), { samples: 10_000, seed: i }),
+  },
 ];
 
 const main = () => {
   const load = os.loadavg()[0];
   console.log(`Phasewright engine benchmark — node ${process.version}, ${os.cpus().length} cores, load average ${load.toFixed(1)}`);
   if (load > os.cpus().length) console.log('  (the machine is busy: medians include other processes; "best" is closer to the engine alone)');
-  for (const c of BENCH_CASES) {
+  // `npm run bench -- spread` runs only the cases whose name contains "spread".
+  const only = process.argv[2];
+  for (const c of BENCH_CASES.filter((b) => !only || b.name.includes(only))) {
     const { medianUs, p90Us, bestUs } = measure(c, c.batches, c.warmup);
     const verdict =
       c.targetUs === undefined ? 'reference' : `target ${c.targetUs} µs: ${medianUs <= c.targetUs ? 'within target' : 'ABOVE target'}`;

@@ -31,11 +31,14 @@ export function MarginsReadout({
   phaseAtHalfFswDeg,
   fsw,
   snapped,
+  crossoverAboveHz = null,
 }: {
   margins: Margins;
   phaseAtHalfFswDeg: number | null;
   fsw: number;
   snapped: Margins | null;
+  /** The sweep's end when the loop is still above 0 dB there: the crossover lies above it. */
+  crossoverAboveHz?: number | null;
 }) {
   const { crossoverHz: fc, phaseMarginDeg: pm, gainMarginDb: gm } = margins;
   // A true minus sign: a hyphen before a margin is easy to miss.
@@ -45,7 +48,13 @@ export function MarginsReadout({
   return (
     <section aria-label="Margins" className="space-y-2">
       <dl className="grid grid-cols-2 gap-x-4 gap-y-3">
-        <Item label="Crossover fc" value={fc === null ? 'none' : formatSi(fc, 'Hz')} hint={fc === null ? undefined : `fsw/${(fsw / fc).toFixed(1)}`} testId="readout-fc" />
+        <Item
+          label="Crossover fc"
+          value={fc === null ? (crossoverAboveHz !== null ? `> ${formatSi(crossoverAboveHz, 'Hz')}` : 'none') : formatSi(fc, 'Hz')}
+          tone={fc === null && crossoverAboveHz !== null ? 'risk' : 'none'}
+          hint={fc === null ? (crossoverAboveHz !== null ? `above the sweep${crossoverAboveHz >= fsw / 2 * (1 - 1e-9) ? ' and fsw/2' : ''}` : undefined) : `fsw/${(fsw / fc).toFixed(1)}`}
+          testId="readout-fc"
+        />
         <Item label="Phase margin" value={deg(pm)} tone={pmTone(pm)} testId="readout-pm" />
         <Item label="Gain margin" value={gm === null ? 'none' : db(gm)} tone={gmTone(gm)} hint={margins.phaseCrossoverHz ? `at ${formatSi(margins.phaseCrossoverHz, 'Hz')}` : 'no −180° crossing above fc'} testId="readout-gm" />
         <Item label="Phase at fsw/2" value={deg(phaseAtHalfFswDeg)} hint={formatSi(fsw / 2, 'Hz')} testId="readout-phase-half-fsw" />

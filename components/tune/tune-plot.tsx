@@ -1,6 +1,7 @@
 'use client';
 
-import { useCallback, useMemo, useState } from 'react';
+import { useCallback, useMemo, useState, type ReactNode } from 'react';
+import type { Data } from 'plotly.js-dist-min';
 import { BodePlot, type BenchOverlay, type BodeSeries, type PlotGeometry, type PlotMarker } from '@/components/plot/bode-plot';
 import { around } from '@/components/plot/label-placement';
 import { interpolateLogF } from '@/lib/engine/margins';
@@ -39,6 +40,9 @@ interface Props {
   onStep: (id: string, move: HandleMove) => void;
   /** Bench data: the newest measured loop, drawn as grey dots. */
   bench?: BenchOverlay | null;
+  /** Corners of the operating range (components/range), drawn under the handles, and their toggle. */
+  rangeTraces?: Data[];
+  rangeToggle?: ReactNode;
 }
 
 const NO_TRACE = { magDb: [], phaseDeg: [] };
@@ -53,7 +57,7 @@ const toSeries = (t: (typeof TRACES)[number], trace: { magDb: number[]; phaseDeg
 });
 
 /** The Tune Bode plot: trace toggles, power-stage features marked, compensator handles on top. */
-export function TunePlot({ bode, margins, plant, handles, sweep, onWidenSweep, holdRangesKey, dragging, readOnly, bench, ...events }: Props) {
+export function TunePlot({ bode, margins, plant, handles, sweep, onWidenSweep, holdRangesKey, dragging, readOnly, bench, rangeTraces, rangeToggle, ...events }: Props) {
   const [shown, setShown] = useState<Record<TraceId, boolean>>({ loop: true, plant: true, compensator: true });
   const [benchShown, setBenchShown] = useState(true); // Bench data toggle
 
@@ -124,6 +128,7 @@ export function TunePlot({ bode, margins, plant, handles, sweep, onWidenSweep, h
             {bench.name ?? 'Bench data'}
           </label>
         )}
+        {rangeToggle}
         <span className="ml-auto text-xs text-slate-500">
           {readOnly ? 'Handles are fixed (read-only)' : 'Drag ○ zeros and ✕ poles sideways, ◆ gain up or down; arrow keys step a focused handle'}
         </span>
@@ -136,6 +141,7 @@ export function TunePlot({ bode, margins, plant, handles, sweep, onWidenSweep, h
         margins={dragging ? undefined : marks}
         bench={clipped?.shown && benchShown ? clipped.shown : undefined}
         holdRangesKey={holdRangesKey}
+        extraTraces={dragging ? undefined : rangeTraces}
         freezeRanges={dragging}
         showLegend={false}
         height={480}

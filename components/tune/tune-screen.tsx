@@ -24,6 +24,11 @@ import { analyzeCompensator, analyzeCompensatorParts, prepareStage } from './tun
 import { TunePlot } from './tune-plot';
 import { useBenchOverlay } from '@/lib/queries/bench';
 import { useLeaveGuard } from './use-leave-guard';
+import { withRange, type MarginTargets, type OperatingRange } from '@/lib/engine/range';
+import { cornerTraces } from '@/components/range/corner-traces';
+import { CornerViewToggle, RangePanel } from '@/components/range/range-panel';
+import { useRangeAnalysis, type DesignInput } from '@/components/range/use-range-analysis';
+import { WorstReadout } from '@/components/range/worst-readout';
 
 export type TuneMode = 'edit' | 'role-read-only' | 'earlier-revision';
 
@@ -74,16 +79,18 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
   const readOnly = mode !== 'edit' && !scratch;
   const bench = useBenchOverlay(designId); // Bench data overlay
   // Every edit on Tune goes through the history, so Ctrl+Z / Ctrl+Shift+Z undo and redo it.
-  const [history, setHistory] = useState<History<AnalyzeRequest>>(() => startHistory(initialInput));
+  // The operating range is written out (defaults filled) so every save stores it; an older
+  // revision without one opens with the defaults and is not counted as changed.
+  const [history, setHistory] = useState<History<DesignInput>>(() => startHistory(withRange(initialInput)));
   const input = history.present;
   // The stage form keeps its own text; it is drawn again when undo, redo or leaving scratch change the stage under it.
   const [stageEpoch, setStageEpoch] = useState(0);
-  const edit = useCallback((fn: (i: AnalyzeRequest) => AnalyzeRequest) => setHistory((h) => commit(h, fn(h.present), sameInput)), []);
+  const edit = useCallback((fn: (i: DesignInput) => DesignInput) => setHistory((h) => commit(h, fn(h.present), sameInput)), []);
   const setInput = edit;
   const dragCommitted = useRef(false);
   const [lockPart, setLockPart] = useState<PartKey>('r1');
   const [pmTarget, setPmTarget] = useState<number | null>(null);
-  const [saved, setSaved] = useState({ json: stableJson(savedInput ?? initialInput), revision: shownRevision });
+  const [saved, setSaved] = useState(() => ({ json: stableJson(withRange(savedInput ?? initialInput)), revision: shownRevision }));
   const [from, setFrom] = useState(editFrom);
   const [stageValid, setStageValid] = useState(true);
   const [dragging, setDragging] = useState<string | null>(null);
@@ -116,6 +123,14 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
     const pm = loop.value.margins.phaseMarginDeg;
     startPm.current = pm !== null && pm >= 30 && pm <= 80 ? Math.round(pm) : 60;
   }
+
+  const onRangeChange = useCallback((next: { range: OperatingRange; targets: MarginTargets }) => setInput((i) => ({ ...i, ...next })), []);
+  const across = useRangeAnalysis(input, dragging !== null || !prepared.ok);
+  const cornerResult = across.corners?.ok ? across.corners.value : null;
+  const rangeTraces = useMemo(
+    () => (cornerResult && prepared.ok ? cornerTraces(prepared.value.grid.f as number[], cornerResult.corners, across.view, cornerResult.worst.phaseMarginDeg.corner) : undefined),
+    [cornerResult, prepared, across.view],
+  );
 
   const dirty = mode === 'edit' && (stableJson(input) !== saved.json || !stageValid);
   useLeaveGuard(dirty);
@@ -209,7 +224,7 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
   const startScratch = () => setScratch(true);
   const leaveScratch = () => {
     setScratch(false);
-    setHistory(startHistory(initialInput));
+    setHistory(startHistory(withRange(initialInput)));
     setStageEpoch((n) => n + 1);
     setHandleProblem(null);
   };
@@ -358,6 +373,8 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
               onDragEnd={onDragEnd}
               onStep={onStep}
               bench={bench}
+              rangeTraces={rangeTraces}
+              rangeToggle={cornerResult && <CornerViewToggle view={across.view} onChange={across.setView} count={cornerResult.corners.length} />}
             />
           ) : (
             <div className="grid h-[480px] place-items-center text-center text-sm text-slate-500" data-testid="plot-unavailable">
@@ -380,13 +397,24 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
         <div className="space-y-4">
           <Card title="Margins">
             {result ? (
-              <MarginsReadout margins={result.margins} phaseAtHalfFswDeg={result.phaseAtHalfFswDeg} fsw={input.converter.fsw} snapped={parts?.snappedMargins ?? null} />
+              <>
+                <MarginsReadout
+                  margins={result.margins}
+                  phaseAtHalfFswDeg={result.phaseAtHalfFswDeg}
+                  fsw={input.converter.fsw}
+                  snapped={parts?.snappedMargins ?? null}
+                  crossoverAboveHz={result.bode.loop.magDb[result.bode.loop.magDb.length - 1] > 0 ? result.bode.f[result.bode.f.length - 1] : null}
+                />
+                <div className="mt-3 border-t border-slate-200 pt-3">
+                  <WorstReadout nominal={result.margins} corners={cornerResult} spread={across.spread.status === 'done' && !across.stale ? across.spread.result : null} targets={input.targets} />
+                </div>
+              </>
             ) : (
               <p className="text-sm text-slate-500">—</p>
             )}
           </Card>
-          <Card title="Checks" aside={result && <span className="text-xs text-slate-500">{result.checks.length} raised</span>}>
-            {result ? <ChecksList checks={result.checks} /> : <p className="text-sm text-slate-500">Checks appear once the loop can be analysed.</p>}
+          <Card title="Checks" aside={result && <span className="text-xs text-slate-500">{result.checks.length + (across.corners?.ok ? across.corners.checks.length : 0)} raised</span>}>
+            {result ? <ChecksList checks={across.corners?.ok ? [...result.checks, ...across.corners.checks] : result.checks} /> : <p className="text-sm text-slate-500">Checks appear once the loop can be analysed.</p>}
           </Card>
         </div>
       </div>
@@ -438,6 +466,19 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
           <SweepForm sweep={sweepInUse} custom={input.sweep !== undefined} fsw={input.converter.fsw} readOnly={readOnly} onChange={onSweepChange} />
         </Card>
       </div>
+
+      <RangePanel
+        range={input.range}
+        targets={input.targets}
+        seriesTol={across.seriesTol}
+        readOnly={readOnly}
+        corners={across.corners}
+        spread={across.spread}
+        stale={across.stale}
+        onChange={onRangeChange}
+        onRun={across.runSpread}
+        onCancel={across.cancelSpread}
+      />
     </div>
   );
 }

@@ -148,11 +148,36 @@ const loopWork = { re: [] as number[], im: [] as number[] };
  */
 export const marginsForCompensator = (prepared: PreparedPlant, comp: CompensatorInput): Margins => {
   checkCompensator(comp);
-  const loop = multiplyTransfers(prepared.plantTransfer, compensatorTransfer(comp));
-  const { f } = prepared.grid;
-  const t = sweepComplex(loop, prepared.grid, loopWork);
+  return loopMargins(prepared.plantTransfer, prepared.grid, comp);
+};
+
+/**
+ * The margins of marginsForCompensator from the plant transfer alone (the tolerance spread's
+ * hot path: no operating-point summaries, no plant trace). Assumes validated parts.
+ */
+export const loopMargins = (plantTransfer: SectionedTransfer, grid: Grid, comp: CompensatorInput): Margins => {
+  const loop = multiplyTransfers(plantTransfer, compensatorTransfer(comp));
+  const { f } = grid;
+  const t = sweepComplex(loop, grid, loopWork);
   return computeMarginsFromComplex(f, t.re, t.im, transferEvaluator(loop, f[0]));
 };
+
+/**
+ * The plant of the loop (Gvd/Vramp) and the sweep grid, and nothing else: what loopMargins
+ * needs per sample of the spread. The same model preparePlant builds. Assumes a validated stage.
+ */
+export const loopPlant = (req: StageRequest): { plantTransfer: SectionedTransfer; grid: Grid } => {
+  const converter = withLossDefaults(req.converter);
+  const sweep = req.sweep ?? defaultSweep(converter.fsw);
+  return {
+    plantTransfer: modulatedPlant(buildPlantModel(converter), req.modulator.vramp),
+    grid: makeGrid(logSweep(sweep.fStart, sweep.fStop, sweep.points)),
+  };
+};
+
+/** The plant transfer of a stage (validated) on a grid already made: one sample of the spread. */
+export const loopPlantTransfer = (req: StageRequest): SectionedTransfer =>
+  modulatedPlant(buildPlantModel(withLossDefaults(req.converter)), req.modulator.vramp);
 
 /**
  * Fast path for the Tune screen: loop, margins, Bode traces and checks for a compensator on

@@ -124,7 +124,7 @@ export const loopChecks = (args: {
     out.push({
       id: 'gain-margin-low',
       level: 'risk',
-      message: `Gain margin is ${db(gm)} (under ${GM.risk} dB)${gm <= 0 ? ': the loop is unstable' : ''}; part tolerances or a change of input voltage can make it oscillate. Lower the high-frequency gain (the compensator's mid-band gain) or move its poles down.`,
+      message: `Gain margin is ${db(gm)} (under ${GM.risk} dB)${gm <= 0 ? ': the loop is unstable' : ''}; part tolerances or a change of input voltage can make it oscillate. Lower the gain above fc (the compensator's gain handle) or move its poles down.`,
     });
   } else if (gm !== null && gm < GM.caution) {
     out.push({

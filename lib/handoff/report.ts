@@ -11,6 +11,7 @@ import type { AnalyzeRequest, AnalyzeResult, Margins } from '@/lib/engine/types'
 import { formatSi } from '@/lib/units/si';
 import { formatTolerance, PART_NAME, TOLERANCE_CONVENTION, schematicValue, type PartRow } from './parts-list';
 import { bodeSvg } from './svg-plot';
+import { summarizeRange, worstCaseSentence, type RangeSummary } from '@/lib/range-summary';
 
 export interface ReportInput {
   design: { name: string; description: string; topology: string };
@@ -21,6 +22,32 @@ export interface ReportInput {
   parts: PartRow[];
   teamName: string;
   generatedAt?: Date;
+}
+
+/** The worst case across the operating range as a report section (corners and spread). */
+function rangeSection(s: RangeSummary): string {
+  const r = s.range;
+  const rangeRows = table([
+    ['Input voltage', `${r.vin.min} – ${r.vin.max} V`],
+    ['Load current', `${r.iout.min} – ${r.iout.max} A`],
+    ['Inductance', `±${pct(r.l.tol)}`],
+    ['Capacitance', `±${pct(r.c.tol)}`],
+    ['Capacitor ESR', `${si(r.rc.min, 'Ω')} – ${si(r.rc.max, 'Ω')}`],
+    ['Compensator parts', r.parts ? `R ±${pct(r.parts.resistorTol)}, C ±${pct(r.parts.capacitorTol)}` : 'their series’ tolerance'],
+    ['Targets', `PM ≥ ${s.targets.phaseMarginDeg}°, GM ≥ ${s.targets.gainMarginDb} dB`],
+  ]);
+  const p = s.spread.percentiles;
+  const pr = (q: typeof p.phaseMarginDeg, unit: string) => (q ? `${num(q.p1, unit)} / ${num(q.p50, unit)} / ${num(q.p99, unit)}` : '—');
+  const worst = table([
+    ['Worst phase margin', s.worst.phaseMarginDeg.value === null ? (s.worst.phaseMarginDeg.corner ? `no crossover at ${s.worst.phaseMarginDeg.corner}` : '—') : `${num(s.worst.phaseMarginDeg.value, '°')} at ${s.worst.phaseMarginDeg.corner}`],
+    ['Worst gain margin', s.worst.gainMarginDb.value === null ? 'no −180° crossing at any corner' : `${num(s.worst.gainMarginDb.value, 'dB')} at ${s.worst.gainMarginDb.corner}`],
+    ['Crossover over the corners', `${si(s.worst.crossoverHz.min, 'Hz')} – ${si(s.worst.crossoverHz.max, 'Hz')}`],
+    ['Corners in DCM', `${s.dcmCorners} of ${s.corners}`],
+    ['Spread PM p1 / p50 / p99', pr(p.phaseMarginDeg, '°')],
+    ['Spread GM p1 / p50 / p99', pr(p.gainMarginDb, 'dB')],
+    ['Builds meeting the targets', `${pct(s.spread.meetsTargets.share)} of ${s.spread.samples.toLocaleString('en-US')} (${s.spread.distribution}, seed ${s.spread.seed})`],
+  ]);
+  return `<p><b>${esc(worstCaseSentence(s))}</b></p><div class="cols"><div>${rangeRows}</div><div>${worst}</div></div><p class="muted small">Corners: every combination of the range's extremes, compensator at nominal. Spread: every part drawn within its tolerance at nominal line and load.</p>`;
 }
 
 const esc = (s: string) =>
@@ -103,6 +130,9 @@ export function buildReportHtml(r: ReportInput): string {
         .join('')}</ul>`
     : '<p>No Checks raised.</p>';
 
+  const summary = summarizeRange(input);
+  const across = summary.ok ? rangeSection(summary.value) : `<p>Worst case not available: ${esc(summary.message)}</p>`;
+
   const cautions = `<ul class="cautions">${CAUTIONS.map((c) => `<li><b>${esc(c.title)}.</b> ${esc(c.text)}</li>`).join('')}</ul>`;
 
   const plot = bodeSvg(result.bode, {
@@ -173,6 +203,7 @@ ${r.revision.note ? `<p><b>Revision note:</b> ${esc(r.revision.note)}</p>` : ''}
   <div><h2>Operating point</h2>${operating}</div>
 </section>
 <section><h2>Margins</h2>${margins}</section>
+<section data-section="range"><h2>Across the operating range</h2>${across}</section>
 <section class="plot"><h2>Bode plot</h2>${plot}</section>
 <section><h2>Parts</h2>${parts}</section>
 <section><h2>Checks</h2>${checks}</section>

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { analyzeRequestSchema } from './analyze';
+import { designInputSchema } from './range';
 import { designCreateSchema, designUpdateSchema } from './design';
 
 /**
@@ -24,7 +24,7 @@ export const designFileSchema = z.object({
     .object({ number: z.number().int().positive().optional(), note: z.string().max(2000).optional() })
     .partial()
     .optional(),
-  input: analyzeRequestSchema,
+  input: designInputSchema,
   results: z
     .object({
       crossoverHz: z.number().nullable(),

@@ -110,6 +110,8 @@ describe('POST …/submit', () => {
     expect(mail?.subject).toBe(`Review requested: Sign-off test rail r${n}`);
     expect(mail?.text).toContain(`/designs/${designId}/history?r=${n}`);
     expect(mail?.html).toContain(`/designs/${designId}/history?r=${n}`);
+    // The reviewer signs off the worst case: the mail states it.
+    expect(mail?.text).toMatch(/Worst case over \d+ corners: PM -?\d+\.\d° at .+ of 2,000 simulated builds \(seed 1\) meet PM ≥ 45°/);
     // a revision already in review cannot be submitted again
     const again = await clients[role].json(url(n, 'submit'), 'POST', { reviewerId: ids.reviewer, message: '' });
     expect(again.status).toBe(422);

@@ -12,7 +12,7 @@ const baseUrl = inject('baseUrl');
 const API = path.resolve(import.meta.dirname, '../../app/api');
 
 // Writes nothing on the server's data, or only the caller's own session.
-const READ_ONLY = new Set(['/api/analyze', '/api/session/team']);
+const READ_ONLY = new Set(['/api/analyze', '/api/analyze/corners', '/api/analyze/spread', '/api/session/team']);
 
 function routeFiles(dir: string): string[] {
   return fs.readdirSync(dir, { withFileTypes: true }).flatMap((e) => {

@@ -335,6 +335,8 @@ describe.runIf(run)('Tune', () => {
     await expect.poll(() => stop.inputValue()).toBe('1 kHz');
     // The loop is still above 0 dB at 1 kHz: the check says so instead of "no crossover".
     await expect.poll(() => page.getByTestId('tune').textContent()).toMatch(/crossover lies above the end of the sweep/);
+    expect(await page.getByTestId('tune').textContent()).not.toMatch(/no crossover/);
+    expect(await page.getByTestId('readout-fc').textContent()).toBe('> 1 kHz');
     await page.getByTestId('revision-note').fill('Sweep to 1 kHz');
     await page.getByTestId('save-revision').click();
     await expect.poll(() => page.getByTestId('save-state').textContent(), { timeout: 20_000 }).toContain('Saved as r2');

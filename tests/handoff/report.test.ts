@@ -20,6 +20,13 @@ const ctx = (over: Partial<ExportContext> = {}): ExportContext => ({
 describe('printable report', () => {
   const html = buildExport('report', ctx()).body;
 
+  it('states the worst case across the operating range and the spread', () => {
+    expect(html).toContain('<h2>Across the operating range</h2>');
+    expect(html).toMatch(/Worst case over 32 corners: PM \d+\.\d° at (low|high) line/);
+    expect(html).toContain('Builds meeting the targets');
+    expect(html).toContain('Spread PM p1 / p50 / p99');
+  });
+
   it('is one self-contained HTML page with print styles and no script', () => {
     expect(html.startsWith('<!doctype html>')).toBe(true);
     expect(html).toContain('@page');

@@ -12,6 +12,8 @@ import { ComparePlot, type CompareLoop } from '@/components/review/compare-plot'
 import { DiffTable } from '@/components/review/diff-table';
 import { formatDate } from '@/components/review/format';
 import { MarginDeltas } from '@/components/review/margin-deltas';
+import { RangeCompare } from '@/components/range/range-compare';
+import { summarizeRange } from '@/lib/range-summary';
 
 export const metadata: Metadata = { title: 'Compare' };
 
@@ -57,6 +59,9 @@ export default async function ComparePage({ params, searchParams }: Props) {
   const loopA = loopOf(labelA, side(a).input, side(a).summary);
   const loopB = loopOf(labelB, side(b).input, side(b).summary);
   const states = listSignoffStates(db, design.id);
+  // Worst case across each revision's own operating range (corners and a fixed-seed spread).
+  const rangeA = summarizeRange(side(a).input);
+  const rangeB = summarizeRange(side(b).input);
 
   return (
     <div className="space-y-4" data-testid="compare">
@@ -98,6 +103,8 @@ export default async function ComparePage({ params, searchParams }: Props) {
       </div>
 
       <MarginDeltas deltas={deltas} labelA={labelA} labelB={labelB} />
+
+      <RangeCompare a={rangeA} b={rangeB} labelA={labelA} labelB={labelB} />
 
       {loopA && loopB ? (
         <ComparePlot a={loopA} b={loopB} />

@@ -4,6 +4,7 @@ import { getTeamSignoffSettings, getUserById, listTeamMembers, submitForReview }
 import { eligibleReviewers, maySubmit } from '@/lib/signoff-policy';
 import { parseJson, withUser } from '@/lib/api';
 import { notifyReviewRequested } from '@/lib/notify';
+import { summarizeRange, worstCaseSentence } from '@/lib/range-summary';
 import { requireRevision, runSignoff } from '@/lib/revision-access';
 import { submitForReviewSchema } from '@/lib/validation/signoff';
 
@@ -16,6 +17,9 @@ export const POST = withUser<P>(
     const body = await parseJson(req, submitForReviewSchema);
     const db = getDb();
     const event = runSignoff(() => submitForReview(db, ref, { actorId: user.id, reviewerId: body.reviewerId, message: body.message }));
+    // The reviewer signs off the worst case: the mail states it (a range no circuit can be says so).
+    const range = summarizeRange(revision.input);
+    const worstCase = range.ok ? worstCaseSentence(range.value) : `Worst case not available: ${range.message}`;
     // The named reviewer, or every member who may review when none is named.
     const team = getTeamSignoffSettings(db, user.teamId);
     const to =
@@ -30,6 +34,7 @@ export const POST = withUser<P>(
           teamId: user.teamId,
           revision: { designId: design.id, designName: design.name, number: ref.number },
           message: body.message,
+          worstCase,
         }),
       ),
     );

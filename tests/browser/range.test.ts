@@ -1,0 +1,81 @@
+/**
+ * The operating range in Chromium: Tune draws the corners as a band, lists them with the worst
+ * row highlighted, shows nominal and worst side by side and raises the worst-case checks; the
+ * spread runs in a Web Worker with a progress bar, can be cancelled, and shows histograms;
+ * an edited range is saved with the revision; Compare states both revisions' worst cases.
+ * Screenshots go to $SCREENSHOT_DIR.
+ */
+import { chromium, type Browser, type Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { CHROMIUM, CHROMIUM_ARGS, chromiumAvailable } from '../support/chromium';
+import { screenshot, signInThroughForm } from '../support/browser';
+import { signedInAs, type Client } from '../support/http';
+import { savedDesign } from '../support/saved-design';
+
+const run = chromiumAvailable();
+const baseUrl = inject('baseUrl');
+let browser: Browser;
+let designer: Client;
+let designId: number;
+
+async function pageAs(email: string): Promise<Page> {
+  const context = await browser.newContext({ viewport: { width: 1500, height: 1100 } });
+  const page = await context.newPage();
+  await page.goto(`${baseUrl}/signin`, { waitUntil: 'networkidle' });
+  await signInThroughForm(page, baseUrl, email);
+  return page;
+}
+
+describe.runIf(run)('Tune across the operating range', () => {
+  beforeAll(async () => {
+    browser = await chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_ARGS });
+    designer = await signedInAs(baseUrl, 'designer');
+    ({ designId } = await savedDesign(designer, 'Browser range rail'));
+  });
+  afterAll(async () => browser?.close());
+
+  it('shows corners, worst case and a cancellable spread with histograms; saves the range', async () => {
+    const page = await pageAs('designer@demo.test');
+    await page.goto(`${baseUrl}/designs/${designId}`);
+    await page.locator('[data-plot-ready="true"]').waitFor({ timeout: 60_000 });
+    await page.getByTestId('corner-table').waitFor({ timeout: 60_000 });
+    await expect.poll(() => page.getByTestId('corner-table').locator('tbody tr').count()).toBe(32);
+    await expect.poll(() => page.locator('[data-worst="pm"]').count()).toBe(1);
+    await expect.poll(() => page.getByTestId('worst-pm').textContent()).toMatch(/\d+\.\d°/);
+    await expect.poll(() => page.getByTestId('worst-where').textContent()).toMatch(/Worst PM at corner \d+: /);
+    expect(await page.locator('[data-check="worst-phase-margin"]').count()).toBe(1);
+
+    // Cancel a long run, then run 10,000 samples to the end.
+    await page.getByLabel('Samples').selectOption('100000');
+    await page.getByTestId('spread-run').click();
+    await page.getByTestId('spread-progress').waitFor();
+    await page.getByTestId('spread-cancel').click();
+    await page.getByTestId('spread-cancelled').waitFor();
+    await page.getByLabel('Samples').selectOption('10000');
+    await page.getByTestId('spread-run').click();
+    await page.getByTestId('spread-result').waitFor({ timeout: 60_000 });
+    await page.getByTestId('hist-pm').waitFor();
+    await expect.poll(() => page.getByTestId('spread-share').textContent()).toMatch(/% of 10,000 simulated builds meet/);
+    await page.getByTestId('corners-family').check();
+    await screenshot(page, 'range-tune');
+
+    // Edit the range and save: the revision keeps it.
+    await page.locator('#range-lTol').fill('30');
+    await page.getByTestId('revision-note').fill('L ±30 %');
+    await page.getByRole('button', { name: 'Save as r2' }).click();
+    await expect
+      .poll(async () => {
+        const res = await designer.fetch(`/api/designs/${designId}/revisions`);
+        const list = (await res.json()).revisions as { number: number }[];
+        return list.length;
+      })
+      .toBe(2);
+    const r2 = await (await designer.fetch(`/api/designs/${designId}/revisions/2`)).json();
+    expect(r2.input.range.l.tol).toBe(0.3);
+
+    await page.goto(`${baseUrl}/designs/${designId}/compare?a=1&b=2`);
+    await page.getByTestId('range-compare').waitFor();
+    expect(await page.getByTestId('range-compare').textContent()).toContain('Worst phase margin');
+    await screenshot(page, 'range-compare');
+  });
+});
