@@ -1,7 +1,8 @@
 'use client';
 
 import { useRouter } from 'next/navigation';
-import { useState } from 'react';
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { ApiError, sendJson } from '@/lib/queries/request';
 
 export function TeamSwitcher({
   current,
@@ -11,7 +12,16 @@ export function TeamSwitcher({
   teams: { teamId: number; teamName: string; role: string }[];
 }) {
   const router = useRouter();
-  const [pending, setPending] = useState(false);
+  const queryClient = useQueryClient();
+  const switchTeam = useMutation({
+    mutationFn: (teamId: number) => sendJson<{ teamId: number; role: string }>('/api/session/team', 'POST', { teamId }),
+    onSuccess: () => {
+      queryClient.clear(); // every cached read belongs to the old team
+      router.push('/designs');
+      router.refresh();
+    },
+  });
+  const pending = switchTeam.isPending;
   if (teams.length === 1)
     return <span className="text-sm text-slate-300">{teams[0].teamName}</span>;
   return (
@@ -22,17 +32,7 @@ export function TeamSwitcher({
         className="rounded-md border border-frame-light bg-frame-dark px-2 py-1 text-slate-100"
         value={current}
         disabled={pending}
-        onChange={async (e) => {
-          setPending(true);
-          await fetch('/api/session/team', {
-            method: 'POST',
-            headers: { 'content-type': 'application/json' },
-            body: JSON.stringify({ teamId: Number(e.target.value) }),
-          });
-          setPending(false);
-          router.push('/designs');
-          router.refresh();
-        }}
+        onChange={(e) => switchTeam.mutate(Number(e.target.value))}
       >
         {teams.map((t) => (
           <option key={t.teamId} value={t.teamId}>
@@ -40,6 +40,11 @@ export function TeamSwitcher({
           </option>
         ))}
       </select>
+      {switchTeam.isError && (
+        <span role="alert" className="text-xs text-rose-300">
+          {switchTeam.error instanceof ApiError ? switchTeam.error.firstMessage : 'Could not switch team'}
+        </span>
+      )}
     </label>
   );
 }

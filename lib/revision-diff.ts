@@ -3,7 +3,7 @@
  * operating-point figures, side by side, each row marked when it differs.
  * Pure data; Compare formats it.
  */
-import { AMPLIFIER_LABELS, MODULATOR_MODE_LABELS } from '@/lib/catalog';
+import { AMPLIFIER_LABELS, compensatorLabel, inputApplies, inputLabel, MODULATOR_MODE_LABELS, PART_ORDER, PARTS, readInput, STAGE_INPUTS, type InputSpec, type PartKey } from '@/lib/catalog';
 import type { AnalyzeRequest } from '@/lib/engine/types';
 import type { RevisionSummary } from './revision-summary';
 
@@ -30,50 +30,46 @@ export interface RevisionSide {
 
 type Spec = Omit<DiffRow, 'a' | 'b' | 'changed'> & { get: (s: RevisionSide) => number | string | null | undefined };
 
-const PARTS = ['r1', 'r2', 'r3', 'c1', 'c2', 'c3'] as const;
-const partUnit = (p: string) => (p.startsWith('r') ? 'Ω' : 'F');
-const partLabel = (p: string) => p.toUpperCase();
+const COMP_PARTS = PART_ORDER.filter((p): p is Exclude<PartKey, 'rb'> => p !== 'rb');
 
+/** A stage input's row, from the catalogue; blank when the input does not apply in that revision's mode. */
+const stageSpec = (spec: InputSpec): Spec => ({
+  group: spec.group,
+  key: spec.field,
+  label: inputLabel(spec),
+  kind: 'si',
+  unit: spec.unit,
+  get: (s) => (inputApplies(spec, s.input) ? readInput(s.input, spec) : null),
+});
 
 const SPECS: Spec[] = [
   { group: 'Power stage', key: 'topology', label: 'Topology', kind: 'text', get: (s) => s.input.converter.topology },
-  { group: 'Power stage', key: 'vin', label: 'Input voltage Vin', kind: 'si', unit: 'V', get: (s) => s.input.converter.vin },
-  { group: 'Power stage', key: 'vout', label: 'Output voltage Vout', kind: 'si', unit: 'V', get: (s) => s.input.converter.vout },
-  { group: 'Power stage', key: 'iout', label: 'Load current Iout', kind: 'si', unit: 'A', get: (s) => s.input.converter.iout },
-  { group: 'Power stage', key: 'fsw', label: 'Switching frequency fsw', kind: 'si', unit: 'Hz', get: (s) => s.input.converter.fsw },
-  { group: 'Power stage', key: 'l', label: 'Inductor L', kind: 'si', unit: 'H', get: (s) => s.input.converter.l },
-  { group: 'Power stage', key: 'rl', label: 'Inductor DCR', kind: 'si', unit: 'Ω', get: (s) => s.input.converter.rl },
-  { group: 'Power stage', key: 'c', label: 'Output capacitor C', kind: 'si', unit: 'F', get: (s) => s.input.converter.c },
-  { group: 'Power stage', key: 'rc', label: 'Capacitor ESR', kind: 'si', unit: 'Ω', get: (s) => s.input.converter.rc },
-  { group: 'Power stage', key: 'vd', label: 'Diode drop Vd', kind: 'si', unit: 'V', get: (s) => s.input.converter.vd },
-  { group: 'Modulator and feedback', key: 'mode', label: 'Modulator', kind: 'text', get: (s) => MODULATOR_MODE_LABELS[s.input.modulator.mode ?? 'voltage'] },
-  { group: 'Modulator and feedback', key: 'vramp', label: 'PWM ramp Vramp', kind: 'si', unit: 'V', get: (s) => (s.input.modulator.mode === 'peak-current' ? null : s.input.modulator.vramp) },
-  { group: 'Modulator and feedback', key: 'ri', label: 'Current-sense gain Ri', kind: 'si', unit: 'V/A', get: (s) => (s.input.modulator.mode === 'peak-current' ? s.input.modulator.ri : null) },
-  { group: 'Modulator and feedback', key: 'se', label: 'External ramp Se', kind: 'si', unit: 'V/s', get: (s) => (s.input.modulator.mode === 'peak-current' ? s.input.modulator.se : null) },
-  { group: 'Modulator and feedback', key: 'vref', label: 'Reference Vref', kind: 'si', unit: 'V', get: (s) => s.input.feedback.vref },
-  { group: 'Compensator', key: 'type', label: 'Type', kind: 'text', get: (s) => typeLabel(s.input.compensator.type) },
+  ...STAGE_INPUTS.filter((spec) => spec.section === 'converter').map(stageSpec),
+  { group: 'Modulator', key: 'mode', label: 'Modulator', kind: 'text', get: (s) => MODULATOR_MODE_LABELS[s.input.modulator.mode ?? 'voltage'] },
+  ...STAGE_INPUTS.filter((spec) => spec.section !== 'converter').map(stageSpec),
+  { group: 'Compensator', key: 'type', label: 'Type', kind: 'text', get: (s) => compensatorLabel(s.input.compensator.type) },
   { group: 'Compensator', key: 'amplifier', label: 'Error amplifier', kind: 'text', get: (s) => AMPLIFIER_LABELS[s.input.compensator.amplifier ?? 'opamp'] },
   { group: 'Compensator', key: 'comp.gm', label: 'Transconductance gm', kind: 'si', unit: 'S', get: (s) => s.input.compensator.gm },
   { group: 'Compensator', key: 'comp.ro', label: 'Amplifier output resistance ro', kind: 'si', unit: 'Ω', get: (s) => s.input.compensator.ro },
-  { group: 'Compensator', key: 'comp.rb', label: 'Rb as entered', kind: 'si', unit: 'Ω', get: (s) => s.input.compensator.rb },
+  { group: 'Compensator', key: 'comp.rb', label: `${PARTS.rb.name} as entered`, kind: 'si', unit: PARTS.rb.unit, get: (s) => s.input.compensator.rb },
   { group: 'Compensator', key: 'comp.a0', label: 'Op-amp gain a0', kind: 'si', unit: 'V/V', get: (s) => s.input.compensator.opamp?.a0 },
   { group: 'Compensator', key: 'comp.gbw', label: 'Op-amp GBW', kind: 'si', unit: 'Hz', get: (s) => s.input.compensator.opamp?.gbw },
-  ...PARTS.map<Spec>((p) => ({
+  ...COMP_PARTS.map<Spec>((p) => ({
     group: 'Compensator',
     key: `comp.${p}`,
-    label: `${partLabel(p)} as entered`,
+    label: `${PARTS[p].name} as entered`,
     kind: 'si',
-    unit: partUnit(p),
+    unit: PARTS[p].unit,
     get: (s) => s.input.compensator[p],
   })),
   { group: 'Parts', key: 'resistorSeries', label: 'Resistor series', kind: 'text', get: (s) => s.summary.parts?.resistorSeries },
   { group: 'Parts', key: 'capacitorSeries', label: 'Capacitor series', kind: 'text', get: (s) => s.summary.parts?.capacitorSeries },
-  ...[...PARTS, 'rb' as const].map<Spec>((p) => ({
+  ...PART_ORDER.map<Spec>((p) => ({
     group: 'Parts',
     key: `part.${p}`,
-    label: p === 'rb' ? 'Rb (divider, to ground)' : `${partLabel(p)} standard value`,
+    label: p === 'rb' ? `${PARTS.rb.name} (divider, to ground)` : `${PARTS[p].name} standard value`,
     kind: 'si',
-    unit: partUnit(p),
+    unit: PARTS[p].unit,
     get: (s) => s.summary.parts?.snapped?.[p],
   })),
   { group: 'Margins', key: 'fc', label: 'Crossover fc', kind: 'si', unit: 'Hz', get: (s) => s.summary.margins?.crossoverHz },
@@ -90,8 +86,6 @@ const SPECS: Spec[] = [
   { group: 'Checks', key: 'checks', label: 'Checks (risk / caution / note)', kind: 'text', get: (s) => checkCounts(s.summary) },
 ];
 
-const TYPE_LABELS: Record<string, string> = { type1: 'Type I', type2: 'Type II', type3: 'Type III' };
-const typeLabel = (t: string) => TYPE_LABELS[t] ?? t;
 
 function checkCounts(s: RevisionSummary) {
   const list = s.checks ?? [];

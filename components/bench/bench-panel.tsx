@@ -1,5 +1,6 @@
 'use client';
 
+import { formatCount, formatIsoDay } from '@/lib/format';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useMemo, useRef, useState } from 'react';
 import { formatSi } from '@/lib/units/si';
@@ -125,7 +126,7 @@ export function BenchPanel({ designId, revision, canEdit }: { designId: number; 
       )}
       {uploaded && (
         <div className="mt-3 rounded border border-emerald-300 bg-emerald-50 px-3 py-2 text-sm text-emerald-900" role="status">
-          Stored “{uploaded.name}”: {uploaded.rows.toLocaleString('en')} points.
+          Stored “{uploaded.name}”: {formatCount(uploaded.rows)} points.
           {uploaded.notes.length > 0 && <span className="text-emerald-800"> {uploaded.notes.join(' ')}</span>}
         </div>
       )}
@@ -141,7 +142,7 @@ export function BenchPanel({ designId, revision, canEdit }: { designId: number; 
               <button type="button" className="text-left" onClick={() => setSelected(b.id)} aria-pressed={b.id === current}>
                 <span className="font-medium">{b.name}</span>{' '}
                 <span className="text-xs text-slate-500">
-                  {b.revisionNumber ? `r${b.revisionNumber}` : 'design-wide'} · {new Date(b.createdAt).toISOString().slice(0, 10)} · {b.uploaderName}
+                  {b.revisionNumber ? `r${b.revisionNumber}` : 'design-wide'} · {formatIsoDay(b.createdAt)} · {b.uploaderName}
                   {b.phaseShifted ? ' · shifted 180°' : ''}
                 </span>
               </button>

@@ -1,12 +1,20 @@
 'use client';
 
 import { zodResolver } from '@hookform/resolvers/zod';
+import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useRouter } from 'next/navigation';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
+import type { Design } from '@/db/schema';
+import { TOPOLOGY_LABELS } from '@/lib/catalog/topologies';
+import { TOPOLOGIES } from '@/lib/engine/types';
+import type { Jsonified } from '@/lib/json';
+import { sendJson, showServerErrors } from '@/lib/queries/request';
+import { designKeys } from '@/lib/queries/revisions';
 import { designCreateSchema } from '@/lib/validation/design';
 
 type FormValues = z.input<typeof designCreateSchema>;
+const FIELDS = ['name', 'topology', 'description'] as const;
 
 export default function NewDesignForm({ onCancel }: { onCancel: () => void }) {
   const router = useRouter();
@@ -17,20 +25,16 @@ export default function NewDesignForm({ onCancel }: { onCancel: () => void }) {
     formState: { errors, isSubmitting },
   } = useForm<FormValues>({ resolver: zodResolver(designCreateSchema), defaultValues: { topology: 'buck' } });
 
-  const onSubmit = handleSubmit(async (values) => {
-    const res = await fetch('/api/designs', {
-      method: 'POST',
-      headers: { 'content-type': 'application/json' },
-      body: JSON.stringify(values),
-    });
-    const body = await res.json().catch(() => ({}));
-    if (!res.ok) {
-      const issue = body.issues?.[0];
-      setError((issue?.path as keyof FormValues) ?? 'root', { message: issue?.message ?? body.error ?? 'Could not create the design' });
-      return;
-    }
-    router.push(`/designs/${body.id}`);
+  const queryClient = useQueryClient();
+  const create = useMutation({
+    mutationFn: (values: FormValues) => sendJson<Jsonified<Design>>('/api/designs', 'POST', values),
+    onSuccess: (design) => {
+      void queryClient.invalidateQueries({ queryKey: designKeys.all });
+      router.push(`/designs/${design.id}`);
+    },
+    onError: (err) => showServerErrors(err, FIELDS, setError, 'Could not create the design'),
   });
+  const onSubmit = handleSubmit((values) => create.mutateAsync(values).catch(() => undefined));
 
   return (
     <form onSubmit={onSubmit} className="card flex flex-wrap items-start gap-3 p-3" noValidate>
@@ -46,9 +50,11 @@ export default function NewDesignForm({ onCancel }: { onCancel: () => void }) {
           Topology
         </label>
         <select id="new-topology" className="input w-36" {...register('topology')}>
-          <option value="buck">Buck</option>
-          <option value="boost">Boost</option>
-          <option value="buck-boost">Buck-boost</option>
+          {TOPOLOGIES.map((t) => (
+            <option key={t} value={t}>
+              {TOPOLOGY_LABELS[t]}
+            </option>
+          ))}
         </select>
       </div>
       <div>

@@ -60,6 +60,5 @@ export function formatChange(kind: DiffKind, a: number | string | null, b: numbe
   }
 }
 
-export function formatDate(d: Date | string | number) {
-  return new Date(d).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
-}
+/** Dates on review screens: the shared format (fixed time zone). */
+export { formatDateTime as formatDate } from '@/lib/format';

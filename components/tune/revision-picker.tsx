@@ -1,5 +1,6 @@
 'use client';
 
+import { formatDateTime } from '@/lib/format';
 import { useQuery } from '@tanstack/react-query';
 import Link from 'next/link';
 import { revisionsQueryOptions, type RevisionListItem } from '@/lib/queries/revisions';
@@ -24,7 +25,7 @@ export function RevisionPicker({ designId, shown, initial }: { designId: number;
           key={r.number}
           href={r.number === latest ? `/designs/${designId}` : `/designs/${designId}?r=${r.number}`}
           aria-current={r.number === shown ? 'page' : undefined}
-          title={`${r.note || 'no note'} — ${r.authorName}, ${new Date(r.createdAt).toLocaleString()}`}
+          title={`${r.note || 'no note'} — ${r.authorName}, ${formatDateTime(r.createdAt)}`}
           className={`rounded px-2 py-0.5 font-mono text-xs ${
             r.number === shown ? 'bg-indigo-600 text-white' : 'bg-slate-100 text-slate-700 hover:bg-slate-200'
           }`}

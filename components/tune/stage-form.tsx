@@ -5,7 +5,7 @@ import { memo, useEffect, useRef } from 'react';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
 import type { AnalyzeRequest, FieldIssue, ModulatorInput, ModulatorMode } from '@/lib/engine/types';
-import { MODE_OPTIONS } from '@/lib/catalog';
+import { inputLabel, inputPath, MODE_OPTIONS, STAGE_INPUTS, type InputSpec } from '@/lib/catalog';
 import { siText, toSiText } from './si-schema';
 import { TextField } from './text-field';
 
@@ -17,30 +17,29 @@ interface FieldSpec {
   unit: string;
   path: string;
   hint?: string;
+  /** One line of help (the input's title). */
+  help: string;
   bound?: 'positive' | 'nonNegative';
   /** Shown without a prefix (0.8 rather than 800m). */
   plain?: boolean;
-  /** Only in this modulator mode; absent means always. */
-  mode?: ModulatorMode;
+  /** Only in these modulator modes; absent means always. */
+  modes?: readonly ModulatorMode[];
 }
 
-type StageField = 'vin' | 'vout' | 'iout' | 'fsw' | 'l' | 'rl' | 'c' | 'rc' | 'vd' | 'vramp' | 'ri' | 'se' | 'vref';
+type StageField = InputSpec['field'];
 
-const FIELDS: readonly FieldSpec[] = [
-  { name: 'vin', plain: true, label: 'Input voltage Vin', unit: 'V', path: 'converter.vin' },
-  { name: 'vout', plain: true, label: 'Output voltage Vout', unit: 'V', path: 'converter.vout', hint: 'magnitude' },
-  { name: 'iout', plain: true, label: 'Load current Iout', unit: 'A', path: 'converter.iout' },
-  { name: 'fsw', label: 'Switching frequency fsw', unit: 'Hz', path: 'converter.fsw' },
-  { name: 'l', label: 'Inductance L', unit: 'H', path: 'converter.l' },
-  { name: 'rl', label: 'Inductor DCR', unit: 'Ω', path: 'converter.rl', bound: 'nonNegative' },
-  { name: 'c', label: 'Output capacitance C', unit: 'F', path: 'converter.c' },
-  { name: 'rc', label: 'Capacitor ESR', unit: 'Ω', path: 'converter.rc', bound: 'nonNegative' },
-  { name: 'vd', plain: true, label: 'Diode drop Vd', unit: 'V', path: 'converter.vd', hint: '0 = synchronous', bound: 'nonNegative' },
-  { name: 'vramp', plain: true, label: 'PWM ramp Vramp', unit: 'V', path: 'modulator.vramp', mode: 'voltage' },
-  { name: 'ri', plain: true, label: 'Current-sense gain Ri', unit: 'V/A', path: 'modulator.ri', mode: 'peak-current' },
-  { name: 'se', label: 'External ramp Se', unit: 'V/s', path: 'modulator.se', hint: '0 = none', bound: 'nonNegative', mode: 'peak-current' },
-  { name: 'vref', plain: true, label: 'Reference Vref', unit: 'V', path: 'feedback.vref' },
-];
+/** Labels, units, bounds and help from the catalogue of stage inputs. */
+const FIELDS: readonly FieldSpec[] = STAGE_INPUTS.map((spec) => ({
+  name: spec.field,
+  label: inputLabel(spec),
+  unit: spec.unit,
+  path: inputPath(spec),
+  hint: spec.zeroMeans ? `0 = ${spec.zeroMeans}` : undefined,
+  help: spec.help,
+  bound: spec.bound,
+  plain: spec.plain,
+  modes: spec.appliesTo?.modulator,
+}));
 
 const stageFormSchema = z.object(
   Object.fromEntries(FIELDS.map((f) => [f.name, siText(f.label, f.unit, f.bound)])) as Record<
@@ -143,7 +142,7 @@ export const StageForm = memo(function StageForm({ value, readOnly, issues, onCh
           ))}
         </select>
       </label>
-      {FIELDS.filter((f) => f.mode === undefined || f.mode === mode).map((f) => {
+      {FIELDS.filter((f) => f.modes === undefined || f.modes.includes(mode)).map((f) => {
         const engineError = issues.find((i) => i.path === f.path)?.message;
         return (
           <TextField
@@ -153,6 +152,7 @@ export const StageForm = memo(function StageForm({ value, readOnly, issues, onCh
             unit={f.unit}
             error={errors[f.name]?.message ?? engineError}
             placeholder={f.hint}
+            title={f.help}
             {...register(f.name)}
           />
         );

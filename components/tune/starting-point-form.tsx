@@ -5,7 +5,8 @@ import { useEffect } from 'react';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
 import type { StartingPointMethod } from '@/lib/engine/starting-point';
-import type { CompensatorType } from '@/lib/engine/types';
+import { compensatorLabel } from '@/lib/catalog/compensators';
+import { COMPENSATOR_TYPES, type CompensatorType } from '@/lib/engine/types';
 import { siText, toSiText } from './si-schema';
 import { TextField } from './text-field';
 
@@ -28,7 +29,7 @@ const schema = z.object({
       return v;
     }),
   method: z.enum(['k-factor', 'pole-zero']),
-  type: z.enum(['type1', 'type2', 'type3']),
+  type: z.enum(COMPENSATOR_TYPES),
 });
 
 type Text = z.input<typeof schema>;
@@ -98,9 +99,11 @@ export function StartingPointForm({ defaultCrossoverHz, defaultPhaseMarginDeg = 
             Type
           </label>
           <select id="sp-type" className="input" {...register('type')}>
-            <option value="type1">Type I</option>
-            <option value="type2">Type II</option>
-            <option value="type3">Type III</option>
+            {COMPENSATOR_TYPES.map((t) => (
+              <option key={t} value={t}>
+                {compensatorLabel(t)}
+              </option>
+            ))}
           </select>
         </div>
       </div>

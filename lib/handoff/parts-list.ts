@@ -8,10 +8,12 @@
  * E6 ±20 %, E12 ±10 %, E24 ±5 %, E48 ±2 %, E96 ±1 %, E192 ±0.5 %. Order parts at least that
  * tight; a looser part can land nearer a neighbouring value than the one chosen.
  */
-import type { Amplifier, CompensatorType, ESeriesName, PartsResult, PartValues } from '@/lib/engine/types';
+import { PART_ORDER, PARTS, type PartKey } from '@/lib/catalog/compensators';
+import type { Amplifier, CompensatorType, ESeriesName, PartsResult } from '@/lib/engine/types';
 import { formatSi } from '@/lib/units/si';
 
-export type PartKey = keyof PartValues;
+export type { PartKey };
+/** Parts-list order: resistors, then capacitors, then the divider. */
 export const PART_KEYS: readonly PartKey[] = ['r1', 'r2', 'r3', 'c1', 'c2', 'c3', 'rb'];
 
 /** Tolerance (percent) conventionally paired with each series. */
@@ -28,7 +30,7 @@ export const TOLERANCE_CONVENTION =
   'Tolerance is the one each IEC 60063 series was designed for: E6 ±20 %, E12 ±10 %, E24 ±5 %, E48 ±2 %, E96 ±1 %, E192 ±0.5 %.';
 
 /** Our name for each part in the compensator drawing, and the designator used when none is mapped. */
-export const PART_NAME: Record<PartKey, string> = { r1: 'R1', r2: 'R2', r3: 'R3', c1: 'C1', c2: 'C2', c3: 'C3', rb: 'Rb' };
+export const PART_NAME: Record<PartKey, string> = Object.fromEntries(PART_ORDER.map((k) => [k, PARTS[k].name])) as Record<PartKey, string>;
 export const DEFAULT_DESIGNATOR: Record<PartKey, string> = { r1: 'R1', r2: 'R2', r3: 'R3', c1: 'C1', c2: 'C2', c3: 'C3', rb: 'R4' };
 
 /** What the part does around a transconductance amplifier (the divider is in the loop). */

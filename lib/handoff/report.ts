@@ -5,6 +5,7 @@
  * the model, the parts, the Checks, the cautions, the
  * revision number, its sign-off state and the dates.
  */
+import { formatIsoDay, formatIsoMinute } from '@/lib/format';
 import { CAUTIONS } from '@/lib/cautions';
 import { AMPLIFIER_LABELS, compensatorTitle, inputApplies, MODULATOR_MODE_LABELS, inputLabel, readInput, signoffLabel, STAGE_INPUTS, topologyLabel, type SignoffState } from '@/lib/catalog';
 import type { AnalyzeRequest, AnalyzeResult, Margins } from '@/lib/engine/types';
@@ -124,8 +125,8 @@ const esc = (s: string) =>
   s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
 
 
-const date = (d: Date) => d.toISOString().slice(0, 10);
-const dateTime = (d: Date) => `${d.toISOString().slice(0, 16).replace('T', ' ')} UTC`;
+const date = formatIsoDay;
+const dateTime = formatIsoMinute;
 const si = (v: number | null | undefined, unit: string, digits = 3) => (v === null || v === undefined ? '—' : formatSi(v, unit, digits));
 const num = (v: number | null | undefined, unit: string, dp = 1) =>
   v === null || v === undefined ? '—' : `${v.toFixed(dp)}${unit === '°' ? '' : ' '}${unit}`;

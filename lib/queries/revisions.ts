@@ -24,28 +24,8 @@ export interface SaveRevisionBody {
   input: AnalyzeRequest;
 }
 
-/** A failed API call with the server's answer ({ error, issues?, … }). */
-export class ApiError extends Error {
-  constructor(
-    readonly status: number,
-    readonly body: { error?: string; issues?: { path: string; message: string }[]; baseRevision?: number | null; latestRevision?: number | null },
-  ) {
-    super(body.error ?? `Request failed (${status})`);
-    this.name = 'ApiError';
-  }
-}
-
-export async function requestJson<T>(url: string, init?: RequestInit): Promise<T> {
-  let res: Response;
-  try {
-    res = await fetch(url, init);
-  } catch {
-    throw new ApiError(0, { error: 'The server could not be reached; check the connection and try again' });
-  }
-  const body = await res.json().catch(() => ({}));
-  if (!res.ok) throw new ApiError(res.status, body);
-  return body as T;
-}
+export { ApiError, requestJson } from './request';
+import { requestJson } from './request';
 
 export const revisionsQueryOptions = (designId: number) =>
   queryOptions({

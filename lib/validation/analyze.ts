@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import { PARTS } from '@/lib/catalog/compensators';
+import { inputByPath, inputLabel } from '@/lib/catalog/stage-inputs';
 import {
   AMPLIFIERS,
   COMPENSATOR_TYPES,
@@ -23,6 +25,13 @@ import {
 const finite = (label: string) =>
   z.number({ error: `${label} must be a number` }).refine(Number.isFinite, `${label} must be finite`);
 
+/** A stage input's number, its messages naming the field as the form does ("Inductance L (l) must be a number"). */
+const stageNumber = (path: string) => {
+  const spec = inputByPath(path);
+  const field = path.split('.').at(-1) ?? path;
+  return finite(spec ? `${inputLabel(spec)} (${field})` : field);
+};
+
 /** `"a", "b" or "c"` for messages naming a closed list. */
 export function listWords(values: readonly string[]): string {
   const q = values.map((v) => `"${v}"`);
@@ -40,15 +49,15 @@ export const eSeriesSchema = z.enum(E_SERIES_NAMES, { error: `series must be one
 
 export const converterSchema = z.object({
   topology: topologySchema,
-  vin: finite('vin'),
-  vout: finite('vout'),
-  iout: finite('iout'),
-  fsw: finite('fsw'),
-  l: finite('l'),
-  rl: finite('rl').default(0),
-  c: finite('c'),
-  rc: finite('rc').default(0),
-  vd: finite('vd').default(0),
+  vin: stageNumber('converter.vin'),
+  vout: stageNumber('converter.vout'),
+  iout: stageNumber('converter.iout'),
+  fsw: stageNumber('converter.fsw'),
+  l: stageNumber('converter.l'),
+  rl: stageNumber('converter.rl').default(0),
+  c: stageNumber('converter.c'),
+  rc: stageNumber('converter.rc').default(0),
+  vd: stageNumber('converter.vd').default(0),
 });
 
 /**
@@ -57,9 +66,9 @@ export const converterSchema = z.object({
  */
 export const modulatorFieldsSchema = z.object({
   mode: modulatorModeSchema.optional(),
-  vramp: finite('vramp').optional(),
-  ri: finite('ri').optional(),
-  se: finite('se').optional(),
+  vramp: stageNumber('modulator.vramp').optional(),
+  ri: stageNumber('modulator.ri').optional(),
+  se: stageNumber('modulator.se').optional(),
 });
 export const modulatorSchema = modulatorFieldsSchema
   .superRefine((m, ctx) => {
@@ -71,20 +80,20 @@ export const modulatorSchema = modulatorFieldsSchema
   })
   .transform((m): ModulatorInput => (m.mode === 'peak-current' ? { mode: m.mode, ri: m.ri ?? 0, se: m.se ?? 0 } : { ...(m.mode ? { mode: m.mode } : {}), vramp: m.vramp ?? 0 }));
 
-export const feedbackSchema = z.object({ vref: finite('vref') });
+export const feedbackSchema = z.object({ vref: stageNumber('feedback.vref') });
 
 export const compensatorSchema = z.object({
   type: compensatorTypeSchema,
   amplifier: amplifierSchema.optional(),
-  r1: finite('r1'),
-  r2: finite('r2').optional(),
-  r3: finite('r3').optional(),
-  c1: finite('c1'),
-  c2: finite('c2').optional(),
-  c3: finite('c3').optional(),
+  r1: finite(PARTS.r1.name),
+  r2: finite(PARTS.r2.name).optional(),
+  r3: finite(PARTS.r3.name).optional(),
+  c1: finite(PARTS.c1.name),
+  c2: finite(PARTS.c2.name).optional(),
+  c3: finite(PARTS.c3.name).optional(),
   gm: finite('gm').optional(),
   ro: finite('ro').optional(),
-  rb: finite('rb').optional(),
+  rb: finite(PARTS.rb.name).optional(),
   opamp: z.object({ a0: finite('a0'), gbw: finite('gbw') }).optional(),
 });
 

@@ -105,7 +105,7 @@ describe('reading design files', () => {
     const file = valid();
     file.input.converter.l = 'ten microhenry';
     const c = readDesignFile(file);
-    expect(!c.ok && c.issues[0]).toMatchObject({ path: 'input.converter.l', message: 'l must be a number' });
+    expect(!c.ok && c.issues[0]).toMatchObject({ path: 'input.converter.l', message: 'Inductance L (l) must be a number' });
     expect(readDesignFile(null).ok).toBe(false);
   });
 

@@ -1,3 +1,4 @@
+import { formatIsoDay } from '@/lib/format';
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { getSignoffState, listRevisions } from '@/db/queries';
@@ -72,7 +73,7 @@ export default async function HandoffPage({ params, searchParams }: Props) {
           </nav>
         </div>
         <div className="text-sm text-slate-600">
-          <SignoffBadge state={state} /> <span className="ml-2">saved {revision.createdAt.toISOString().slice(0, 10)} by {revision.authorName}</span>
+          <SignoffBadge state={state} /> <span className="ml-2">saved {formatIsoDay(revision.createdAt)} by {revision.authorName}</span>
           {revision.note && <span className="ml-2 italic">“{revision.note}”</span>}
         </div>
         <ExportButtons designId={design.id} revision={revision.number} />

@@ -4,7 +4,6 @@ import { getTeamSignoffSettings, getUserById, listTeamMembers, submitForReview }
 import { eligibleReviewers, maySubmit } from '@/lib/signoff-policy';
 import { parseJson, withUser } from '@/lib/api';
 import { notifyReviewRequested } from '@/lib/notify';
-import type { AnalyzeRequest } from '@/lib/engine/types';
 import { summarizeRange, worstCaseSentence } from '@/lib/range-summary';
 import { requireRevision, runSignoff } from '@/lib/revision-access';
 import { submitForReviewSchema } from '@/lib/validation/signoff';
@@ -19,7 +18,7 @@ export const POST = withUser<P>(
     const db = getDb();
     const event = runSignoff(() => submitForReview(db, ref, { actorId: user.id, reviewerId: body.reviewerId, message: body.message }));
     // The reviewer signs off the worst case: the mail states it (a range no circuit can be says so).
-    const range = summarizeRange(revision.input as AnalyzeRequest);
+    const range = summarizeRange(revision.input);
     const worstCase = range.ok ? worstCaseSentence(range.value) : `Worst case not available: ${range.message}`;
     // The named reviewer, or every member who may review when none is named.
     const team = getTeamSignoffSettings(db, user.teamId);
