@@ -49,7 +49,7 @@ describe.runIf(run)('Tune across the operating range', () => {
     await page.getByLabel('Samples').selectOption('10000');
     await page.getByTestId('spread-run').click();
     await page.getByTestId('spread-result').waitFor({ timeout: 60_000 });
-    await page.getByTestId('hist-pm').waitFor();
+    await page.getByTestId('hist-pm').waitFor({ state: 'attached' });
     await expect.poll(() => page.getByTestId('spread-share').textContent()).toMatch(/% of 10,000 simulated builds meet/);
     await page.getByTestId('corners-family').check();
     await screenshot(page, 'range-tune');
