@@ -77,7 +77,7 @@ export function acceptInvitation(
 ) {
   return db.transaction(
     (tx) => {
-      const txDb = tx as unknown as Db;
+      const txDb: Db = tx;
       const inv = findInvitation(txDb, token);
       if (!inv) throw new InvitationError(404, 'token', 'This invitation is not valid any more; ask the team admin for a new one');
       let user = getUserByEmail(txDb, inv.email);

@@ -149,7 +149,7 @@ export function bumpSessionVersion(db: Db, userId: number) {
 /** A new password hash (computed by the caller, off the event loop); ends every session of the user. */
 export function setPasswordHash(db: Db, userId: number, passwordHash: string) {
   db.transaction((tx) => {
-    const txDb = tx as unknown as Db;
+    const txDb: Db = tx;
     txDb.update(users).set({ passwordHash }).where(eq(users.id, userId)).run();
     bumpSessionVersion(txDb, userId);
     writeAudit(txDb, { teamId: null, userId, action: 'user.password-changed', entityType: 'user', entityId: userId, detail: {} });
@@ -159,7 +159,7 @@ export function setPasswordHash(db: Db, userId: number, passwordHash: string) {
 /** Remove a member from a team and end their sessions; the last admin cannot be removed. */
 export function removeTeamMember(db: Db, actorId: number, teamId: number, userId: number) {
   return db.transaction((tx) => {
-    const txDb = tx as unknown as Db;
+    const txDb: Db = tx;
     const current = getMembership(txDb, userId, teamId);
     if (!current) throw new MembershipError('userId', 'That user is not a member of this team');
     if (current.role === 'admin' && listTeamMembers(txDb, teamId).filter((m) => m.role === 'admin').length <= 1)
