@@ -1,56 +1,44 @@
 'use client';
 
+import { zodResolver } from '@hookform/resolvers/zod';
 import { signIn } from 'next-auth/react';
-import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import type { z } from 'zod';
+import { signInSchema } from '@/lib/validation/account';
+import { Button } from '@/components/ui/button';
+import { Field, FormError, inputClass } from '@/components/ui/field';
 
+type Fields = z.input<typeof signInSchema>;
+
+/**
+ * Email and password through next-auth's credentials provider, which checks the same schema.
+ * A wrong pair never says which of the two was wrong.
+ */
 export function SignInForm({ callbackUrl }: { callbackUrl: string }) {
-  const [error, setError] = useState<string | null>(null);
-  const [pending, setPending] = useState(false);
+  const form = useForm<Fields, unknown, z.output<typeof signInSchema>>({ resolver: zodResolver(signInSchema), defaultValues: { email: '', password: '' } });
+  const { errors, isSubmitting } = form.formState;
 
-  async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
-    e.preventDefault();
-    const form = new FormData(e.currentTarget);
-    setPending(true);
-    setError(null);
-    const res = await signIn('credentials', {
-      email: String(form.get('email') ?? ''),
-      password: String(form.get('password') ?? ''),
-      redirect: false,
-    });
-    setPending(false);
-    if (res?.status === 429 || res?.error === 'TooManyAttempts') {
-      setError('Too many failed sign-ins for this account or from this network. Wait a few minutes, then try again.');
-      return;
-    }
-    if (!res || res.error) {
-      setError('That email and password do not match an account.');
-      return;
-    }
+  const onSubmit = form.handleSubmit(async ({ email, password }) => {
+    const res = await signIn('credentials', { email, password, redirect: false }).catch(() => null);
+    if (res?.status === 429 || res?.error === 'TooManyAttempts')
+      return form.setError('root', { message: 'Too many failed sign-ins for this account or from this network. Wait a few minutes, then try again.' });
+    if (!res) return form.setError('root', { message: 'The server could not be reached; check the connection and try again.' });
+    if (res.error) return form.setError('root', { message: 'That email and password do not match an account.' });
     window.location.assign(callbackUrl);
-  }
+  });
 
   return (
     <form onSubmit={onSubmit} className="space-y-4" noValidate>
-      <div>
-        <label htmlFor="email" className="label">
-          Email
-        </label>
-        <input id="email" name="email" type="email" autoComplete="username" required className="input" />
-      </div>
-      <div>
-        <label htmlFor="password" className="label">
-          Password
-        </label>
-        <input id="password" name="password" type="password" autoComplete="current-password" required className="input" />
-      </div>
-      {error && (
-        <p role="alert" data-testid="signin-error" className="rounded-md bg-red-50 px-3 py-2 text-sm text-red-700">
-          {error}
-        </p>
-      )}
-      <button type="submit" className="btn-primary w-full justify-center" disabled={pending}>
-        {pending ? 'Signing in…' : 'Sign in'}
-      </button>
+      <Field label="Email" htmlFor="email" error={errors.email?.message}>
+        <input id="email" type="email" autoComplete="username" className={inputClass(errors.email?.message)} aria-invalid={!!errors.email} {...form.register('email')} />
+      </Field>
+      <Field label="Password" htmlFor="password" error={errors.password?.message}>
+        <input id="password" type="password" autoComplete="current-password" className={inputClass(errors.password?.message)} aria-invalid={!!errors.password} {...form.register('password')} />
+      </Field>
+      <FormError message={errors.root?.message} testId="signin-error" />
+      <Button type="submit" variant="primary" className="w-full justify-center" disabled={isSubmitting}>
+        {isSubmitting ? 'Signing in…' : 'Sign in'}
+      </Button>
     </form>
   );
 }

@@ -9,6 +9,7 @@ import { index, integer, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqli
 import { TOPOLOGIES, type AnalyzeRequest } from '../lib/engine/types';
 import type { BenchPoints } from '../lib/handoff/bench-parse';
 import type { RevisionSummary } from '../lib/revision-summary';
+import { ROLES, type Role } from '../lib/catalog/roles';
 import { SIGNOFF_STATES, type SignoffState } from '../lib/catalog/signoff';
 
 const createdAt = () =>
@@ -16,8 +17,7 @@ const createdAt = () =>
     .notNull()
     .default(sql`(unixepoch('subsec') * 1000)`);
 
-export const ROLES = ['admin', 'designer', 'reviewer', 'viewer'] as const;
-export type Role = (typeof ROLES)[number];
+export { ROLES, type Role };
 
 export { SIGNOFF_STATES, type SignoffState };
 

@@ -10,6 +10,7 @@ import type { Role } from '@/db/schema';
 import { getAuthSecret } from './auth-secret';
 import { comparePassword } from './password-hash';
 import { safeCallbackUrl } from './safe-redirect';
+import { signInSchema } from './validation/account';
 
 export const TEAM_COOKIE = 'pw-team';
 
@@ -33,10 +34,12 @@ export const authOptions: NextAuthOptions = {
       name: 'Email and password',
       credentials: { email: { label: 'Email', type: 'email' }, password: { label: 'Password', type: 'password' } },
       async authorize(credentials) {
-        if (!credentials?.email || !credentials.password) return null;
+        const parsed = signInSchema.safeParse(credentials ?? {});
+        if (!parsed.success) return null;
+        const { email, password } = parsed.data;
         // An unknown e-mail is compared against a dummy hash: the same work and time as a wrong password.
-        const user = getUserByEmail(getDb(), credentials.email);
-        const ok = await comparePassword(credentials.password, user?.passwordHash);
+        const user = getUserByEmail(getDb(), email);
+        const ok = await comparePassword(password, user?.passwordHash);
         return user && ok ? { id: String(user.id), email: user.email, name: user.name, sessionVersion: user.sessionVersion } : null;
       },
     }),

@@ -15,7 +15,7 @@ import {
   type BenchDetail,
   type BenchUploaded,
 } from '@/lib/queries/bench';
-import { ApiError } from '@/lib/queries/revisions';
+import { ApiError } from '@/lib/queries/request';
 
 const UNITS = [
   { value: '', label: 'Unit from the header (else Hz)' },

@@ -2,7 +2,8 @@
 
 import { useMutation } from '@tanstack/react-query';
 import { useRouter } from 'next/navigation';
-import { ApiError, requestJson } from '@/lib/queries/revisions';
+import { formatDay } from '@/lib/format';
+import { archiveDesignRequest, deleteDesignRequest } from '@/lib/queries/designs';
 
 interface Props {
   designId: number;
@@ -17,14 +18,11 @@ interface Props {
 export function ArchiveControl({ designId, name, archivedAt, canEdit, deletable }: Props) {
   const router = useRouter();
   const archive = useMutation({
-    mutationFn: (on: boolean) => requestJson(`/api/designs/${designId}/archive`, { method: on ? 'POST' : 'DELETE' }),
+    mutationFn: (on: boolean) => archiveDesignRequest(designId, on),
     onSuccess: (_d, on) => (on ? router.push('/designs') : router.refresh()),
   });
   const remove = useMutation({
-    mutationFn: async () => {
-      const res = await fetch(`/api/designs/${designId}`, { method: 'DELETE' });
-      if (!res.ok) throw new ApiError(res.status, await res.json().catch(() => ({})));
-    },
+    mutationFn: () => deleteDesignRequest(designId),
     onSuccess: () => router.push('/designs'),
   });
   const error = archive.error ?? remove.error;
@@ -33,7 +31,7 @@ export function ArchiveControl({ designId, name, archivedAt, canEdit, deletable 
     <div className="flex w-full flex-wrap items-center gap-2 text-sm" data-testid="archive-control">
       {archivedAt && (
         <p className="rounded-md bg-slate-200 px-3 py-1 text-slate-700" role="status" data-testid="archived-banner">
-          Archived {new Date(archivedAt).toLocaleDateString('en-GB', { dateStyle: 'medium' })}: read-only, hidden from the list. Its revisions are kept as they were.
+          Archived {formatDay(archivedAt)}: read-only, hidden from the list. Its revisions are kept as they were.
         </p>
       )}
       {canEdit &&

@@ -5,6 +5,7 @@ import Link from 'next/link';
 import { useSearchParams } from 'next/navigation';
 import { useEffect, useRef, useState } from 'react';
 import type { DesignPage } from '@/db/queries/designs';
+import { formatDateTime } from '@/lib/format';
 import { designListQueryOptions } from '@/lib/queries/designs';
 import { topologyLabel } from '@/lib/topology';
 import {
@@ -159,7 +160,7 @@ export function DesignsTable({
                 <SignoffBadge state={d.signoffState} />
               </td>
               <td className="num text-slate-600" title={d.updatedAt}>
-                {new Date(d.updatedAt).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' })}
+                {formatDateTime(d.updatedAt)}
               </td>
             </tr>
           ))}

@@ -1,8 +1,16 @@
 'use client';
 
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useMutation } from '@tanstack/react-query';
 import { useRouter } from 'next/navigation';
-import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { z } from 'zod';
+import { duplicateDesignators } from '@/lib/handoff/parts-list';
+import { updateDesignRequest } from '@/lib/queries/designs';
+import { showServerErrors } from '@/lib/queries/request';
 import { designUpdateSchema } from '@/lib/validation/design';
+import { Button } from '@/components/ui/button';
+import { FormError, inputClass } from '@/components/ui/field';
 
 interface PartField {
   part: string;
@@ -14,85 +22,84 @@ interface PartField {
   defaultDesignator: string;
 }
 
+/** The form holds text per part ('' = the default designator); what is sent is the shared schema's mapping. */
+const formSchema = z.object({
+  designatorMap: z
+    .record(z.string(), z.string())
+    .transform((m) => Object.fromEntries(Object.entries(m).filter(([, v]) => v.trim() !== '')))
+    .pipe(designUpdateSchema.shape.designatorMap.unwrap()),
+});
+type Fields = z.input<typeof formSchema>;
+
 export function DesignatorEditor({ designId, parts, canEdit }: { designId: number; parts: PartField[]; canEdit: boolean }) {
   const router = useRouter();
-  const [values, setValues] = useState<Record<string, string>>(() => Object.fromEntries(parts.map((p) => [p.part, p.current])));
-  const [errors, setErrors] = useState<Record<string, string>>({});
-  const [status, setStatus] = useState<'idle' | 'saving' | 'saved' | 'failed'>('idle');
-  const [message, setMessage] = useState('');
+  const start = { designatorMap: Object.fromEntries(parts.map((p) => [p.part, p.current])) };
+  const form = useForm<Fields, unknown, z.output<typeof formSchema>>({ resolver: zodResolver(formSchema), defaultValues: start });
+  const save = useMutation({
+    mutationFn: (v: z.output<typeof formSchema>) => updateDesignRequest(designId, v),
+    onMutate: () => form.clearErrors(),
+    onSuccess: (_d, v) => {
+      form.reset({ designatorMap: { ...start.designatorMap, ...v.designatorMap } }, { keepValues: true });
+      router.refresh();
+    },
+    onError: (err) => showServerErrors(err, parts.map((p) => `designatorMap.${p.part}` as const), form.setError, 'The mapping was not saved; try again'),
+  });
 
-  const defaults = Object.fromEntries(parts.map((p) => [p.part, p.defaultDesignator]));
-  const effective = (part: string) => (values[part]?.trim() || defaults[part]).toUpperCase();
-  const dupes = new Set(parts.map((p) => effective(p.part)).filter((d, i, all) => all.indexOf(d) !== i));
+  const values = form.watch('designatorMap');
+  const effective = (p: PartField) => (values[p.part]?.trim() || p.defaultDesignator).toUpperCase();
+  // The parts list's own rule: each part needs its own designator.
+  const dupes = new Set(duplicateDesignators(parts.map((p) => ({ designator: effective(p) }))));
+  const errors = form.formState.errors.designatorMap as Record<string, { message?: string } | undefined> | undefined;
 
-  async function save(e: React.FormEvent) {
-    e.preventDefault();
-    const map = Object.fromEntries(Object.entries(values).filter(([, v]) => v.trim() !== '').map(([k, v]) => [k, v.trim()]));
-    const parsed = designUpdateSchema.safeParse({ designatorMap: map });
-    if (!parsed.success) {
-      setErrors(Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[1] ?? ''), i.message])));
-      return;
-    }
-    if (dupes.size > 0) {
-      setStatus('failed');
-      setMessage(`Each part needs its own designator (${[...dupes].join(', ')} used twice).`);
-      return;
-    }
-    setErrors({});
-    setStatus('saving');
-    const res = await fetch(`/api/designs/${designId}`, {
-      method: 'PATCH',
-      headers: { 'content-type': 'application/json' },
-      body: JSON.stringify({ designatorMap: map }),
-    }).catch(() => null);
-    if (!res?.ok) {
-      const body = res ? await res.json().catch(() => ({})) : {};
-      setStatus('failed');
-      setMessage(body.error ?? 'The mapping was not saved; try again');
-      return;
-    }
-    setStatus('saved');
-    setMessage('Saved. Exports use these designators.');
-    router.refresh();
-  }
+  const onSubmit = form.handleSubmit((v) => {
+    if (dupes.size > 0) return form.setError('root', { message: `Each part needs its own designator (${[...dupes].join(', ')} used twice).` });
+    save.mutate(v);
+  });
 
   return (
-    <form onSubmit={save} className="space-y-3" data-testid="designator-editor">
+    <form onSubmit={onSubmit} className="space-y-3" data-testid="designator-editor" noValidate>
       <div className="grid grid-cols-2 gap-3 sm:grid-cols-4">
-        {parts.map((p) => (
-          <label key={p.part} className="block">
-            <span className="label">{p.label}</span>
-            <input
-              className={`input font-mono ${errors[p.part] || dupes.has(effective(p.part)) ? 'input-error' : ''}`}
-              name={p.part}
-              value={values[p.part] ?? ''}
-              placeholder={defaults[p.part]}
-              disabled={!canEdit}
-              maxLength={10}
-              autoComplete="off"
-              onChange={(e) => {
-                setValues({ ...values, [p.part]: e.target.value });
-                setStatus('idle');
-              }}
-            />
-            {errors[p.part] && <span className="field-error">{errors[p.part]}</span>}
-          </label>
-        ))}
+        {parts.map((p) => {
+          const error = errors?.[p.part]?.message;
+          return (
+            <div key={p.part}>
+              <label className="label" htmlFor={`designator-${p.part}`}>
+                {p.label}
+              </label>
+              <input
+                id={`designator-${p.part}`}
+                className={inputClass(error || (dupes.has(effective(p)) ? 'duplicate' : null), 'font-mono')}
+                placeholder={p.defaultDesignator}
+                disabled={!canEdit}
+                maxLength={10}
+                autoComplete="off"
+                aria-invalid={!!error || dupes.has(effective(p))}
+                {...form.register(`designatorMap.${p.part}`)}
+              />
+              {error && (
+                <p className="field-error" role="alert">
+                  {error}
+                </p>
+              )}
+            </div>
+          );
+        })}
       </div>
       {canEdit ? (
         <div className="flex items-center gap-3">
-          <button type="submit" className="btn-primary" disabled={status === 'saving'}>
-            {status === 'saving' ? 'Saving…' : 'Save designators'}
-          </button>
-          {message && (
-            <span className={`text-sm ${status === 'failed' ? 'text-rose-700' : 'text-emerald-700'}`} role="status">
-              {message}
+          <Button type="submit" variant="primary" disabled={save.isPending}>
+            {save.isPending ? 'Saving…' : 'Save designators'}
+          </Button>
+          {save.isSuccess && !form.formState.isDirty && (
+            <span className="text-sm text-emerald-700" role="status">
+              Saved. Exports use these designators.
             </span>
           )}
         </div>
       ) : (
         <p className="text-sm text-slate-500">Only designers and admins change the mapping.</p>
       )}
+      <FormError message={form.formState.errors.root?.message} />
     </form>
   );
 }

@@ -1,32 +1,16 @@
 'use client';
 
+import { useMutation } from '@tanstack/react-query';
 import Link from 'next/link';
-import { useState } from 'react';
+import { importDesignRequest } from '@/lib/queries/designs';
+import { ApiError } from '@/lib/queries/request';
 
-interface Imported {
-  id: number;
-  name: string;
-  revision: number;
-  resultsMatch: boolean;
-}
-
+/** A design file exported from Phasewright becomes a new design; a bad file lists what is wrong, by path. */
 export function ImportDesign() {
-  const [busy, setBusy] = useState(false);
-  const [error, setError] = useState<{ message: string; issues: { path: string; message: string }[] } | null>(null);
-  const [done, setDone] = useState<Imported | null>(null);
-
-  async function onFile(file: File) {
-    setBusy(true);
-    setError(null);
-    setDone(null);
-    const res = await fetch('/api/designs/import', { method: 'POST', headers: { 'content-type': 'application/json' }, body: await file.text() }).catch(
-      () => null,
-    );
-    const body = res ? await res.json().catch(() => ({})) : { error: 'The server could not be reached' };
-    setBusy(false);
-    if (!res?.ok) setError({ message: body.error ?? 'The design file was not imported', issues: body.issues ?? [] });
-    else setDone(body as Imported);
-  }
+  const upload = useMutation({ mutationFn: async (file: File) => importDesignRequest(await file.text()) });
+  const error = upload.error;
+  const issues = error instanceof ApiError ? (error.body.issues ?? []) : [];
+  const done = upload.data;
 
   return (
     <section className="card p-4" aria-labelledby="import-heading" data-testid="import-design">
@@ -42,21 +26,21 @@ export function ImportDesign() {
           type="file"
           accept=".json,application/json"
           className="sr-only"
-          disabled={busy}
+          disabled={upload.isPending}
           onChange={(e) => {
             const f = e.target.files?.[0];
-            if (f) void onFile(f);
+            if (f) upload.mutate(f);
             e.target.value = '';
           }}
         />
-        {busy ? 'Importing…' : 'Choose design file…'}
+        {upload.isPending ? 'Importing…' : 'Choose design file…'}
       </label>
       {error && (
         <div className="mt-3 rounded border border-rose-300 bg-rose-50 p-3 text-sm text-rose-800" role="alert">
-          <p className="font-medium">{error.message}</p>
-          {error.issues.length > 0 && (
+          <p className="font-medium">{error.message || 'The design file was not imported'}</p>
+          {issues.length > 0 && (
             <ul className="mt-1 list-disc pl-5">
-              {error.issues.slice(0, 8).map((i) => (
+              {issues.slice(0, 8).map((i) => (
                 <li key={i.path + i.message}>
                   <code>{i.path}</code>: {i.message}
                 </li>

@@ -1,12 +1,14 @@
 'use client';
 
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useMutation } from '@tanstack/react-query';
-import { useRouter } from 'next/navigation';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
-import { ApiError, requestJson } from '@/lib/queries/revisions';
-import { formatDate } from './format';
+import { formatDateTime } from '@/lib/format';
+import { addRemark } from '@/lib/queries/review';
+import { remarkSchema } from '@/lib/validation/signoff';
+import { Button } from '@/components/ui/button';
+import { Field, FormError, inputClass } from '@/components/ui/field';
+import { useReviewWrite } from './use-review-write';
 
 export interface CompareRemark {
   id: number;
@@ -17,34 +19,26 @@ export interface CompareRemark {
   at: string;
 }
 
-const formSchema = z.object({
-  target: z.enum(['a', 'b']),
-  body: z.string().trim().min(1, 'Write the remark first').max(4000, 'At most 4000 characters'),
-});
-type FormValues = z.infer<typeof formSchema>;
+/** The shared remark schema plus which of the two revisions the remark is on. */
+const formSchema = remarkSchema.pick({ body: true }).extend({ target: z.enum(['a', 'b']) });
+type FormValues = z.input<typeof formSchema>;
+const FIELDS = ['body', 'target'] as const;
 
 /**
  * Remarks written while comparing two revisions: on either side (B by default), kept with
  * that revision and mailed to its author and reviewer. Earlier remarks of both are listed.
  */
 export function CompareRemarks({ designId, a, b, remarks, canRemark }: { designId: number; a: number; b: number; remarks: CompareRemark[]; canRemark: boolean }) {
-  const router = useRouter();
-  const form = useForm<FormValues>({ resolver: zodResolver(formSchema), defaultValues: { target: 'b', body: '' } });
-  const post = useMutation({
-    mutationFn: (v: FormValues) => {
+  const form = useForm<FormValues, unknown, z.output<typeof formSchema>>({ resolver: zodResolver(formSchema), defaultValues: { target: 'b', body: '' } });
+  const post = useReviewWrite(
+    form,
+    FIELDS,
+    (v: z.output<typeof formSchema>) => {
       const [number, other] = v.target === 'b' ? [b, a] : [a, b];
-      return requestJson<{ mailed: number }>(`/api/designs/${designId}/revisions/${number}/remarks`, {
-        method: 'POST',
-        headers: { 'content-type': 'application/json' },
-        body: JSON.stringify({ body: v.body, comparedWith: other }),
-      });
+      return addRemark(designId, number, { body: v.body, comparedWith: other });
     },
-    onSuccess: () => {
-      form.reset({ target: form.getValues('target'), body: '' });
-      router.refresh();
-    },
-    onError: (e) => form.setError('body', { message: e instanceof ApiError ? e.message : 'The remark was not saved; try again' }),
-  });
+    () => form.reset({ target: form.getValues('target'), body: '' }),
+  );
   const error = form.formState.errors.body?.message;
 
   return (
@@ -62,7 +56,7 @@ export function CompareRemarks({ designId, a, b, remarks, canRemark }: { designI
                 on r{m.number}
                 {m.comparedWith ? ` (comparing with r${m.comparedWith})` : ''}
               </span>
-              <span className="num ml-auto">{formatDate(m.at)}</span>
+              <span className="num ml-auto">{formatDateTime(m.at)}</span>
             </div>
             <p className="mt-1 whitespace-pre-wrap text-slate-800">{m.body}</p>
           </li>
@@ -80,18 +74,13 @@ export function CompareRemarks({ designId, a, b, remarks, canRemark }: { designI
             </label>
             <span className="text-xs text-slate-500">Its author and reviewer get it by mail.</span>
           </div>
-          <label className="label" htmlFor="compare-remark">
-            Remark
-          </label>
-          <textarea id="compare-remark" className={`input min-h-[60px] ${error ? 'input-error' : ''}`} {...form.register('body')} />
-          {error && (
-            <p role="alert" className="field-error">
-              {error}
-            </p>
-          )}
-          <button type="submit" className="btn-secondary" disabled={post.isPending}>
+          <Field label="Remark" htmlFor="compare-remark" error={error}>
+            <textarea id="compare-remark" className={inputClass(error, 'min-h-[60px]')} {...form.register('body')} />
+          </Field>
+          <FormError message={form.formState.errors.root?.message} />
+          <Button type="submit" disabled={post.isPending}>
             Add remark
-          </button>
+          </Button>
         </form>
       )}
     </section>

@@ -59,6 +59,3 @@ export function formatChange(kind: DiffKind, a: number | string | null, b: numbe
       return a === 0 ? `${formatValue(kind, a, unit)} → ${formatValue(kind, b, unit)}` : `${signed(((b - a) / Math.abs(a)) * 100, 1)} %`;
   }
 }
-
-/** Dates on review screens: the shared format (fixed time zone). */
-export { formatDateTime as formatDate } from '@/lib/format';

@@ -5,7 +5,7 @@ import Link from 'next/link';
 import { useState } from 'react';
 import { SignoffBadge } from '@/components/designs/signoff-badge';
 import { formatSi } from '@/lib/units/si';
-import { formatDate } from './format';
+import { formatDateTime } from '@/lib/format';
 
 export interface RevisionRow {
   number: number;
@@ -91,7 +91,7 @@ export function RevisionTable({ designId, rows, selected }: { designId: number; 
                   </td>
                   <td className="whitespace-nowrap">{r.authorName}</td>
                   <td className="num whitespace-nowrap text-slate-600" title={r.createdAt}>
-                    {formatDate(r.createdAt)}
+                    {formatDateTime(r.createdAt)}
                   </td>
                   <td className="max-w-xs truncate text-slate-700" title={r.note}>
                     {r.note || <span className="text-slate-400">—</span>}

@@ -5,7 +5,8 @@ import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import type { AnalyzeRequest } from '@/lib/engine/types';
-import { ApiError, designKeys, saveRevision, type SavedRevision } from '@/lib/queries/revisions';
+import { ApiError } from '@/lib/queries/request';
+import { designKeys, saveRevision, type SavedRevision } from '@/lib/queries/revisions';
 
 interface Props {
   designId: number;

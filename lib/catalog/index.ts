@@ -8,6 +8,7 @@
  *   signoff.ts       sign-off states and their labels
  *   traces.ts        Bode trace colours
  *   topologies.ts    topology, modulator-mode and amplifier labels
+ *   roles.ts         team roles
  */
 export * from './stage-inputs';
 export * from './compensators';
@@ -16,3 +17,4 @@ export * from './signoff';
 export * from './traces';
 export * from './topologies';
 export * from './modes';
+export * from './roles';

@@ -124,7 +124,7 @@ export function buildPartsList(
 }
 
 /** Designators used by more than one row (a mapping mistake to show before export). */
-export function duplicateDesignators(rows: readonly PartRow[]): string[] {
+export function duplicateDesignators(rows: readonly Pick<PartRow, 'designator'>[]): string[] {
   const seen = new Map<string, number>();
   for (const r of rows) seen.set(r.designator.toUpperCase(), (seen.get(r.designator.toUpperCase()) ?? 0) + 1);
   return [...seen].filter(([, n]) => n > 1).map(([d]) => d);

@@ -3,7 +3,9 @@ import type { MeasuredMargins } from '@/lib/handoff/bench-compare';
 import type { BenchPoints } from '@/lib/handoff/bench-parse';
 import type { BenchDetailBody, BenchSummaryRow, BenchUploadedBody } from '@/lib/handoff/bench-responses';
 import type { Jsonified } from '@/lib/json';
-import { ApiError, designKeys, requestJson } from './revisions';
+import type { BenchShiftedBody } from '@/lib/response-bodies';
+import { designKeys } from './revisions';
+import { requestJson, sendJson } from './request';
 
 /**
  * Bench data on the client: query options with stable keys, the upload, and a hook that
@@ -55,16 +57,9 @@ export function uploadBenchData(designId: number, file: File, opts: { name?: str
 }
 
 export const setBenchPhaseShift = (designId: number, benchId: number, phaseShifted: boolean) =>
-  requestJson<{ id: number; phaseShifted: boolean }>(`/api/designs/${designId}/bench/${benchId}`, {
-    method: 'PATCH',
-    headers: { 'content-type': 'application/json' },
-    body: JSON.stringify({ phaseShifted }),
-  });
+  sendJson<Jsonified<BenchShiftedBody>>(`/api/designs/${designId}/bench/${benchId}`, 'PATCH', { phaseShifted });
 
-export async function deleteBenchData(designId: number, benchId: number) {
-  const res = await fetch(`/api/designs/${designId}/bench/${benchId}`, { method: 'DELETE' });
-  if (!res.ok) throw new ApiError(res.status, await res.json().catch(() => ({})));
-}
+export const deleteBenchData = (designId: number, benchId: number) => sendJson<unknown>(`/api/designs/${designId}/bench/${benchId}`, 'DELETE');
 
 /**
  * The newest bench data of a design (with `revision`: of that revision) as a plot overlay, or

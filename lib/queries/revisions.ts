@@ -24,8 +24,7 @@ export interface SaveRevisionBody {
   input: AnalyzeRequest;
 }
 
-export { ApiError, requestJson } from './request';
-import { requestJson } from './request';
+import { requestJson, sendJson } from './request';
 
 export const revisionsQueryOptions = (designId: number) =>
   queryOptions({
@@ -41,9 +40,4 @@ export const revisionQueryOptions = (designId: number, number: number) =>
   });
 
 /** POST a new revision; throws ApiError (409 carries latestRevision). */
-export const saveRevision = (designId: number, body: SaveRevisionBody) =>
-  requestJson<SavedRevision>(`/api/designs/${designId}/revisions`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json' },
-    body: JSON.stringify(body),
-  });
+export const saveRevision = (designId: number, body: SaveRevisionBody) => sendJson<SavedRevision>(`/api/designs/${designId}/revisions`, 'POST', body);

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { ROLES } from '@/db/schema';
+import { ROLES } from '@/lib/catalog/roles';
 
 export const roleSchema = z.enum(ROLES, { error: 'role must be admin, designer, reviewer or viewer' });
 

@@ -1,67 +1,33 @@
 'use server';
 
 import { revalidatePath } from 'next/cache';
+import type { z } from 'zod';
 import { getDb } from '@/db/client';
-import { createInvitation, MembershipError, setMemberRole } from '@/db/queries';
+import { MembershipError, setMemberRole } from '@/db/queries';
+import type { FieldIssue } from '@/lib/engine/types';
 import { can, getCurrentUser } from '@/lib/auth';
-import { notifyInvitation } from '@/lib/notify';
-import { invitationSchema } from '@/lib/validation/account';
 import { setRoleSchema } from '@/lib/validation/team';
 
-export interface ActionState {
-  ok?: boolean;
-  message?: string;
-  fieldErrors?: Record<string, string>;
-}
-
-async function requireAdmin() {
-  const user = await getCurrentUser();
-  if (!user) return { error: 'Sign in first' } as const;
-  if (!can.manageTeam(user.role)) return { error: `Your role (${user.role}) may not manage the team` } as const;
-  return { user } as const;
-}
-
-function blankToUndefined(v: FormDataEntryValue | null) {
-  const s = typeof v === 'string' ? v.trim() : '';
-  return s === '' ? undefined : s;
-}
+/** A server action's answer, in the API's error shape when it failed (the form puts issues beside fields). */
+export type ActionAnswer = { ok: true; message: string } | { ok: false; error: string; issues?: FieldIssue[] };
 
 /**
- * Invite an address to the team. The same happens, and the same answer comes
- * back, whether or not the address has an account: the admin never learns which.
+ * Change a member's role (admins). Called by the Team page's role select through react-hook-form;
+ * checked here again with the same schema, whatever the client sent.
  */
-export async function addMemberAction(_prev: ActionState, form: FormData): Promise<ActionState> {
-  const auth = await requireAdmin();
-  if ('error' in auth) return { message: auth.error };
-  const parsed = invitationSchema.safeParse({ email: form.get('email'), role: form.get('role') });
-  if (!parsed.success) {
-    const fieldErrors: Record<string, string> = {};
-    for (const i of parsed.error.issues) fieldErrors[String(i.path[0])] ??= i.message;
-    return { fieldErrors, message: 'Check the highlighted fields' };
-  }
+export async function setRoleAction(values: z.input<typeof setRoleSchema>): Promise<ActionAnswer> {
+  const user = await getCurrentUser();
+  if (!user) return { ok: false, error: 'Sign in first' };
+  if (!can.manageTeam(user.role)) return { ok: false, error: `Your role (${user.role}) may not manage the team` };
+  const parsed = setRoleSchema.safeParse(values);
+  if (!parsed.success) return { ok: false, error: 'Check the role', issues: parsed.error.issues.map((i) => ({ path: i.path.join('.'), message: i.message })) };
   try {
-    const { token } = createInvitation(getDb(), auth.user.id, auth.user.teamId, parsed.data);
-    await notifyInvitation({ to: parsed.data.email, teamId: auth.user.teamId, teamName: auth.user.teamName, role: parsed.data.role, by: auth.user.name, token });
-    revalidatePath('/admin');
-    return { ok: true, message: `Invitation sent to ${parsed.data.email} as ${parsed.data.role}` };
-  } catch (err) {
-    console.error(err);
-    return { message: 'Could not send the invitation; nothing was changed' };
-  }
-}
-
-export async function setRoleAction(_prev: ActionState, form: FormData): Promise<ActionState> {
-  const auth = await requireAdmin();
-  if ('error' in auth) return { message: auth.error };
-  const parsed = setRoleSchema.safeParse({ userId: form.get('userId'), role: form.get('role') });
-  if (!parsed.success) return { message: parsed.error.issues[0]?.message ?? 'Invalid role change' };
-  try {
-    setMemberRole(getDb(), auth.user.id, auth.user.teamId, parsed.data.userId, parsed.data.role);
+    setMemberRole(getDb(), user.id, user.teamId, parsed.data.userId, parsed.data.role);
     revalidatePath('/admin');
     return { ok: true, message: 'Role changed' };
   } catch (err) {
-    if (err instanceof MembershipError) return { message: err.message };
+    if (err instanceof MembershipError) return { ok: false, error: err.message, issues: [{ path: 'role', message: err.message }] };
     console.error(err);
-    return { message: 'Could not change the role; nothing was changed' };
+    return { ok: false, error: 'Could not change the role; nothing was changed' };
   }
 }

@@ -4,6 +4,7 @@ import { getDb } from '@/db/client';
 import { getTeamSignoffSettings, listAudit, listTeamMembers } from '@/db/queries';
 import { can, requireUser } from '@/lib/auth';
 import { describeAudit } from '@/lib/audit-text';
+import { formatIsoMinute } from '@/lib/format';
 import { AddMemberForm, RoleSelect } from '@/components/admin/member-forms';
 import { SignoffSettings } from '@/components/admin/signoff-settings';
 
@@ -49,7 +50,7 @@ export default async function AdminPage() {
         <ol className="card divide-y divide-slate-100 text-sm">
           {audit.map((a) => (
             <li key={a.id} className="px-3 py-2">
-              <div className="font-mono text-xs text-slate-500">{a.createdAt.toISOString().replace('T', ' ').slice(0, 16)}</div>
+              <div className="font-mono text-xs text-slate-500">{formatIsoMinute(a.createdAt)}</div>
               <div>
                 <span className="font-medium">{a.userName ?? 'System'}</span> {describeAudit(a)}
               </div>

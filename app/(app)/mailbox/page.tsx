@@ -4,7 +4,7 @@ import { notFound } from 'next/navigation';
 import { getDb } from '@/db/client';
 import { getMailForMember, listMailForMember } from '@/db/queries';
 import { requireUser } from '@/lib/auth';
-import { formatDate } from '@/components/review/format';
+import { formatDateTime } from '@/lib/format';
 
 export const metadata: Metadata = { title: 'Mailbox' };
 
@@ -45,7 +45,7 @@ export default async function MailboxPage({ searchParams }: { searchParams: Prom
                 >
                   <div className="flex gap-2 text-xs text-slate-500">
                     <span className="truncate">to {msg.toAddress}</span>
-                    <span className="num ml-auto whitespace-nowrap">{formatDate(msg.createdAt)}</span>
+                    <span className="num ml-auto whitespace-nowrap">{formatDateTime(msg.createdAt)}</span>
                   </div>
                   <div className="truncate font-medium text-slate-900">{msg.subject || '(no subject)'}</div>
                 </Link>
@@ -57,7 +57,7 @@ export default async function MailboxPage({ searchParams }: { searchParams: Prom
               <header className="space-y-0.5 border-b border-slate-200 px-4 py-3 text-sm">
                 <h2 className="text-lg font-semibold">{open.subject || '(no subject)'}</h2>
                 <div className="text-slate-600">
-                  From {open.fromAddress} · to {open.toAddress} · {formatDate(open.createdAt)}
+                  From {open.fromAddress} · to {open.toAddress} · {formatDateTime(open.createdAt)}
                 </div>
               </header>
               {open.html ? (

@@ -5,6 +5,7 @@ import { can } from '@/lib/auth';
 import { HttpError, withUser } from '@/lib/api';
 import { analyze } from '@/lib/engine/analyze';
 import { readDesignFile, resultsMatch } from '@/lib/handoff/design-file';
+import { importedDesignBody } from '@/lib/response-bodies';
 import { summarizeAnalysis } from '@/lib/revision-summary';
 
 const MAX_BYTES = 1024 * 1024;
@@ -38,16 +39,7 @@ export const POST = withUser(
       summary: summarizeAnalysis(result),
       note: `Imported from a design file (${source})`,
     });
-    return NextResponse.json(
-      {
-        id: created.designId,
-        revision: created.revision,
-        name: design.name,
-        resultsMatch: resultsMatch(read.file.results, result.margins),
-        margins: { crossoverHz: result.margins.crossoverHz, phaseMarginDeg: result.margins.phaseMarginDeg, gainMarginDb: result.margins.gainMarginDb },
-      },
-      { status: 201 },
-    );
+    return NextResponse.json(importedDesignBody(created, design.name, resultsMatch(read.file.results, result.margins), result.margins), { status: 201 });
   },
   { allow: can.editDesigns, action: 'import designs', maxBytes: MAX_BYTES },
 );

@@ -4,6 +4,7 @@ import { createInvitation, listOpenInvitations } from '@/db/queries';
 import { can } from '@/lib/auth';
 import { parseJson, withUser } from '@/lib/api';
 import { notifyInvitation } from '@/lib/notify';
+import { invitationSentBody } from '@/lib/response-bodies';
 import { invitationSchema } from '@/lib/validation/account';
 
 /** Open invitations of the current team (admins). */
@@ -21,7 +22,7 @@ export const POST = withUser(
     const body = await parseJson(req, invitationSchema);
     const { token } = createInvitation(getDb(), user.id, user.teamId, body);
     await notifyInvitation({ to: body.email, teamId: user.teamId, teamName: user.teamName, role: body.role, by: user.name, token });
-    return NextResponse.json({ invited: body.email, role: body.role }, { status: 201 });
+    return NextResponse.json(invitationSentBody(body.email, body.role), { status: 201 });
   },
   { allow: can.manageTeam, action: 'invite members' },
 );

@@ -12,7 +12,7 @@ import { ComparePicker } from '@/components/review/compare-picker';
 import { CompareRemarks, type CompareRemark } from '@/components/review/compare-remarks';
 import { ComparePlot, type CompareLoop } from '@/components/review/compare-plot';
 import { DiffTable } from '@/components/review/diff-table';
-import { formatDate } from '@/components/review/format';
+import { formatDateTime } from '@/lib/format';
 import { MarginDeltas } from '@/components/review/margin-deltas';
 import { StepCompare } from '@/components/time-domain/step-compare';
 import { describeStep, stepOf, stepResponseOf } from '@/lib/step-summary';
@@ -105,7 +105,7 @@ export default async function ComparePage({ params, searchParams }: Props) {
               </span>
               <SignoffBadge state={states.get(r.number) ?? 'draft'} />
               <span className="ml-auto text-xs text-slate-500">
-                {r.authorName} · {formatDate(r.createdAt)}
+                {r.authorName} · {formatDateTime(r.createdAt)}
               </span>
             </div>
             <p className="mt-1 text-slate-700">{r.note || <span className="text-slate-400">No note</span>}</p>

@@ -7,6 +7,7 @@ import { HttpError, parseId, parseJson, withUser } from '@/lib/api';
 import { requireDesign } from '@/lib/design-access';
 import { analyze } from '@/lib/engine/analyze';
 import { benchDetailBody } from '@/lib/handoff/bench-responses';
+import { benchShiftedBody } from '@/lib/response-bodies';
 
 type P = { id: string; benchId: string };
 
@@ -45,7 +46,7 @@ export const PATCH = withUser<P>(
     const { design, bench } = requireBench(user, params);
     const body = await parseJson(req, patchSchema);
     setBenchPhaseShift(getDb(), user.id, user.teamId, design.id, bench.id, body.phaseShifted);
-    return NextResponse.json({ id: bench.id, phaseShifted: body.phaseShifted });
+    return NextResponse.json(benchShiftedBody(bench.id, body.phaseShifted));
   },
   { allow: can.editDesigns, action: 'change bench data' },
 );

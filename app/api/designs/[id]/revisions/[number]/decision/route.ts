@@ -4,6 +4,7 @@ import { decideSignoff } from '@/db/queries';
 import { parseJson, withUser } from '@/lib/api';
 import { mailEach, notifyDecision } from '@/lib/notify';
 import { mayEverReview } from '@/lib/signoff-policy';
+import { signoffStepBody } from '@/lib/response-bodies';
 import { requireRevision, runSignoff } from '@/lib/revision-access';
 import { decisionSchema } from '@/lib/validation/signoff';
 
@@ -23,7 +24,7 @@ export const POST = withUser<P>(
     const mailed = await mailEach(db, notifyUserIds, (to) =>
       notifyDecision({ to, by: user.name, teamId: user.teamId, revision, decision: body.decision, message: body.message }),
     );
-    return NextResponse.json({ state: event.state, event, mailed }, { status: 201 });
+    return NextResponse.json(signoffStepBody(event, mailed), { status: 201 });
   },
   { allow: mayEverReview, action: 'approve or request changes' },
 );

@@ -4,6 +4,7 @@ import { addRemark, getRevision, listRemarks, remarkRecipients } from '@/db/quer
 import { can } from '@/lib/auth';
 import { HttpError, parseJson, withUser } from '@/lib/api';
 import { mailEach, notifyRemark } from '@/lib/notify';
+import { remarkBody } from '@/lib/response-bodies';
 import { requireRevision } from '@/lib/revision-access';
 import { remarkSchema } from '@/lib/validation/signoff';
 
@@ -31,7 +32,7 @@ export const POST = withUser<P>(
     const mailed = await mailEach(db, remarkRecipients(db, ref.revisionId, user.id), (to) =>
       notifyRemark({ to, by: user.name, teamId: user.teamId, revision, comparedWith: row.comparedWith, body: body.body }),
     );
-    return NextResponse.json({ ...row, authorName: user.name, mailed }, { status: 201 });
+    return NextResponse.json(remarkBody(row, user.name, mailed), { status: 201 });
   },
   { allow: can.remark, action: 'write remarks' },
 );

@@ -4,6 +4,7 @@ import { getTeamSignoffSettings, listTeamMembers, submitForReview } from '@/db/q
 import { eligibleReviewers, maySubmit } from '@/lib/signoff-policy';
 import { parseJson, withUser } from '@/lib/api';
 import { mailEach, notifyReviewRequested } from '@/lib/notify';
+import { signoffStepBody } from '@/lib/response-bodies';
 import { summarizeRange, worstCaseSentence } from '@/lib/range-summary';
 import { requireRevision, runSignoff } from '@/lib/revision-access';
 import { submitForReviewSchema } from '@/lib/validation/signoff';
@@ -34,7 +35,7 @@ export const POST = withUser<P>(
         worstCase,
       }),
     );
-    return NextResponse.json({ state: event.state, event, mailed }, { status: 201 });
+    return NextResponse.json(signoffStepBody(event, mailed), { status: 201 });
   },
   { allow: maySubmit, action: 'submit revisions for review' },
 );
