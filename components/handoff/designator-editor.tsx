@@ -10,7 +10,7 @@ import { updateDesignRequest } from '@/lib/queries/designs';
 import { showServerErrors } from '@/lib/queries/request';
 import { designUpdateSchema } from '@/lib/validation/design';
 import { Button } from '@/components/ui/button';
-import { FormError, inputClass } from '@/components/ui/field';
+import { Field, FormError, inputClass } from '@/components/ui/field';
 
 interface PartField {
   part: string;
@@ -62,10 +62,7 @@ export function DesignatorEditor({ designId, parts, canEdit }: { designId: numbe
         {parts.map((p) => {
           const error = errors?.[p.part]?.message;
           return (
-            <div key={p.part}>
-              <label className="label" htmlFor={`designator-${p.part}`}>
-                {p.label}
-              </label>
+            <Field key={p.part} label={p.label} htmlFor={`designator-${p.part}`} error={error}>
               <input
                 id={`designator-${p.part}`}
                 className={inputClass(error || (dupes.has(effective(p)) ? 'duplicate' : null), 'font-mono')}
@@ -76,12 +73,7 @@ export function DesignatorEditor({ designId, parts, canEdit }: { designId: numbe
                 aria-invalid={!!error || dupes.has(effective(p))}
                 {...form.register(`designatorMap.${p.part}`)}
               />
-              {error && (
-                <p className="field-error" role="alert">
-                  {error}
-                </p>
-              )}
-            </div>
+            </Field>
           );
         })}
       </div>

@@ -8,7 +8,7 @@ const password = z
 
 /** The sign-in form; next-auth's credentials provider checks the same (lib/auth.ts). */
 export const signInSchema = z.object({
-  email: z.email({ error: 'enter your email address' }).trim(),
+  email: z.email({ error: 'enter a valid email address' }).trim(),
   password: z.string({ error: 'password must be text' }).min(1, 'enter your password').max(200, 'a password has at most 200 characters'),
 });
 
