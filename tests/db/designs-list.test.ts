@@ -96,7 +96,7 @@ describe('listDesignsPage', () => {
     for (const archived of ['active', 'archived', 'all'] as const)
       for (const topology of ['all', 'buck', 'boost', 'buck-boost'] as const)
         for (const status of ['all', 'unsaved', 'draft', 'in-review', 'approved'] as const) {
-          const where = [archivedWhere[archived]];
+          const where: string[] = [archivedWhere[archived]];
           if (topology !== 'all') where.push(`d.topology = '${topology}'`);
           if (status === 'unsaved') where.push('d.latest_revision IS NULL');
           else if (status !== 'all') where.push(`d.signoff_state = '${status}'`);
