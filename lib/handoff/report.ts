@@ -15,6 +15,7 @@ import type { ReportBench } from './report-bench';
 import { bodeSvg } from './svg-plot';
 import { timeDomainSections } from './report-time-domain';
 import { summarizeRange, worstCaseSentence, type RangeSummary } from '@/lib/range-summary';
+import esc from 'escape-html';
 
 export interface ReportInput {
   design: { name: string; description: string; topology: string };
@@ -121,8 +122,6 @@ function rangeSection(s: RangeSummary): string {
   return `<p><b>${esc(worstCaseSentence(s))}</b></p><div class="cols"><div>${rangeRows}</div><div>${worst}</div></div><p class="muted small">Corners: every combination of the range's extremes, compensator at nominal. Spread: every part drawn within its tolerance at nominal line and load.</p>`;
 }
 
-const esc = (s: string) =>
-  s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
 
 
 const date = formatIsoDay;
