@@ -10,7 +10,8 @@
  */
 import { analyze } from '@/lib/engine/analyze';
 import { SAMPLE_DESIGNS } from '@/lib/engine/samples';
-import type { AnalyzeRequest, CompensatorInput } from '@/lib/engine/types';
+import type { RangeFields } from '@/lib/engine/range';
+import type { AnalyzeRequest, CompensatorInput, ModulatorInput } from '@/lib/engine/types';
 import { renderMail } from '@/lib/mail-render';
 import { summarizeAnalysis } from '@/lib/revision-summary';
 import type { Db } from './connection';
@@ -29,6 +30,8 @@ export interface DemoRevision {
   note: string;
   /** Changes to the sample's compensator for this revision. */
   compensator?: Partial<CompensatorInput>;
+  /** The modulator of this revision (e.g. more slope compensation), when it changes. */
+  modulator?: ModulatorInput;
   bench?: DemoBenchRun[];
   review?: {
     /** The designer submits to the demo reviewer with this message. */
@@ -40,7 +43,8 @@ export interface DemoRevision {
 }
 
 export interface DemoStory {
-  sample: string;
+  /** An engine sample by key, or the story's own stage (with its operating range and step). */
+  sample: string | (AnalyzeRequest & RangeFields);
   name: string;
   description: string;
   revisions: DemoRevision[];
@@ -87,6 +91,46 @@ export const DEMO_STORIES: DemoStory[] = [
           submit: 'fc 12 kHz, PM 56°, GM 19 dB; the pilot board is measured and attached.',
           remarks: [{ by: 'reviewer', comparedWith: 2, body: 'The bench data sits within 1 dB and 3° of the model up to 100 kHz. Good.' }],
           decision: { decision: 'approve', message: 'Approved for the pilot build.' },
+        },
+      },
+    ],
+  },
+  {
+    sample: {
+      converter: { topology: 'boost', vin: 5, vout: 12, iout: 1, fsw: 400e3, l: 6.8e-6, rl: 0.025, c: 44e-6, rc: 0.004, vd: 0.35 },
+      modulator: { mode: 'peak-current', ri: 0.1, se: 2e4 },
+      feedback: { vref: 1.2 },
+      compensator: { type: 'type2', amplifier: 'transconductance', gm: 1e-3, ro: 10e6, rb: 11e3, r1: 100e3, r2: 4.53e3, c1: 22e-9, c2: 1.5e-9 },
+      parts: { resistorSeries: 'E96', capacitorSeries: 'E12' },
+      // A USB-C 5 V input that sags under cable drop; two 22 µF ceramics lose capacitance with bias.
+      range: { vin: { min: 4.5, max: 5.5 }, iout: { min: 0.1, max: 1 }, l: { tol: 0.2 }, c: { tol: 0.3 }, rc: { min: 0.002, max: 0.008 } },
+      targets: { phaseMarginDeg: 45, gainMarginDb: 10 },
+      step: { kind: 'load', from: 0.5, to: 1, slew: 1e6, band: 0.01 },
+    },
+    name: '12 V solenoid bus — parcel sorter gate',
+    description: '5 V (USB-C) to 12 V / 1 A at 400 kHz, peak current mode, transconductance amplifier; the gate solenoid pulls 0.5 A steps',
+    revisions: [
+      {
+        note: 'First pass: slope compensation at the controller’s smallest setting (20 kV/s)',
+        review: {
+          submit: 'Current-mode boost for the sorter gate; nominal PM 61°. Please look at the low-line corners.',
+          remarks: [
+            {
+              by: 'reviewer',
+              body: 'At 4.5 V in the duty reaches 0.64 and mc·D′ drops under 0.5: the corner table flags subharmonic risk at every low-line, full-load corner. Nominal Qp is already 33.',
+            },
+          ],
+          decision: { decision: 'request-changes', message: 'Raise the external ramp so the current loop is stable at the lowest line, then resubmit with the corners clear.' },
+        },
+      },
+      {
+        note: 'External ramp 82 kV/s: every corner clear, worst PM 46° at low line, light load',
+        modulator: { mode: 'peak-current', ri: 0.1, se: 8.2e4 },
+        bench: [{ name: 'Gate board EVT-2, 5.0 V in, 1 A', gainOffsetDb: 0.5, phaseOffsetDeg: -3 }],
+        review: {
+          submit: 'Se raised to 82 kV/s (one resistor on the slope pin). No corner at risk now; the EVT board is measured and attached.',
+          remarks: [{ by: 'reviewer', comparedWith: 1, body: 'Compared with r1: the subharmonic corners are gone, worst PM 46° still meets the target. The 0.5 A step settles in well under a millisecond.' }],
+          decision: { decision: 'approve', message: 'Approved for EVT-3.' },
         },
       },
     ],
@@ -146,7 +190,7 @@ function submit(ctx: Ctx, ref: { teamId: number; designId: number; revisionId: n
 }
 
 function playStory(ctx: Ctx, story: DemoStory) {
-  const sample = SAMPLE_DESIGNS.find((s) => s.key === story.sample);
+  const sample = typeof story.sample === 'string' ? SAMPLE_DESIGNS.find((s) => s.key === story.sample) : { request: story.sample };
   if (!sample) throw new Error(`engine sample ${story.sample} is missing`);
   const design = createDesign(ctx.db, ctx.users.designer.id, ctx.teamId, {
     name: story.name,
@@ -155,7 +199,11 @@ function playStory(ctx: Ctx, story: DemoStory) {
   });
   let base: number | null = null;
   for (const step of story.revisions) {
-    const input: AnalyzeRequest = { ...sample.request, compensator: { ...sample.request.compensator, ...step.compensator } };
+    const input: AnalyzeRequest & RangeFields = {
+      ...sample.request,
+      modulator: step.modulator ?? sample.request.modulator,
+      compensator: { ...sample.request.compensator, ...step.compensator },
+    };
     const rev = createRevision(ctx.db, {
       teamId: ctx.teamId,
       designId: design.id,

@@ -1,10 +1,22 @@
 import 'server-only';
+import type { Db } from '@/db/connection';
+import { getUserById } from '@/db/queries';
 import { appBaseUrl, sendMail } from './mail';
 
 /**
  * Team notifications by e-mail: review requested, approved, changes
  * requested, added to a team. Each links to the revision (or the app).
  */
+
+/**
+ * Mail each of the given users (those that still exist) and count the messages sent; the
+ * route answers with the count so the client can say who was told.
+ */
+export async function mailEach(db: Db, userIds: number[], send: (to: { email: string; name: string }) => Promise<{ sent: boolean }>): Promise<number> {
+  const users = userIds.map((id) => getUserById(db, id)).filter((u) => u !== undefined);
+  const results = await Promise.all(users.map((u) => send({ email: u.email, name: u.name })));
+  return results.filter((r) => r.sent).length;
+}
 
 export interface RevisionMailRef {
   designId: number;

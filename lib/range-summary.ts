@@ -13,6 +13,8 @@ export interface RangeSummary {
   targets: MarginTargets;
   corners: number;
   dcmCorners: number;
+  /** Risk checks raised at some corner (e.g. a current loop unstable at low line): id, how many corners, the first one. Absent in summaries from before. */
+  risks?: { id: string; count: number; corner: string; message: string }[];
   worst: {
     phaseMarginDeg: { value: number | null; corner: string | null };
     gainMarginDb: { value: number | null; corner: string | null };
@@ -45,6 +47,7 @@ export function summarizeRange(input: AnalyzeRequest & RangeFields): { ok: true;
         targets,
         corners: c.corners.length,
         dcmCorners: c.corners.filter((k) => k.conduction === 'DCM').length,
+        risks: cornerRisks(c.corners),
         worst: {
           phaseMarginDeg: { value: c.worst.phaseMarginDeg.value, corner: at(c.worst.phaseMarginDeg.corner) },
           gainMarginDb: { value: c.worst.gainMarginDb.value, corner: at(c.worst.gainMarginDb.corner) },
@@ -59,6 +62,17 @@ export function summarizeRange(input: AnalyzeRequest & RangeFields): { ok: true;
   }
 }
 
+function cornerRisks(corners: { label: string; risks: { id: string; message: string }[] }[]): NonNullable<RangeSummary['risks']> {
+  const out = new Map<string, { id: string; count: number; corner: string; message: string }>();
+  for (const k of corners)
+    for (const r of k.risks) {
+      const seen = out.get(r.id);
+      if (seen) seen.count++;
+      else out.set(r.id, { id: r.id, count: 1, corner: k.label, message: r.message });
+    }
+  return [...out.values()];
+}
+
 const fixed = (v: number) => v.toFixed(1).replace(/^-/, '−');
 
 /** One sentence for mails and reports: "Worst case over 32 corners: PM 31.2° at low line, …". */
@@ -68,5 +82,6 @@ export function worstCaseSentence(s: RangeSummary): string {
   const pmText = pm.value === null ? (pm.corner ? `no crossover at ${pm.corner}` : 'PM —') : `PM ${fixed(pm.value)}° at ${pm.corner}`;
   const gmText = gm.value === null ? 'GM: no −180° crossing at any corner' : `GM ${fixed(gm.value)} dB at ${gm.corner}`;
   const share = (s.spread.meetsTargets.share * 100).toFixed(1);
-  return `Worst case over ${s.corners} corners: ${pmText}; ${gmText}. ${share} % of ${s.spread.samples.toLocaleString('en-US')} simulated builds (seed ${s.spread.seed}) meet PM ≥ ${s.targets.phaseMarginDeg}° and GM ≥ ${s.targets.gainMarginDb} dB.`;
+  const risks = (s.risks ?? []).map((r) => ` Risk "${r.id}" at ${r.count} of ${s.corners} corners (first: ${r.corner}).`).join('');
+  return `Worst case over ${s.corners} corners: ${pmText}; ${gmText}.${risks} ${share} % of ${s.spread.samples.toLocaleString('en-US')} simulated builds (seed ${s.spread.seed}) meet PM ≥ ${s.targets.phaseMarginDeg}° and GM ≥ ${s.targets.gainMarginDb} dB.`;
 }

@@ -28,6 +28,7 @@ export function CornerTable({ result, targets }: { result: CornersResult; target
             <th className="px-2 py-1 text-right">fc</th>
             <th className="px-2 py-1 text-right">PM</th>
             <th className="px-2 py-1 text-right">GM</th>
+            <th className="px-2 py-1">Risk</th>
           </tr>
         </thead>
         <tbody className="num font-mono">
@@ -53,6 +54,9 @@ export function CornerTable({ result, targets }: { result: CornersResult; target
                 <td className="px-2 py-0.5 text-right">{k.margins.crossoverHz === null ? 'none' : formatSi(k.margins.crossoverHz, 'Hz')}</td>
                 <td className={`px-2 py-0.5 text-right ${pmLow ? 'text-red-700' : ''}`}>{fixed(k.margins.phaseMarginDeg, '°')}</td>
                 <td className={`px-2 py-0.5 text-right ${gmLow ? 'text-red-700' : ''}`}>{k.margins.gainMarginDb === null ? 'none' : fixed(k.margins.gainMarginDb, ' dB')}</td>
+                <td className="px-2 py-0.5 font-sans text-red-700" title={k.risks.map((r) => r.message).join('\n') || undefined}>
+                  {k.risks.map((r) => r.id).join(', ')}
+                </td>
               </tr>
             );
           })}

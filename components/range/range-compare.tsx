@@ -31,6 +31,20 @@ function Change({ a, b, epsilon, unit }: { a: number | null; b: number | null; e
   );
 }
 
+/** Risk checks raised at some corner ("subharmonic at 8 of 32, first at low line, …"), or none. */
+const riskText = (s: RangeSummary) =>
+  s.risks && s.risks.length > 0 ? (
+    <ul className="text-red-700">
+      {s.risks.map((r) => (
+        <li key={r.id} title={r.message}>
+          {r.id}: {r.count} of {s.corners}, first at {r.corner}
+        </li>
+      ))}
+    </ul>
+  ) : (
+    <span className="text-slate-500">none</span>
+  );
+
 /**
  * Both revisions' worst case across their operating ranges and their spreads, side by side, with
  * the change: a reviewer sees at a glance whether B helped the worst corner.
@@ -94,6 +108,12 @@ export function RangeCompare({ a, b, labelA, labelB }: { a: Side; b: Side; label
             <td className="py-1 text-xs">
               <Change a={shareA * 100} b={shareB * 100} epsilon={0.05} unit=" %" />
             </td>
+          </tr>
+          <tr className="border-t border-slate-100 align-top" data-testid="corner-risks">
+            <th className="py-1 pr-2 text-left font-medium text-slate-700">Corners at risk</th>
+            <td className="py-1 pr-2 text-xs">{riskText(A)}</td>
+            <td className="py-1 pr-2 text-xs">{riskText(B)}</td>
+            <td />
           </tr>
           <tr className="border-t border-slate-100">
             <th className="py-1 pr-2 text-left font-medium text-slate-700">Crossover over the corners</th>

@@ -22,6 +22,8 @@ export interface CornerResult extends CornerValues {
   margins: CornerMargins;
   /** The corner in words ("low line, full load, L −20 %, …"). */
   label: string;
+  /** The risk-level checks the analysis raised at this corner (e.g. "subharmonic"). */
+  risks: Pick<Check, 'id' | 'message'>[];
   /** Loop gain on the nominal sweep grid, when asked for (the Tune band). */
   loop?: BodeTrace;
 }
@@ -84,6 +86,7 @@ export const analyzeCorners = (request: AnalyzeRequest, range: OperatingRange, o
       duty: r.operatingPoint.duty,
       margins: { crossoverHz, phaseMarginDeg, gainMarginDb },
       label,
+      risks: r.checks.filter((c) => c.level === 'risk').map(({ id, message }) => ({ id, message })),
       ...(options.loop ? { loop: r.bode.loop } : {}),
     });
   }
@@ -137,6 +140,19 @@ export const worstCaseChecks = (result: CornersResult, targets: MarginTargets = 
     const level = gm.value < 6 ? 'risk' : gm.value < targets.gainMarginDb ? 'caution' : 'note';
     const verdict = level === 'note' ? `meets the ${targets.gainMarginDb} dB target at every corner` : `below the ${targets.gainMarginDb} dB target`;
     out.push({ id: 'worst-gain-margin', level, message: `Worst gain margin: ${fmt(gm.value, 1)} dB at ${where} (${verdict}).` });
+  }
+  // A risk at a corner (a current loop that oscillates at fsw/2, a duty limit, …) makes its
+  // margins meaningless there, however good they read.
+  const risky = new Map<string, { first: CornerResult; message: string; count: number }>();
+  for (const k of corners)
+    for (const c of k.risks) {
+      const seen = risky.get(c.id);
+      if (seen) seen.count++;
+      else risky.set(c.id, { first: k, message: c.message, count: 1 });
+    }
+  for (const [id, { first, message, count }] of risky) {
+    const others = count > 1 ? ` (and ${count - 1} more of the ${corners.length} corners)` : '';
+    out.push({ id: `worst-${id}`, level: 'risk', message: `At ${first.label}${others}: ${message}` });
   }
   const dcm = corners.filter((k) => k.conduction === 'DCM');
   if (dcm.length > 0) {

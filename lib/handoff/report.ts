@@ -115,6 +115,7 @@ function rangeSection(s: RangeSummary): string {
     ['Worst gain margin', s.worst.gainMarginDb.value === null ? 'no −180° crossing at any corner' : `${num(s.worst.gainMarginDb.value, 'dB')} at ${s.worst.gainMarginDb.corner}`],
     ['Crossover over the corners', `${si(s.worst.crossoverHz.min, 'Hz')} – ${si(s.worst.crossoverHz.max, 'Hz')}`],
     ['Corners in DCM', `${s.dcmCorners} of ${s.corners}`],
+    ...(s.risks ?? []).map((r): [string, string] => [`Risk: ${r.id}`, `${r.count} of ${s.corners} corners, first at ${r.corner}`]),
     ['Spread PM p1 / p50 / p99', pr(p.phaseMarginDeg, '°')],
     ['Spread GM p1 / p50 / p99', pr(p.gainMarginDb, 'dB')],
     ['Builds meeting the targets', `${pct(s.spread.meetsTargets.share)} of ${s.spread.samples.toLocaleString('en-US')} (${s.spread.distribution}, seed ${s.spread.seed})`],

@@ -8,7 +8,7 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { openDatabase } from '@/db/connection';
 import { listMailTo } from '@/db/queries';
 import { CHROMIUM, CHROMIUM_ARGS, chromiumAvailable } from '../support/chromium';
-import { screenshot, signInThroughForm } from '../support/browser';
+import { screenshot, signedInPage } from '../support/browser';
 import { signedInAs } from '../support/http';
 import { savedDesign, tweak } from '../support/saved-design';
 
@@ -17,13 +17,7 @@ const baseUrl = inject('baseUrl');
 const dbPath = inject('dbPath');
 let browser: Browser;
 
-async function pageAs(email: string): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
-  const page = await context.newPage();
-  page.on('dialog', (d) => d.accept());
-  await signInThroughForm(page, baseUrl, email);
-  return page;
-}
+const pageAs = (email: string): Promise<Page> => signedInPage(browser, baseUrl, email, { viewport: { width: 1400, height: 1000 }, acceptDialogs: true });
 
 describe.runIf(run)('designs list views, archive, remarks on Compare', () => {
   beforeAll(async () => {

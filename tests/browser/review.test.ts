@@ -10,7 +10,7 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { openDatabase } from '@/db/connection';
 import { listMailTo } from '@/db/queries';
 import { CHROMIUM, CHROMIUM_ARGS, chromiumAvailable } from '../support/chromium';
-import { screenshot, signInThroughForm } from '../support/browser';
+import { screenshot, signedInPage } from '../support/browser';
 import { signedInAs } from '../support/http';
 import { savedDesign, tweak } from '../support/saved-design';
 
@@ -29,12 +29,7 @@ function mailTo(address: string) {
   }
 }
 
-async function pageAs(email: string): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
-  const page = await context.newPage();
-  await signInThroughForm(page, baseUrl, email);
-  return page;
-}
+const pageAs = (email: string): Promise<Page> => signedInPage(browser, baseUrl, email, { viewport: { width: 1400, height: 1000 } });
 
 describe.runIf(run)('Compare and Sign-off', () => {
   beforeAll(async () => {

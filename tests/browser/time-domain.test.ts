@@ -8,7 +8,7 @@
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { CHROMIUM, CHROMIUM_ARGS, chromiumAvailable } from '../support/chromium';
-import { screenshot, signInThroughForm } from '../support/browser';
+import { screenshot, signedInPage } from '../support/browser';
 import { signedInAs, type Client } from '../support/http';
 import { savedDesign } from '../support/saved-design';
 
@@ -18,13 +18,7 @@ let browser: Browser;
 let designer: Client;
 let designId: number;
 
-async function pageAs(email: string): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width: 1500, height: 1100 } });
-  const page = await context.newPage();
-  await page.goto(`${baseUrl}/signin`, { waitUntil: 'networkidle' });
-  await signInThroughForm(page, baseUrl, email);
-  return page;
-}
+const pageAs = (email: string): Promise<Page> => signedInPage(browser, baseUrl, email);
 
 describe.runIf(run)('Tune: closed loop and step', () => {
   beforeAll(async () => {

@@ -11,7 +11,7 @@
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { CHROMIUM, CHROMIUM_ARGS, chromiumAvailable } from '../support/chromium';
-import { screenshot, signInThroughForm } from '../support/browser';
+import { screenshot, signedInPage } from '../support/browser';
 import { signedInAs, type Client } from '../support/http';
 import { savedDesign, tweak, type AnalyzeInput } from '../support/saved-design';
 
@@ -22,14 +22,7 @@ let designer: Client;
 let designId: number;
 let input: AnalyzeInput;
 
-async function pageAs(email: string): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width: 1500, height: 1100 } });
-  const page = await context.newPage();
-  // Let the sign-in form hydrate first, so the click signs in rather than submitting the bare form.
-  await page.goto(`${baseUrl}/signin`, { waitUntil: 'networkidle' });
-  await signInThroughForm(page, baseUrl, email);
-  return page;
-}
+const pageAs = (email: string): Promise<Page> => signedInPage(browser, baseUrl, email);
 
 async function openTune(page: Page) {
   await page.goto(`${baseUrl}/designs/${designId}`);

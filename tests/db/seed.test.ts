@@ -16,6 +16,7 @@ import {
 import { DEMO_PASSWORD, DEMO_USERS, seedDemo } from '@/db/seed';
 import { DEMO_STORIES, DEMO_WAITING } from '@/db/seed-story';
 import type { Db } from '@/db/connection';
+import { summarizeRange } from '@/lib/range-summary';
 import { tempDb } from '../support/temp-db';
 
 let db: Db;
@@ -85,6 +86,26 @@ describe('demo review story', () => {
     expect(toReviewer).toEqual(expect.arrayContaining([`Review requested: ${name} r1`, `Review requested: ${name} r3`, `Review requested: ${DEMO_WAITING.name} r2`, `Remark on ${name} r1`]));
     expect(toDesigner).toEqual(expect.arrayContaining([`Changes requested: ${name} r1`, `Changes requested: ${name} r2`, `Approved: ${name} r3`, `Remark on ${name} r2`]));
     expect(listMailTo(db, 'designer@demo.test', 100).every((m) => m.teamId !== null)).toBe(true);
+  });
+
+  it('holds a current-mode design with its operating range: r1 sent back for a corner at subharmonic risk, r2 clear and approved', () => {
+    seedDemo(db);
+    const teamId = listTeamsForUser(db, getUserByEmail(db, 'admin@demo.test')!.id)[0].teamId;
+    const story = DEMO_STORIES.find((s) => typeof s.sample !== 'string')!;
+    const design = listDesigns(db, teamId).find((d) => d.name === story.name)!;
+    const revs = listRevisions(db, design.id);
+    expect(revs).toHaveLength(2);
+    for (const r of revs) {
+      expect(r.input.modulator).toMatchObject({ mode: 'peak-current' });
+      expect(r.input.compensator.amplifier).toBe('transconductance');
+      expect('range' in r.input && 'step' in r.input).toBe(true);
+    }
+    const [s1, s2] = revs.map((r) => summarizeRange(r.input));
+    expect(s1.ok && s1.value.risks?.map((x) => x.id)).toContain('subharmonic');
+    expect(s2.ok && s2.value.risks).toEqual([]);
+    expect(s2.ok && s2.value.worst.phaseMarginDeg.value).toBeGreaterThan(45);
+    expect(revs.map((r) => getSignoffState(db, r.id))).toEqual(['changes-requested', 'approved']);
+    expect(listBenchData(db, teamId, design.id, { revisionNumber: 2 })).toHaveLength(1);
   });
 
   it('leaves one design waiting for the demo reviewer', () => {

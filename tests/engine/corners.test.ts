@@ -97,6 +97,30 @@ describe('corner sweep', () => {
     expect(level(worstPm + 1)).toBe('caution');
   });
 
+  it('a risk at some corner (current loop unstable at low line) is a worst-case risk naming the corner', () => {
+    // Peak current-mode boost of our own, 5 → 12 V: at 4.5 V the duty is about 0.64, and with
+    // Se = 20 kV/s mc·D' falls below 0.5, the subharmonic limit (Ridley 1991; common practice:
+    // without enough slope compensation peak current mode is unstable above D ≈ 0.5).
+    const request: AnalyzeRequest = {
+      converter: { topology: 'boost', vin: 5, vout: 12, iout: 1, fsw: 400e3, l: 6.8e-6, rl: 0.025, c: 44e-6, rc: 0.004, vd: 0.35 },
+      modulator: { mode: 'peak-current', ri: 0.1, se: 2e4 },
+      feedback: { vref: 1.2 },
+      compensator: { type: 'type2', amplifier: 'transconductance', gm: 1e-3, ro: 10e6, rb: 11e3, r1: 100e3, r2: 4.53e3, c1: 22e-9, c2: 1.5e-9 },
+    };
+    const range: OperatingRange = { vin: { min: 4.5, max: 5.5 }, iout: { min: 0.1, max: 1 }, l: { tol: 0.2 }, c: { tol: 0.3 }, rc: { min: 0.002, max: 0.008 } };
+    expect(analyze(request).checks.find((c) => c.id === 'subharmonic')?.level).toBe('caution');
+    const result = analyzeCorners(request, range);
+    const risky = result.corners.filter((k) => k.risks.some((r) => r.id === 'subharmonic'));
+    expect(risky.length).toBeGreaterThan(0);
+    for (const k of risky) expect(k.vin).toBe(4.5);
+    const check = worstCaseChecks(result).find((c) => c.id === 'worst-subharmonic')!;
+    expect(check.level).toBe('risk');
+    expect(check.message).toContain(risky[0].label);
+    // Enough ramp for the lowest line clears it at every corner.
+    const ramped = analyzeCorners({ ...request, modulator: { mode: 'peak-current', ri: 0.1, se: 8.2e4 } }, range);
+    expect(ramped.corners.every((k) => !k.risks.some((r) => r.id === 'subharmonic'))).toBe(true);
+  });
+
   it('default range: a buck keeps its low line above vout, a boost its high line below vout', () => {
     const buck = defaultRange({ ...SAMPLE_DESIGNS[0].request.converter, vin: 5.2, vout: 5 });
     expect(buck.vin.min).toBeGreaterThan(5);

@@ -1,6 +1,6 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import type { Page } from 'playwright-core';
+import type { Browser, BrowserContextOptions, Page } from 'playwright-core';
 import { DEMO_PASSWORD } from './http';
 
 /** Screenshots for people to look at: $SCREENSHOT_DIR or /tmp/phasewright-shots. */
@@ -17,4 +17,23 @@ export async function signInThroughForm(page: Page, baseUrl: string, email: stri
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.waitForURL((u) => !u.pathname.startsWith('/signin'));
+}
+
+/**
+ * A fresh browser context signed in as `email` through the form. The sign-in page is let to
+ * hydrate first (network idle), so the click signs in rather than submitting the bare form.
+ * `acceptDialogs` accepts every confirmation (for tests that do not look at them).
+ */
+export async function signedInPage(
+  browser: Browser,
+  baseUrl: string,
+  email: string,
+  { acceptDialogs = false, ...options }: BrowserContextOptions & { acceptDialogs?: boolean } = {},
+): Promise<Page> {
+  const context = await browser.newContext({ viewport: { width: 1500, height: 1100 }, ...options });
+  const page = await context.newPage();
+  if (acceptDialogs) page.on('dialog', (d) => d.accept());
+  await page.goto(`${baseUrl}/signin`, { waitUntil: 'networkidle' });
+  await signInThroughForm(page, baseUrl, email);
+  return page;
 }

@@ -1,8 +1,8 @@
 import { NextResponse } from 'next/server';
 import { getDb } from '@/db/client';
-import { decideSignoff, getUserById } from '@/db/queries';
+import { decideSignoff } from '@/db/queries';
 import { parseJson, withUser } from '@/lib/api';
-import { notifyDecision } from '@/lib/notify';
+import { mailEach, notifyDecision } from '@/lib/notify';
 import { mayEverReview } from '@/lib/signoff-policy';
 import { requireRevision, runSignoff } from '@/lib/revision-access';
 import { decisionSchema } from '@/lib/validation/signoff';
@@ -19,22 +19,11 @@ export const POST = withUser<P>(
     const body = await parseJson(req, decisionSchema);
     const db = getDb();
     const { event, notifyUserIds } = runSignoff(() => decideSignoff(db, ref, { actorId: user.id, decision: body.decision, message: body.message }));
-    const results = await Promise.all(
-      notifyUserIds
-        .map((id) => getUserById(db, id))
-        .filter((u) => u !== undefined)
-        .map((u) =>
-          notifyDecision({
-            to: { email: u.email, name: u.name },
-            by: user.name,
-            teamId: user.teamId,
-            revision: { designId: design.id, designName: design.name, number: ref.number },
-            decision: body.decision,
-            message: body.message,
-          }),
-        ),
+    const revision = { designId: design.id, designName: design.name, number: ref.number };
+    const mailed = await mailEach(db, notifyUserIds, (to) =>
+      notifyDecision({ to, by: user.name, teamId: user.teamId, revision, decision: body.decision, message: body.message }),
     );
-    return NextResponse.json({ state: event.state, event, mailed: results.filter((r) => r.sent).length }, { status: 201 });
+    return NextResponse.json({ state: event.state, event, mailed }, { status: 201 });
   },
   { allow: mayEverReview, action: 'approve or request changes' },
 );

@@ -1,9 +1,9 @@
 import { NextResponse } from 'next/server';
 import { getDb } from '@/db/client';
-import { addRemark, getRevision, getUserById, listRemarks, remarkRecipients } from '@/db/queries';
+import { addRemark, getRevision, listRemarks, remarkRecipients } from '@/db/queries';
 import { can } from '@/lib/auth';
 import { HttpError, parseJson, withUser } from '@/lib/api';
-import { notifyRemark } from '@/lib/notify';
+import { mailEach, notifyRemark } from '@/lib/notify';
 import { requireRevision } from '@/lib/revision-access';
 import { remarkSchema } from '@/lib/validation/signoff';
 
@@ -27,22 +27,11 @@ export const POST = withUser<P>(
     if (body.comparedWith !== undefined && !getRevision(db, design.id, body.comparedWith))
       throw new HttpError(422, `There is no r${body.comparedWith} to compare with`, [{ path: 'comparedWith', message: `no revision r${body.comparedWith} in this design` }]);
     const row = addRemark(db, { ...ref, authorId: user.id, body: body.body, comparedWith: body.comparedWith ?? null });
-    const results = await Promise.all(
-      remarkRecipients(db, ref.revisionId, user.id)
-        .map((id) => getUserById(db, id))
-        .filter((u) => u !== undefined)
-        .map((u) =>
-          notifyRemark({
-            to: { email: u.email, name: u.name },
-            by: user.name,
-            teamId: user.teamId,
-            revision: { designId: design.id, designName: design.name, number: ref.number },
-            comparedWith: row.comparedWith,
-            body: body.body,
-          }),
-        ),
+    const revision = { designId: design.id, designName: design.name, number: ref.number };
+    const mailed = await mailEach(db, remarkRecipients(db, ref.revisionId, user.id), (to) =>
+      notifyRemark({ to, by: user.name, teamId: user.teamId, revision, comparedWith: row.comparedWith, body: body.body }),
     );
-    return NextResponse.json({ ...row, authorName: user.name, mailed: results.filter((r) => r.sent).length }, { status: 201 });
+    return NextResponse.json({ ...row, authorName: user.name, mailed }, { status: 201 });
   },
   { allow: can.remark, action: 'write remarks' },
 );

@@ -1,9 +1,9 @@
 import { NextResponse } from 'next/server';
 import { getDb } from '@/db/client';
-import { getTeamSignoffSettings, getUserById, listTeamMembers, submitForReview } from '@/db/queries';
+import { getTeamSignoffSettings, listTeamMembers, submitForReview } from '@/db/queries';
 import { eligibleReviewers, maySubmit } from '@/lib/signoff-policy';
 import { parseJson, withUser } from '@/lib/api';
-import { notifyReviewRequested } from '@/lib/notify';
+import { mailEach, notifyReviewRequested } from '@/lib/notify';
 import { summarizeRange, worstCaseSentence } from '@/lib/range-summary';
 import { requireRevision, runSignoff } from '@/lib/revision-access';
 import { submitForReviewSchema } from '@/lib/validation/signoff';
@@ -23,22 +23,18 @@ export const POST = withUser<P>(
     // The named reviewer, or every member who may review when none is named.
     const team = getTeamSignoffSettings(db, user.teamId);
     const to =
-      body.reviewerId != null
-        ? [getUserById(db, body.reviewerId)].filter((u) => u !== undefined)
-        : eligibleReviewers(listTeamMembers(db, user.teamId), team, user.id, revision.authorId);
-    const results = await Promise.all(
-      to.map((r) =>
-        notifyReviewRequested({
-          to: { email: r.email, name: r.name },
-          by: user.name,
-          teamId: user.teamId,
-          revision: { designId: design.id, designName: design.name, number: ref.number },
-          message: body.message,
-          worstCase,
-        }),
-      ),
+      body.reviewerId != null ? [body.reviewerId] : eligibleReviewers(listTeamMembers(db, user.teamId), team, user.id, revision.authorId).map((u) => u.userId);
+    const mailed = await mailEach(db, to, (r) =>
+      notifyReviewRequested({
+        to: r,
+        by: user.name,
+        teamId: user.teamId,
+        revision: { designId: design.id, designName: design.name, number: ref.number },
+        message: body.message,
+        worstCase,
+      }),
     );
-    return NextResponse.json({ state: event.state, event, mailed: results.filter((m) => m.sent).length }, { status: 201 });
+    return NextResponse.json({ state: event.state, event, mailed }, { status: 201 });
   },
   { allow: maySubmit, action: 'submit revisions for review' },
 );
