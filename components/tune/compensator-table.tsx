@@ -1,7 +1,7 @@
 'use client';
 
 import { useState } from 'react';
-import { compensatorTitle } from '@/lib/catalog/compensators';
+import { compensatorFor, compensatorTitle } from '@/lib/catalog/compensators';
 import { COMPENSATOR_TYPES, type CompensatorShape, type CompensatorType } from '@/lib/engine/types';
 import { formatSi } from '@/lib/units/si';
 import type { HandleMove } from './handle-overlay';
@@ -28,6 +28,7 @@ interface Props {
 /** The handles as numbers: type, gain, each zero and pole, and R1, editable by keyboard. */
 export function CompensatorTable({ shape, handles, readOnly, onShape, onStep, onTypeChange }: Props) {
   const [typeError, setTypeError] = useState<string | null>(null);
+  const entry = compensatorFor(shape.type, shape.fixed?.amplifier);
   const hzStep = (id: string, hz: number) => (sign: 1 | -1, big: boolean) => onStep(id, { hz: hz * 10 ** (sign * (big ? STEP_DECADE_BIG : STEP_DECADE)) });
 
   const setHz = (h: HandleSpec) => (text: string) => {
@@ -124,7 +125,7 @@ export function CompensatorTable({ shape, handles, readOnly, onShape, onStep, on
               <span className="mr-1.5 inline-block w-4" aria-hidden />
               Integrator 0 dB
             </td>
-            <td className="text-xs text-slate-500">1/(2π·R1·(C1+C2)): the low-frequency gain; the ◆ handle moves it</td>
+            <td className="text-xs text-slate-500" data-testid="integrator-formula">{entry.integrator}: the low-frequency gain; the ◆ handle moves it</td>
             <td className="flex justify-end">
               <ValueCell
                 label="Integrator 0 dB frequency in Hz"
@@ -141,7 +142,7 @@ export function CompensatorTable({ shape, handles, readOnly, onShape, onStep, on
               <span className="mr-1.5 inline-block w-4" aria-hidden />
               R1
             </td>
-            <td className="text-xs text-slate-500">scales every part; poles and zeros stay</td>
+            <td className="text-xs text-slate-500">{entry.r1Note}</td>
             <td className="flex justify-end">
               <ValueCell label="R1 in ohms" display={formatSi(shape.r1, 'Ω', 4)} editText={toSiText(shape.r1)} disabled={readOnly} onCommit={setR1} testId="value-r1" />
             </td>

@@ -16,7 +16,7 @@
  */
 import { compensatorTransfer, partsFromShape, shapeFromParts } from '@/lib/engine/compensator';
 import { transferEvaluator } from '@/lib/engine/sweep';
-import { PARTS, compensatorEntry, presentLandmarks, type PartKey as CatalogPartKey } from '@/lib/catalog/compensators';
+import { PARTS, compensatorEntry, compensatorFor, presentLandmarks, type PartKey as CatalogPartKey } from '@/lib/catalog/compensators';
 import { formatSi } from '@/lib/units/si';
 import { EngineInputError, type CompensatorInput, type CompensatorShape, type CompensatorType, type FieldIssue } from '@/lib/engine/types';
 
@@ -37,7 +37,7 @@ export interface HandleSpec {
 
 /** The parts that place each zero and pole the shape has (from the catalogue). */
 function poleZeroParts(shape: CompensatorShape): { zeros: string[]; poles: string[] } {
-  const entry = compensatorEntry(shape.type);
+  const entry = compensatorFor(shape.type, shape.fixed?.amplifier);
   return {
     zeros: presentLandmarks(entry.zeros, shape.zerosHz.length).map((l) => l.formula),
     poles: presentLandmarks(entry.poles, shape.polesHz.length).map((l) => l.formula),
@@ -86,7 +86,7 @@ export function handlesOf(shape: CompensatorShape, anchorHz: number | null): Han
     })),
   ];
   const hz = gainHandleHz(shape, anchorHz);
-  out.push({ id: 'gain', kind: 'gain', hz, label: `Gain at ${formatSi(hz, 'Hz')}`, parts: `the integrator, ${compensatorEntry(shape.type).gain.formula}`, gainDb: compensatorGainDbAt(shape, hz) });
+  out.push({ id: 'gain', kind: 'gain', hz, label: `Gain at ${formatSi(hz, 'Hz')}`, parts: `the integrator, ${compensatorFor(shape.type, shape.fixed?.amplifier).gain.formula}`, gainDb: compensatorGainDbAt(shape, hz) });
   return out;
 }
 

@@ -8,20 +8,9 @@ import type { PartKey } from './handles';
 import { parseSiField, toSiText } from './si-schema';
 import { ValueCell } from './value-cell';
 
-/** Rows in the catalogue's order, with its names, units and roles. */
-const rowsFor = (type: CompensatorType) =>
-  PART_ORDER.map((key) => ({ key, name: PARTS[key].name, unit: PARTS[key].unit, role: partRole(type, key) }));
-
-/** Around a transconductance amplifier the network sits at its output and the divider is in the loop. */
-const GM_ROLES: Partial<Record<keyof PartsResult['ideal'], string>> = {
-  r1: 'divider top, output to the feedback pin',
-  r2: 'COMP to ground, in series with C1',
-  c1: 'COMP to ground, in series with R2',
-  c2: 'COMP to ground',
-  r3: 'in series with C3, across R1',
-  c3: 'in series with R3, across R1',
-  rb: 'divider bottom (sets Vout; in the loop gain)',
-};
+/** Rows in the catalogue's order, with its names, units and roles (around the given amplifier). */
+const rowsFor = (type: CompensatorType, amplifier: Amplifier) =>
+  PART_ORDER.map((key) => ({ key, name: PARTS[key].name, unit: PARTS[key].unit, role: partRole(type, key, amplifier) }));
 
 function SeriesSelect({ id, label, value, disabled, onChange }: { id: string; label: string; value: ESeriesName; disabled: boolean; onChange: (s: ESeriesName) => void }) {
   return (
@@ -68,9 +57,8 @@ export const PartsTable = memo(function PartsTable({
   onLockChange: (part: PartKey) => void;
 }) {
   const options: PartsOptions = { resistorSeries: parts.resistorSeries, capacitorSeries: parts.capacitorSeries };
-  const rows = rowsFor(type)
-    .filter((r) => parts.ideal[r.key] !== null && !(r.key === 'c2' && parts.ideal.c2 === 0))
-    .map((r) => (amplifier === 'transconductance' ? { ...r, role: GM_ROLES[r.key] ?? r.role } : r));
+  const rows = rowsFor(type, amplifier)
+    .filter((r) => parts.ideal[r.key] !== null && !(r.key === 'c2' && parts.ideal.c2 === 0));
   return (
     <div className="space-y-2">
       <div className="flex flex-wrap gap-3">

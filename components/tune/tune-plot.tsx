@@ -7,6 +7,7 @@ import { around } from '@/components/plot/label-placement';
 import { PlotFrame } from '@/components/plot/plot-frame';
 import { interpolateLogF } from '@/lib/engine/margins';
 import { TRACE_COLORS } from '@/lib/catalog/traces';
+import { plantTraceName } from '@/lib/catalog/modes';
 import { formatSi } from '@/lib/units/si';
 import type { BodeData, Margins, ModulatorSummary, SweepOptions, TransferSummary } from '@/lib/engine/types';
 import { HANDLE_SIZE, HandleOverlay, placeHandles, type DragOffset, type HandleMove, type PlacedHandle } from './handle-overlay';
@@ -18,7 +19,7 @@ import { LiveCurves, type LiveCurve } from './live-curves';
 type TraceId = 'loop' | 'plant' | 'compensator';
 const TRACES: { id: TraceId; name: string }[] = [
   { id: 'loop', name: 'Loop gain T' },
-  { id: 'plant', name: 'Power stage Gvd/Vramp' },
+  { id: 'plant', name: plantTraceName('voltage', 'CCM') },
   { id: 'compensator', name: 'Compensator Gc' },
 ];
 
@@ -82,10 +83,13 @@ export function TunePlot({ bode, margins, plant, modulator, dcmPoleHz, handles, 
     setPlotlyDrawn(true);
   }, []);
 
-  const all = useMemo(() => TRACES.map((t) => toSeries(t, bode[t.id], shown)), [bode, shown]);
+  // The power stage is named after the plant the loop uses (mode and conduction).
+  const plantName = plantTraceName(modulator?.mode ?? 'voltage', dcmPoleHz != null ? 'DCM' : 'CCM');
+  const traces = useMemo(() => TRACES.map((t) => (t.id === 'plant' ? { ...t, name: plantName } : t)), [plantName]);
+  const all = useMemo(() => traces.map((t) => toSeries(t, bode[t.id], shown)), [traces, bode, shown]);
   // While a handle is dragged Plotly keeps only the power stage, which does not move, and the
   // loop and compensator are drawn live above it (LiveCurves); Plotly takes them back on release.
-  const plantOnly = useMemo(() => TRACES.map((t) => toSeries(t, t.id === 'plant' ? bode.plant : NO_TRACE, shown)), [bode.plant, shown]);
+  const plantOnly = useMemo(() => traces.map((t) => toSeries(t, t.id === 'plant' ? bode.plant : NO_TRACE, shown)), [traces, bode.plant, shown]);
   const series = dragging ? plantOnly : all;
   const live = useMemo<LiveCurve[]>(
     () =>
@@ -142,7 +146,7 @@ export function TunePlot({ bode, margins, plant, modulator, dcmPoleHz, handles, 
   return (
     <div>
       <div className="flex flex-wrap items-center gap-x-4 gap-y-1 px-1 pb-2 text-sm" role="group" aria-label="Traces shown">
-        {TRACES.map((t) => (
+        {traces.map((t) => (
           <label key={t.id} className="inline-flex cursor-pointer items-center gap-1.5">
             <input
               type="checkbox"
@@ -153,7 +157,7 @@ export function TunePlot({ bode, margins, plant, modulator, dcmPoleHz, handles, 
               data-testid={`toggle-${t.id}`}
             />
             <span className="inline-block h-0.5 w-4 rounded" style={{ background: TRACE_COLORS[t.id] }} aria-hidden />
-            {t.name}
+            <span data-testid={`legend-${t.id}`}>{t.name}</span>
           </label>
         ))}
         {bench && (

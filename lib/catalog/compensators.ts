@@ -79,9 +79,40 @@ export interface CompensatorEntry {
   poles: readonly Landmark[];
   /** What the gain handle moves. */
   gain: Landmark;
+  /** The integrator's 0 dB frequency as engineers write it: "1/(2π·R1·(C1+C2))". */
+  integrator: string;
+  /** What R1 does when typed (the handles keep the poles and zeros). */
+  r1Note: string;
   /** Most phase boost the type can add at crossover, degrees (K-factor method). */
   maxBoostDeg: number;
+  /**
+   * The same type around a transconductance amplifier, where it differs: the network sits at
+   * the amplifier's output (COMP to ground) and the divider is inside the loop, so the gain and
+   * the feed-forward pole carry the divider (lib/engine/compensator.ts gives the transfer).
+   */
+  transconductance?: AmplifierVariant;
 }
+
+/** What changes in an entry when the amplifier is not the op-amp. */
+export type AmplifierVariant = Pick<CompensatorEntry, 'zeros' | 'poles' | 'gain' | 'integrator' | 'r1Note'> & {
+  roles: Partial<Record<PartKey, string>>;
+};
+
+/** Part roles around a transconductance amplifier (any type). */
+const GM_ROLES: Partial<Record<PartKey, string>> = {
+  r1: 'divider top, output to the feedback pin',
+  r2: 'COMP to ground, in series with C1',
+  c1: 'COMP to ground, in series with R2',
+  c2: 'COMP to ground',
+  r3: 'in series with C3, across R1',
+  c3: 'in series with R3, across R1',
+  rb: 'divider bottom (sets Vout; in the loop gain)',
+};
+
+/** gm·H0/(C1+C2) with the divider's DC gain H0 = Rb/(R1+Rb). */
+const GM_GAIN: Landmark = { formula: 'gm·Rb/((R1+Rb)·(C1+C2))', parts: ['r1', 'rb', 'c1', 'c2'] };
+const GM_INTEGRATOR = 'gm·Rb/(2π·(R1+Rb)·(C1+C2))';
+const GM_R1_NOTE = 'divider top: with Rb sets Vout and the divider gain Rb/(R1+Rb); poles and zeros stay';
 
 export const COMPENSATORS: Readonly<Record<CompensatorType, CompensatorEntry>> = {
   type1: {
@@ -94,6 +125,8 @@ export const COMPENSATORS: Readonly<Record<CompensatorType, CompensatorEntry>> =
     zeros: [],
     poles: [],
     gain: { formula: 'R1·C1', parts: ['r1', 'c1'] },
+    integrator: '1/(2π·R1·C1)',
+    r1Note: 'scales every part; poles and zeros stay',
     maxBoostDeg: 0,
   },
   type2: {
@@ -105,7 +138,17 @@ export const COMPENSATORS: Readonly<Record<CompensatorType, CompensatorEntry>> =
     zeros: [{ formula: 'R2·C1', parts: ['r2', 'c1'] }],
     poles: [{ formula: 'C2', parts: ['c2'], optional: true }],
     gain: { formula: 'R1·(C1+C2)', parts: ['r1', 'c1', 'c2'] },
+    integrator: '1/(2π·R1·(C1+C2))',
+    r1Note: 'scales every part; poles and zeros stay',
     maxBoostDeg: 90,
+    transconductance: {
+      roles: GM_ROLES,
+      zeros: [{ formula: 'R2·C1', parts: ['r2', 'c1'] }],
+      poles: [{ formula: 'C2', parts: ['c2'], optional: true }],
+      gain: GM_GAIN,
+      integrator: GM_INTEGRATOR,
+      r1Note: GM_R1_NOTE,
+    },
   },
   type3: {
     type: 'type3',
@@ -122,11 +165,36 @@ export const COMPENSATORS: Readonly<Record<CompensatorType, CompensatorEntry>> =
       { formula: 'R3·C3', parts: ['r3', 'c3'] },
     ],
     gain: { formula: 'R1·(C1+C2)', parts: ['r1', 'c1', 'c2'] },
+    integrator: '1/(2π·R1·(C1+C2))',
+    r1Note: 'scales every part; poles and zeros stay',
     maxBoostDeg: 180,
+    transconductance: {
+      roles: GM_ROLES,
+      zeros: [
+        { formula: 'R2·C1', parts: ['r2', 'c1'] },
+        { formula: '(R1+R3)·C3', parts: ['r1', 'r3', 'c3'] },
+      ],
+      poles: [
+        { formula: 'C2', parts: ['c2'], optional: true },
+        // The tap sees R1 ∥ Rb, not a virtual ground.
+        { formula: '(R3+R1∥Rb)·C3', parts: ['r3', 'r1', 'rb', 'c3'] },
+      ],
+      gain: GM_GAIN,
+      integrator: GM_INTEGRATOR,
+      r1Note: GM_R1_NOTE,
+    },
   },
 };
 
 export const compensatorEntry = (type: CompensatorType): CompensatorEntry => COMPENSATORS[type];
+
+/** The entry as it reads around the given amplifier (op-amp when absent): formulas, roles, landmarks. */
+export function compensatorFor(type: CompensatorType, amplifier: Amplifier | undefined): CompensatorEntry {
+  const e = COMPENSATORS[type];
+  const v = amplifier === 'transconductance' ? e.transconductance : undefined;
+  if (!v) return e;
+  return { ...e, ...v, amplifier: 'transconductance', roles: { ...e.roles, ...v.roles } };
+}
 
 /** "Type II". */
 export const compensatorLabel = (type: CompensatorType): string => COMPENSATORS[type].label;
@@ -135,8 +203,8 @@ export const compensatorLabel = (type: CompensatorType): string => COMPENSATORS[
 export const compensatorTitle = (type: CompensatorType): string => `${COMPENSATORS[type].label} (${COMPENSATORS[type].summary})`;
 
 /** A part's role in this type's network. */
-export const partRole = (type: CompensatorType, part: PartKey): string => {
-  return COMPENSATORS[type].roles?.[part] ?? PARTS[part].role;
+export const partRole = (type: CompensatorType, part: PartKey, amplifier?: Amplifier): string => {
+  return compensatorFor(type, amplifier).roles?.[part] ?? PARTS[part].role;
 };
 
 /** Whether a type uses a part (Rb, the divider, always). */
@@ -153,8 +221,8 @@ export function presentLandmarks(list: readonly Landmark[], count: number): Land
 }
 
 /** Which zeros, poles and gain a part sets in a type: "Zero 1, gain". Empty when none. */
-export function landmarksSetBy(type: CompensatorType, part: PartKey): string[] {
-  const e = COMPENSATORS[type];
+export function landmarksSetBy(type: CompensatorType, part: PartKey, amplifier?: Amplifier): string[] {
+  const e = compensatorFor(type, amplifier);
   const name = (kind: string, list: readonly Landmark[], i: number) => (list.length > 1 ? `${kind} ${i + 1}` : kind);
   return [
     ...e.zeros.flatMap((z, i) => (z.parts.includes(part) ? [name('zero', e.zeros, i)] : [])),

@@ -17,3 +17,14 @@ export const AMPLIFIER_HELP: Readonly<Record<Amplifier, string>> = {
 
 export const MODE_OPTIONS = MODULATOR_MODES.map((m) => ({ value: m, label: MODULATOR_MODE_LABELS[m] }));
 export const AMPLIFIER_OPTIONS = AMPLIFIERS.map((a) => ({ value: a, label: AMPLIFIER_LABELS[a] }));
+
+/**
+ * The power-stage trace as the loop uses it, per control mode and conduction: voltage mode
+ * divides the duty-to-output response by the ramp, peak current mode closes the current loop
+ * first and gives control-to-output Gvc (Ridley 1991 in CCM); in DCM the averaged-switch model
+ * (Erickson & Maksimović, 2nd ed., ch. 15) holds either way.
+ */
+export function plantTraceName(mode: ModulatorMode, conduction: 'CCM' | 'DCM'): string {
+  const dcm = conduction === 'DCM' ? ', DCM model' : '';
+  return mode === 'peak-current' ? `Power stage Gvc (current mode${dcm})` : `Power stage Gvd/Vramp${dcm ? ` (DCM model)` : ''}`;
+}

@@ -55,11 +55,17 @@ export const makeGrid = (f: readonly number[]): Grid => {
 /**
  * A sectioned transfer prepared for evaluation at many frequencies: terms N_k/D_k, each a
  * numerator and a denominator section (either may be the constant 1), stored flat as
- * [n1, n2, d1, d2] per term (section 1 + a1·s + a2·s²). One atan2 of N·conj(D) per term
- * gives ∠N − ∠D exactly when both angles lie on the same side: a numerator with a1 > 0
- * (angle in (0°, 180°)) pairs with a denominator with a1 ≥ 0 ([0°, 180°]), and a1 < 0 with
- * a1 < 0; the difference then stays inside (−180°, 180°), so the principal value is the
- * continuous one. Unpaired sections form terms of their own.
+ * [n1, n2, d1, d2] per term (section 1 + a1·s + a2·s²). One arctangent of N·conj(D) per term
+ * gives ∠N − ∠D exactly when that difference cannot leave (−180°, 180°), so the principal value
+ * is the continuous one. What a section's angle can do is known from its coefficients alone:
+ * with a2 ≤ 0 its real part 1 − a2·ω² stays positive, so the angle stays in (0°, 90°) or
+ * (−90°, 0°) by the sign of a1; with a2 > 0 in (0°, 180°) or (−180°, 0°). A numerator pairs
+ * with the first denominator whose range, subtracted, keeps the term inside (−180°, 180°)
+ * (first the usual same-sign pairs, then any other that fits, e.g. the right-half-plane zero
+ * of a boost with its load pole). Before pairing, first-order sections of one kind and sign
+ * are multiplied two by two into one quadratic ((1 + as)(1 + bs) = 1 + (a+b)s + ab·s², angle
+ * in (0°, 180°)): the real poles of a finite op-amp's stage, or a DCM plant's two poles, then
+ * cost one arctangent per pair instead of one each.
  */
 interface TransferPlan {
   gain: number;
@@ -73,11 +79,50 @@ interface TransferPlan {
 /** a2 of a section [1, a1] or [1, a1, a2]. */
 const a2Of = (p: readonly number[]): number => (p.length > 2 ? p[2] : 0);
 
+/** The range of a section's angle over ω > 0 in quarter turns [lo, hi], or null when it can jump (a1 = 0). */
+const angleRange = (p: readonly number[], isDen: boolean): [number, number] | null => {
+  const a1 = p[1];
+  const a2 = a2Of(p);
+  if (a1 > 0) return a2 > 0 ? [0, 2] : [0, 1];
+  if (a1 < 0) return a2 > 0 ? [-2, 0] : [-1, 0];
+  // a1 = 0: a lossless resonance, 0° then 180°; a denominator of it paired as a1 ≥ 0 always was.
+  return isDen && a2 > 0 ? [0, 2] : null;
+};
+
+/** First-order sections of one sign multiplied two by two into quadratics (see TransferPlan). */
+const mergeFirstOrder = (sections: readonly (readonly number[])[]): (readonly number[])[] => {
+  const out: (readonly number[])[] = [];
+  const waiting: Record<'pos' | 'neg', number | null> = { pos: null, neg: null };
+  for (const p of sections) {
+    if (a2Of(p) !== 0 || p[1] === 0) {
+      out.push(p);
+      continue;
+    }
+    const key = p[1] > 0 ? 'pos' : 'neg';
+    const a = waiting[key];
+    if (a === null) waiting[key] = p[1];
+    else {
+      out.push([1, a + p[1], a * p[1]]);
+      waiting[key] = null;
+    }
+  }
+  for (const a of [waiting.pos, waiting.neg]) if (a !== null) out.push([1, a]);
+  return out;
+};
+
+const fits = (n: readonly number[], d: readonly number[]): boolean => {
+  const rn = angleRange(n, false);
+  const rd = angleRange(d, true);
+  return rn !== null && rd !== null && rn[0] - rd[1] >= -2 && rn[1] - rd[0] <= 2;
+};
+
 const planTransfer = (h: SectionedTransfer): TransferPlan => {
   const terms: number[] = [];
-  const dens = [...h.den];
-  for (const n of h.num) {
-    const k = dens.findIndex((d) => (n[1] > 0 && d[1] >= 0) || (n[1] < 0 && d[1] < 0));
+  const nums = mergeFirstOrder(h.num);
+  const dens = mergeFirstOrder(h.den);
+  for (const n of nums) {
+    let k = dens.findIndex((d) => (n[1] > 0 && d[1] >= 0) || (n[1] < 0 && d[1] < 0));
+    if (k < 0) k = dens.findIndex((d) => fits(n, d));
     const d = k >= 0 ? dens.splice(k, 1)[0] : undefined;
     terms.push(n[1], a2Of(n), d ? d[1] : 0, d ? a2Of(d) : 0);
   }

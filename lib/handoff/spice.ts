@@ -8,19 +8,19 @@
  */
 import { buildSpiceNetlist } from '@/lib/engine/spice-netlist';
 import { COMPENSATORS, compensatorTitle, landmarksSetBy, partRole, PARTS } from '@/lib/catalog/compensators';
-import type { AnalyzeRequest, CompensatorType, PartsResult, PartValues } from '@/lib/engine/types';
+import type { Amplifier, AnalyzeRequest, CompensatorType, PartsResult, PartValues } from '@/lib/engine/types';
 import { builtRequest } from './built-parts';
 import { PART_KEYS, PART_NAME } from './parts-list';
 
 /** The compensator named from the catalogue: its type, each part's place and what it sets. */
-function compensatorComments(type: CompensatorType): string[] {
+function compensatorComments(type: CompensatorType, amplifier: Amplifier | undefined): string[] {
   return [
     `* Compensator: ${compensatorTitle(type)}`,
     ...COMPENSATORS[type].parts.map((p) => {
-      const sets = landmarksSetBy(type, p);
-      return `*   ${PARTS[p].name}: ${partRole(type, p)}${sets.length ? `; sets ${sets.join(', ')}` : ''}`;
+      const sets = landmarksSetBy(type, p, amplifier);
+      return `*   ${PARTS[p].name}: ${partRole(type, p, amplifier)}${sets.length ? `; sets ${sets.join(', ')}` : ''}`;
     }),
-  ].map((line) => line.replace(/[^\x20-\x7e]/g, (c) => (c === '·' ? '*' : c === '–' ? '-' : '?')));
+  ].map((line) => line.replace(/[^\x20-\x7e]/g, (c) => (c === '·' ? '*' : c === '–' ? '-' : c === '∥' ? '||' : '?')));
 }
 
 /** A value as SPICE reads it (the netlist writes the same 12 significant digits). */
@@ -63,7 +63,7 @@ export function spiceNetlistFile(args: { designName: string; revision: number; i
     title,
     '* Small-signal averaged model at one operating point: an estimate. Verify the loop on the bench.',
     '* Run: ngspice -b <this file>   (prints V(duty), then frequency, loopdb, loopdeg)',
-    ...compensatorComments(args.input.compensator.type),
+    ...compensatorComments(args.input.compensator.type, args.input.compensator.amplifier),
     ...partComments(args.parts),
     ...voutComment(args.input, args.parts),
     ...rest,

@@ -16,6 +16,8 @@ import {
   TRACE_COLORS,
 } from '@/lib/catalog';
 import { AMPLIFIERS, COMPENSATOR_TYPES, TOPOLOGIES } from '@/lib/engine/types';
+import { compensatorFor, partRole } from '@/lib/catalog/compensators';
+import { plantTraceName } from '@/lib/catalog/modes';
 import { analyzeRequestSchema, modulatorFieldsSchema } from '@/lib/validation/analyze';
 import { SAMPLE_DESIGNS } from '@/lib/engine/samples';
 import { shapeFromParts } from '@/lib/engine/compensator';
@@ -82,6 +84,31 @@ describe('compensator registry', () => {
   it('drops the optional C2 pole first when a shape has fewer poles', () => {
     expect(presentLandmarks(COMPENSATORS.type3.poles, 1).map((l) => l.formula)).toEqual(['R3·C3']);
     expect(presentLandmarks(COMPENSATORS.type2.poles, 0)).toEqual([]);
+  });
+
+  it('around a transconductance amplifier names the gm formulas (module header of lib/engine/compensator.ts)', () => {
+    const gm = compensatorFor('type3', 'transconductance');
+    expect(gm.gain.formula).toContain('gm');
+    expect(gm.integrator).toBe('gm·Rb/(2π·(R1+Rb)·(C1+C2))');
+    expect(gm.poles.map((p) => p.formula)).toEqual(['C2', '(R3+R1∥Rb)·C3']);
+    expect(partRole('type2', 'c1', 'transconductance')).toMatch(/COMP to ground/);
+    expect(landmarksSetBy('type3', 'rb', 'transconductance')).toEqual(['pole 2', 'gain']);
+    // The op-amp reading is unchanged.
+    expect(compensatorFor('type2', 'opamp').integrator).toBe('1/(2π·R1·(C1+C2))');
+    expect(compensatorFor('type2', undefined)).toBe(COMPENSATORS.type2);
+    for (const type of ['type2', 'type3'] as const) {
+      const e = compensatorFor(type, 'transconductance');
+      expect(e.zeros.length).toBe(COMPENSATORS[type].zeros.length);
+      expect(e.poles.length).toBe(COMPENSATORS[type].poles.length);
+      expect(e.integrator).not.toContain('R1·(C1');
+    }
+  });
+
+  it('names the power-stage trace after the plant the loop uses', () => {
+    expect(plantTraceName('voltage', 'CCM')).toBe('Power stage Gvd/Vramp');
+    expect(plantTraceName('peak-current', 'CCM')).toMatch(/Gvc/);
+    expect(plantTraceName('peak-current', 'DCM')).toMatch(/Gvc.*DCM/);
+    expect(plantTraceName('voltage', 'DCM')).toMatch(/DCM/);
   });
 
   it('says which landmarks a part sets', () => {

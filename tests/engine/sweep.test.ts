@@ -27,6 +27,11 @@ describe('sweepTransfer', () => {
     ['Type III compensator (integrator)', compensatorTransfer({ type: 'type3', r1: 1e4, r2: 2e4, r3: 500, c1: 2.2e-9, c2: 47e-12, c3: 1e-9 })],
     ['RHP zero and LC pair', transferFromPolys([3, -2e-5, 1e-10], [1, 4e-5, 2.5e-9])],
     ['negative gain and a zero at the origin', multiplyTransfers(transferFromPolys([0, -2e-3], [1, 1e-4]), transferFromPolys([1], [1, 1e-6, 1e-10]))],
+    // Four real poles, as a finite op-amp's stage has: merged two by two into quadratics for the sweep.
+    ['four real poles and a quadratic zero', { gain: 3, originOrder: 0, num: [[1, 1e-4, 2e-9]], den: [[1, 2.5], [1, 7e-9], [1, 1e-6], [1, 3e-5]] }],
+    // A boost's RHP zero (with the ESR zero) pairs with the load pole; the sampling pair stays apart.
+    ['RHP zero with a real pole and a high-Q pair', { gain: 40, originOrder: 0, num: [[1, -2.3e-6, -5.6e-13]], den: [[1, 4.4e-4], [1, 3.5e-8, 6.3e-13]] }],
+    ['two RHP real zeros and mixed poles', { gain: -0.5, originOrder: -1, num: [[1, -1e-5], [1, -3e-6]], den: [[1, 1e-3], [1, 2e-7], [1, -1e-7]] }],
   ] as const;
 
   it.each(cases)('%s: magnitude, phase and complex samples match the polynomial ratio', (_, h) => {

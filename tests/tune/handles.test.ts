@@ -205,3 +205,15 @@ describe('plot geometry', () => {
     expect(g.dbToY(ranges.mag[1])).toBeCloseTo(g.magTop, 9);
   });
 });
+
+describe('handle labels around a transconductance amplifier', () => {
+  it('name the gm gain and the divider-loaded feed-forward pole (lib/engine/compensator.ts module header)', () => {
+    const shape = shapeFromParts({ type: 'type3', amplifier: 'transconductance', gm: 1e-3, r1: 10e3, rb: 2.5e3, r2: 20e3, c1: 4.7e-9, c2: 100e-12, r3: 1e3, c3: 1e-9 });
+    const hs = handlesOf(shape, null);
+    expect(hs.find((h) => h.id === 'gain')?.parts).toContain('gm·Rb');
+    expect(hs.find((h) => h.id === 'p1')?.parts).toBe('(R3+R1∥Rb)·C3');
+    const op = handlesOf(shapeFromParts({ type: 'type3', r1: 10e3, r2: 20e3, c1: 4.7e-9, c2: 100e-12, r3: 1e3, c3: 1e-9 }), null);
+    expect(op.find((h) => h.id === 'gain')?.parts).toContain('R1·(C1+C2)');
+    expect(op.find((h) => h.id === 'p1')?.parts).toBe('R3·C3');
+  });
+});
