@@ -13,6 +13,7 @@ import { SAMPLE_DESIGNS } from '@/lib/engine/samples';
 import type { RangeFields } from '@/lib/engine/range';
 import type { AnalyzeRequest, CompensatorInput, ModulatorInput } from '@/lib/engine/types';
 import { renderMail } from '@/lib/mail-render';
+import { summarizeRange, worstCaseSentence } from '@/lib/range-summary';
 import { summarizeAnalysis } from '@/lib/revision-summary';
 import type { Db } from './connection';
 import { addRemark, createBenchData, createDesign, createRevision, decideSignoff, storeMail, submitForReview } from './queries';
@@ -193,10 +194,19 @@ function mail(ctx: Ctx, to: Who, subject: string, paragraphs: string[], quote: s
 }
 
 /** Submit a revision to the demo reviewer, as the designer, with the mail it sends. */
-function submit(ctx: Ctx, ref: { teamId: number; designId: number; revisionId: number; number: number }, designName: string, message: string) {
+function submit(
+  ctx: Ctx,
+  ref: { teamId: number; designId: number; revisionId: number; number: number },
+  designName: string,
+  message: string,
+  input: AnalyzeRequest & RangeFields,
+) {
   submitForReview(ctx.db, ref, { actorId: ctx.users.designer.id, reviewerId: ctx.users.reviewer.id, message });
   const label = `${designName} r${ref.number}`;
-  mail(ctx, 'reviewer', `Review requested: ${label}`, [`Hello ${ctx.users.reviewer.name},`, `${LABELS.designer} asks you to review ${label} and sign it off.`], message, {
+  // As the submit route does: the reviewer signs off the worst case, so the mail states it.
+  const range = summarizeRange(input);
+  const worstCase = range.ok ? worstCaseSentence(range.value) : `Worst case not available: ${range.message}`;
+  mail(ctx, 'reviewer', `Review requested: ${label}`, [`Hello ${ctx.users.reviewer.name},`, `${LABELS.designer} asks you to review ${label} and sign it off.`, worstCase], message, {
     label: `Open r${ref.number}`,
     url: `${ctx.baseUrl}/designs/${ref.designId}/history?r=${ref.number}`,
   });
@@ -240,7 +250,7 @@ function playStory(ctx: Ctx, story: DemoStory) {
         uploadedBy: ctx.users.designer.id,
       });
     if (!step.review) continue;
-    submit(ctx, ref, story.name, step.review.submit);
+    submit(ctx, ref, story.name, step.review.submit, input);
     for (const r of step.review.remarks ?? []) {
       addRemark(ctx.db, { ...ref, authorId: ctx.users[r.by].id, body: r.body, comparedWith: r.comparedWith ?? null });
       // To the author and the reviewer asked, never to the writer (as the remarks route does).
@@ -299,6 +309,6 @@ export function seedStories(
       authorId: users.designer.id,
       note: DEMO_WAITING.revision.note,
     });
-    submit(ctx, { teamId, designId: waiting.id, revisionId: rev.id, number: rev.number }, DEMO_WAITING.name, DEMO_WAITING.message);
+    submit(ctx, { teamId, designId: waiting.id, revisionId: rev.id, number: rev.number }, DEMO_WAITING.name, DEMO_WAITING.message, input);
   }
 }

@@ -18,3 +18,4 @@ export * from './traces';
 export * from './topologies';
 export * from './modes';
 export * from './roles';
+export * from './range-inputs';

@@ -90,6 +90,8 @@ describe('demo review story', () => {
     expect(toReviewer).toEqual(expect.arrayContaining([`Review requested: ${name} r1`, `Review requested: ${name} r3`, `Review requested: ${DEMO_WAITING.name} r2`, `Remark on ${name} r1`]));
     expect(toDesigner).toEqual(expect.arrayContaining([`Changes requested: ${name} r1`, `Changes requested: ${name} r2`, `Approved: ${name} r3`, `Remark on ${name} r2`]));
     expect(listMailTo(db, 'designer@demo.test', 100).every((m) => m.teamId !== null)).toBe(true);
+    // Review requests state the worst case across the operating range, as the submit route's do.
+    for (const m of listMailTo(db, 'reviewer@demo.test', 100).filter((m) => m.subject.startsWith('Review requested'))) expect(m.text).toMatch(/Worst case over 32 corners/);
   });
 
   it('holds a current-mode design with its operating range: r1 sent back for a corner at subharmonic risk, r2 clear and approved', () => {
