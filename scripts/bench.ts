@@ -1,7 +1,7 @@
 /**
  * `npm run bench`: printed timings with their targets, in sections —
  *   engine   median wall time of named engine cases (add one by pushing to BENCH_CASES);
- *   list     the designs list's query on 10 vs 10,000 designs (scripts/bench/list.ts);
+ *   list     the designs list's query on 10 / 100 / 10,000 designs (scripts/bench/list.ts);
  *   load     autocannon against the production build (scripts/bench/load.ts);
  *   browser  Chromium, cold cache: first drawn loop on Tune, JavaScript per page (scripts/bench/browser.ts).
  * `npm run bench -- --only load` (or engine, list, browser; comma-separated) runs some sections.
