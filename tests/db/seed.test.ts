@@ -25,7 +25,7 @@ let cleanup: () => void;
 beforeAll(() => {
   ({ db, cleanup } = tempDb());
   seedDemo(db);
-});
+}, 60_000);
 afterAll(() => cleanup());
 
 describe('demo seed', () => {
