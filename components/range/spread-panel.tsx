@@ -81,12 +81,14 @@ export function SpreadPanel({
             <input type="radio" value="normal" {...register('distribution')} /> normal (tol = 3σ)
           </label>
         </fieldset>
+        {/* Keys keep these two apart: were one <button> reused, the click on Cancel would end with
+            the element already turned into the submit button, and the form would start a new run. */}
         {running ? (
-          <button type="button" className="btn-secondary" onClick={onCancel} data-testid="spread-cancel">
+          <button key="cancel" type="button" className="btn-secondary" onClick={onCancel} data-testid="spread-cancel">
             Cancel
           </button>
         ) : (
-          <button type="submit" className="btn-primary" data-testid="spread-run">
+          <button key="run" type="submit" className="btn-primary" data-testid="spread-run">
             Run spread
           </button>
         )}

@@ -46,9 +46,8 @@ describe.runIf(run)('Tune: closed loop and step', () => {
     await page.getByTestId('run-model-check').click();
     await page.getByTestId('switching-progress').waitFor({ timeout: 30_000 });
     await screenshot(page, 'time-domain-progress');
-    // Progress comes from the worker (its first message marks the run as computed there).
-    await expect.poll(() => page.getByTestId('switching-progress').getAttribute('data-computed-in'), { timeout: 30_000 }).toBe('worker');
     await page.getByTestId('model-check-table').waitFor({ timeout: 120_000 });
+    // Computed in the Web Worker of the production build, not by the page's fallback.
     expect(await page.getByTestId('model-check-summary').getAttribute('data-computed-in')).toBe('worker');
     const rows = await page.getByTestId('model-check-table').locator('tbody tr').count();
     expect(rows).toBeGreaterThanOrEqual(5);
