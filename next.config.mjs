@@ -1,27 +1,7 @@
-const dev = process.env.NODE_ENV === 'development';
-
 /**
- * Security headers on every page and route. The content security policy
- * allows only this origin: scripts ('unsafe-inline' because the App Router's
- * bootstrap and data are inline scripts without a nonce; 'unsafe-eval' only
- * for the dev server's hot reload), styles inline (Plotly and React set style
- * attributes and inject <style>), images data:/blob: (Plotly's download
- * button), the shipped fonts from 'self'. Nothing may frame the app.
+ * Security headers on every page and route. The pages' content security policy is set per
+ * request by proxy.ts (lib/csp.ts), because its script nonce changes on every request.
  */
-const csp = [
-  "default-src 'self'",
-  `script-src 'self' 'unsafe-inline'${dev ? " 'unsafe-eval'" : ''}`,
-  "style-src 'self' 'unsafe-inline'",
-  "img-src 'self' data: blob:",
-  "font-src 'self' data:",
-  `connect-src 'self'${dev ? ' ws: wss:' : ''}`,
-  "worker-src 'self' blob:",
-  "frame-src 'self'",
-  "frame-ancestors 'none'",
-  "base-uri 'self'",
-  "form-action 'self'",
-  "object-src 'none'",
-].join('; ');
 
 const baseHeaders = [
   { key: 'X-Frame-Options', value: 'DENY' },
@@ -42,11 +22,8 @@ const nextConfig = {
   // keeps builds fast on small machines and stops each distDir rewriting tsconfig.json.
   typescript: { ignoreBuildErrors: true },
   async headers() {
-    // Pages get the policy; API answers (JSON, and exports that set their own stricter policy) get the rest.
-    return [
-      { source: '/:path((?!api/).*)', headers: [{ key: 'Content-Security-Policy', value: csp }, ...baseHeaders] },
-      { source: '/api/:path*', headers: baseHeaders },
-    ];
+    // Pages get their policy from proxy.ts; API answers (JSON, and exports that set their own stricter policy) get the rest.
+    return [{ source: '/:path*', headers: baseHeaders }];
   },
 };
 

@@ -5,7 +5,7 @@
  * only with their design, by cascade).
  */
 import { relations, sql } from 'drizzle-orm';
-import { index, integer, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import { index, integer, primaryKey, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import { TOPOLOGIES, type AnalyzeRequest } from '../lib/engine/types';
 import type { BenchPoints } from '../lib/handoff/bench-parse';
 import type { RevisionSummary } from '../lib/revision-summary';
@@ -95,6 +95,25 @@ export const designs = sqliteTable(
     index('designs_team_latest_revision').on(t.teamId, t.latestRevision),
     index('designs_team_signoff').on(t.teamId, t.signoffState),
   ],
+);
+
+/**
+ * How many designs a team has per list bucket (archived or not, topology, state: `unsaved` before the
+ * first save, else the sign-off state), kept by triggers on designs (migration design_counts_triggers).
+ * The designs list's total is a sum over a few of these rows instead of a count over the team.
+ */
+export const designCounts = sqliteTable(
+  'design_counts',
+  {
+    teamId: integer('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    archived: integer('archived', { mode: 'boolean' }).notNull(),
+    topology: text('topology', { enum: TOPOLOGIES }).notNull(),
+    state: text('state').notNull(),
+    n: integer('n').notNull().default(0),
+  },
+  (t) => [primaryKey({ columns: [t.teamId, t.archived, t.topology, t.state] })],
 );
 
 export const revisions = sqliteTable(

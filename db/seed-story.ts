@@ -13,6 +13,7 @@ import { SAMPLE_DESIGNS } from '@/lib/engine/samples';
 import type { RangeFields } from '@/lib/engine/range';
 import type { AnalyzeRequest, CompensatorInput, ModulatorInput } from '@/lib/engine/types';
 import { renderMail } from '@/lib/mail-render';
+import { summarizeRange, worstCaseSentence } from '@/lib/range-summary';
 import { summarizeAnalysis } from '@/lib/revision-summary';
 import type { Db } from './connection';
 import { addRemark, createBenchData, createDesign, createRevision, decideSignoff, storeMail, submitForReview } from './queries';
@@ -50,9 +51,21 @@ export interface DemoStory {
   revisions: DemoRevision[];
 }
 
+const sampleRequest = (key: string): AnalyzeRequest => {
+  const sample = SAMPLE_DESIGNS.find((s) => s.key === key);
+  if (!sample) throw new Error(`engine sample ${key} is missing`);
+  return sample.request;
+};
+
 export const DEMO_STORIES: DemoStory[] = [
   {
-    sample: 'boost-3v7-12v',
+    sample: {
+      ...sampleRequest('boost-3v7-12v'),
+      // The camera and its lamp never draw less than half load; a polymer-hybrid electrolytic,
+      // whose ESR moves far less with temperature than a wet one's.
+      range: { vin: { min: 3.3, max: 4.1 }, iout: { min: 0.25, max: 0.5 }, l: { tol: 0.2 }, c: { tol: 0.2 }, rc: { min: 0.07, max: 0.12 } },
+      targets: { phaseMarginDeg: 45, gainMarginDb: 10 },
+    },
     name: '12 V camera supply — wrist gripper',
     description: 'One Li-ion cell to 12 V / 0.5 A at 600 kHz; feeds the wrist camera and its IR lamp',
     revisions: [
@@ -85,10 +98,11 @@ export const DEMO_STORIES: DemoStory[] = [
         },
       },
       {
-        note: 'fc back to 12 kHz, zero at the LC resonance: PM 56°',
+        note: 'fc back to 12 kHz, zero low (280 Hz) so the low-ESR corners keep their phase: PM 69°, worst corner 51°',
+        compensator: { r2: 8450, c1: 68e-9, c2: 100e-12 },
         bench: [{ name: 'Pilot board 1, 3.7 V in, 0.5 A', gainOffsetDb: -0.8, phaseOffsetDeg: -2.5 }],
         review: {
-          submit: 'fc 12 kHz, PM 56°, GM 19 dB; the pilot board is measured and attached.',
+          submit: 'fc 12 kHz, PM 69°, GM 19 dB; worst corner 51° (high line, light load, ESR low). The pilot board is measured and attached.',
           remarks: [{ by: 'reviewer', comparedWith: 2, body: 'The bench data sits within 1 dB and 3° of the model up to 100 kHz. Good.' }],
           decision: { decision: 'approve', message: 'Approved for the pilot build.' },
         },
@@ -180,18 +194,26 @@ function mail(ctx: Ctx, to: Who, subject: string, paragraphs: string[], quote: s
 }
 
 /** Submit a revision to the demo reviewer, as the designer, with the mail it sends. */
-function submit(ctx: Ctx, ref: { teamId: number; designId: number; revisionId: number; number: number }, designName: string, message: string) {
+function submit(
+  ctx: Ctx,
+  ref: { teamId: number; designId: number; revisionId: number; number: number },
+  designName: string,
+  message: string,
+  input: AnalyzeRequest & RangeFields,
+) {
   submitForReview(ctx.db, ref, { actorId: ctx.users.designer.id, reviewerId: ctx.users.reviewer.id, message });
   const label = `${designName} r${ref.number}`;
-  mail(ctx, 'reviewer', `Review requested: ${label}`, [`Hello ${ctx.users.reviewer.name},`, `${LABELS.designer} asks you to review ${label} and sign it off.`], message, {
+  // As the submit route does: the reviewer signs off the worst case, so the mail states it.
+  const range = summarizeRange(input);
+  const worstCase = range.ok ? worstCaseSentence(range.value) : `Worst case not available: ${range.message}`;
+  mail(ctx, 'reviewer', `Review requested: ${label}`, [`Hello ${ctx.users.reviewer.name},`, `${LABELS.designer} asks you to review ${label} and sign it off.`, worstCase], message, {
     label: `Open r${ref.number}`,
     url: `${ctx.baseUrl}/designs/${ref.designId}/history?r=${ref.number}`,
   });
 }
 
 function playStory(ctx: Ctx, story: DemoStory) {
-  const sample = typeof story.sample === 'string' ? SAMPLE_DESIGNS.find((s) => s.key === story.sample) : { request: story.sample };
-  if (!sample) throw new Error(`engine sample ${story.sample} is missing`);
+  const sample = { request: typeof story.sample === 'string' ? sampleRequest(story.sample) : story.sample };
   const design = createDesign(ctx.db, ctx.users.designer.id, ctx.teamId, {
     name: story.name,
     description: story.description,
@@ -228,7 +250,7 @@ function playStory(ctx: Ctx, story: DemoStory) {
         uploadedBy: ctx.users.designer.id,
       });
     if (!step.review) continue;
-    submit(ctx, ref, story.name, step.review.submit);
+    submit(ctx, ref, story.name, step.review.submit, input);
     for (const r of step.review.remarks ?? []) {
       addRemark(ctx.db, { ...ref, authorId: ctx.users[r.by].id, body: r.body, comparedWith: r.comparedWith ?? null });
       // To the author and the reviewer asked, never to the writer (as the remarks route does).
@@ -275,9 +297,9 @@ export function seedStories(
 
   const waiting = existing.get(DEMO_WAITING.name);
   if (waiting && waiting.latestRevision === 1) {
-    const sample = SAMPLE_DESIGNS.find((s) => s.key === 'buck-24v-5v')!;
-    const c = sample.request.compensator;
-    const input: AnalyzeRequest = { ...sample.request, compensator: { ...c, r1: c.r1 * DEMO_WAITING.revision.r1Scale } };
+    const request = sampleRequest('buck-24v-5v');
+    const c = request.compensator;
+    const input: AnalyzeRequest = { ...request, compensator: { ...c, r1: c.r1 * DEMO_WAITING.revision.r1Scale } };
     const rev = createRevision(db, {
       teamId,
       designId: waiting.id,
@@ -287,6 +309,6 @@ export function seedStories(
       authorId: users.designer.id,
       note: DEMO_WAITING.revision.note,
     });
-    submit(ctx, { teamId, designId: waiting.id, revisionId: rev.id, number: rev.number }, DEMO_WAITING.name, DEMO_WAITING.message);
+    submit(ctx, { teamId, designId: waiting.id, revisionId: rev.id, number: rev.number }, DEMO_WAITING.name, DEMO_WAITING.message, input);
   }
 }

@@ -4,10 +4,34 @@
  * recipient, in the `mailbox` table of the app's SQLite database. Nothing is
  * ever relayed. Started by scripts/fake-smtp.ts (demo) and by the test setup.
  */
+import { simpleParser } from 'mailparser';
 import { SMTPServer } from 'smtp-server';
 import { openDatabase, type OpenDb } from '@/db/connection';
 import { storeMail } from '@/db/queries/mailbox';
-import { parseMail } from './mime-parse';
+
+/** What the mailbox keeps of a message: decoded subject, sender, team header and the first text and HTML parts. */
+export interface ReadMail {
+  subject: string;
+  /** The From header's first address; '' when none. */
+  fromAddress: string;
+  /** X-Phasewright-Team as a positive integer, else null. */
+  teamId: number | null;
+  text: string;
+  html: string;
+}
+
+/** A raw message read by mailparser (headers, encoded words, multipart, transfer encodings, charsets). */
+export async function readMail(raw: Buffer | string): Promise<ReadMail> {
+  const m = await simpleParser(raw, { skipHtmlToText: true, skipTextToHtml: true, skipImageLinks: true, skipTextLinks: true });
+  const team = Number(m.headers.get('x-phasewright-team'));
+  return {
+    subject: m.subject ?? '',
+    fromAddress: m.from?.value[0]?.address ?? '',
+    teamId: Number.isInteger(team) && team > 0 ? team : null,
+    text: m.text ?? '',
+    html: m.html || '',
+  };
+}
 
 export interface FakeSmtp {
   port: number;
@@ -44,17 +68,16 @@ export function startFakeSmtp(opts: FakeSmtpOptions): Promise<FakeSmtp> {
       const chunks: Buffer[] = [];
       stream.on('data', (c: Buffer) => chunks.push(c));
       stream.on('error', callback);
-      stream.on('end', () => {
+      stream.on('end', async () => {
         try {
-          const raw = Buffer.concat(chunks).toString('utf8');
-          const parsed = parseMail(raw);
-          const from = session.envelope.mailFrom ? session.envelope.mailFrom.address : parsed.from;
+          const bytes = Buffer.concat(chunks);
+          const raw = bytes.toString('utf8');
+          const parsed = await readMail(bytes);
+          const from = session.envelope.mailFrom ? session.envelope.mailFrom.address : parsed.fromAddress;
           const db = dbFor();
-          const teamHeader = Number(parsed.headers.get('x-phasewright-team'));
-          const teamId = Number.isInteger(teamHeader) && teamHeader > 0 ? teamHeader : null;
           for (const rcpt of session.envelope.rcptTo) {
             storeMail(db, {
-              teamId,
+              teamId: parsed.teamId,
               fromAddress: from.toLowerCase(),
               toAddress: rcpt.address.toLowerCase(),
               subject: parsed.subject,

@@ -2,6 +2,7 @@
  * The words and markup of a Phasewright mail, apart from sending it (lib/mail.ts), so the demo
  * seed can store the same messages in the mailbox without a mail server.
  */
+import escapeHtml from 'escape-html';
 
 export interface OutgoingMail {
   to: string;
@@ -13,10 +14,6 @@ export interface OutgoingMail {
   link?: { label: string; url: string };
   /** The team the message is about; sent as X-Phasewright-Team so the demo mailbox can show each team its own mail. */
   teamId?: number;
-}
-
-function escapeHtml(s: string) {
-  return s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 }
 
 /** The plain-text and HTML bodies of a message. */

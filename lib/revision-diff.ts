@@ -3,7 +3,7 @@
  * operating-point figures, side by side, each row marked when it differs.
  * Pure data; Compare formats it.
  */
-import { AMPLIFIER_LABELS, compensatorLabel, inputApplies, inputLabel, MODULATOR_MODE_LABELS, PART_ORDER, PARTS, readInput, STAGE_INPUTS, type InputSpec, type PartKey } from '@/lib/catalog';
+import { AMPLIFIER_INPUTS, AMPLIFIER_LABELS, amplifierInputLabel, compensatorLabel, inputApplies, inputLabel, MODULATOR_MODE_LABELS, PART_ORDER, PARTS, readInput, STAGE_INPUTS, type InputSpec, type PartKey } from '@/lib/catalog';
 import type { AnalyzeRequest } from '@/lib/engine/types';
 import type { RevisionSummary } from './revision-summary';
 
@@ -49,11 +49,11 @@ const SPECS: Spec[] = [
   ...STAGE_INPUTS.filter((spec) => spec.section !== 'converter').map(stageSpec),
   { group: 'Compensator', key: 'type', label: 'Type', kind: 'text', get: (s) => compensatorLabel(s.input.compensator.type) },
   { group: 'Compensator', key: 'amplifier', label: 'Error amplifier', kind: 'text', get: (s) => AMPLIFIER_LABELS[s.input.compensator.amplifier ?? 'opamp'] },
-  { group: 'Compensator', key: 'comp.gm', label: 'Transconductance gm', kind: 'si', unit: 'S', get: (s) => s.input.compensator.gm },
-  { group: 'Compensator', key: 'comp.ro', label: 'Amplifier output resistance ro', kind: 'si', unit: 'Ω', get: (s) => s.input.compensator.ro },
+  { group: 'Compensator', key: 'comp.gm', label: amplifierInputLabel('gm'), kind: 'si', unit: AMPLIFIER_INPUTS.gm.unit, get: (s) => s.input.compensator.gm },
+  { group: 'Compensator', key: 'comp.ro', label: amplifierInputLabel('ro'), kind: 'si', unit: AMPLIFIER_INPUTS.ro.unit, get: (s) => s.input.compensator.ro },
   { group: 'Compensator', key: 'comp.rb', label: `${PARTS.rb.name} as entered`, kind: 'si', unit: PARTS.rb.unit, get: (s) => s.input.compensator.rb },
-  { group: 'Compensator', key: 'comp.a0', label: 'Op-amp gain a0', kind: 'si', unit: 'V/V', get: (s) => s.input.compensator.opamp?.a0 },
-  { group: 'Compensator', key: 'comp.gbw', label: 'Op-amp GBW', kind: 'si', unit: 'Hz', get: (s) => s.input.compensator.opamp?.gbw },
+  { group: 'Compensator', key: 'comp.a0', label: amplifierInputLabel('a0'), kind: 'si', unit: AMPLIFIER_INPUTS.a0.unit, get: (s) => s.input.compensator.opamp?.a0 },
+  { group: 'Compensator', key: 'comp.gbw', label: amplifierInputLabel('gbw'), kind: 'si', unit: AMPLIFIER_INPUTS.gbw.unit, get: (s) => s.input.compensator.opamp?.gbw },
   ...COMP_PARTS.map<Spec>((p) => ({
     group: 'Compensator',
     key: `comp.${p}`,

@@ -1,3 +1,4 @@
+import { formatSi } from '@/lib/units/si';
 import { simulateStepResponse } from '@/lib/engine/step-response';
 import type { AnalyzeRequest, StepDefinition } from '@/lib/engine/types';
 import { roundSignificant } from '@/lib/engine/precision';
@@ -9,7 +10,7 @@ export const stepOf = (input: AnalyzeRequest): StepDefinition =>
 /** Words for a step: "load 1.5 → 3 A in 1 µs". */
 export const describeStep = (s: StepDefinition): string => {
   const unit = s.kind === 'load' ? 'A' : 'V';
-  const rise = s.slew ? ` in ${Number((Math.abs(s.to - s.from) / s.slew).toPrecision(3))} s` : ', ideal step';
+  const rise = s.slew ? ` in ${formatSi(Math.abs(s.to - s.from) / s.slew, 's')}` : ', ideal step';
   return `${s.kind} ${s.from} → ${s.to} ${unit}${rise}`;
 };
 

@@ -1,7 +1,7 @@
 /**
  * `npm run bench`: printed timings with their targets, in sections —
  *   engine   median wall time of named engine cases (add one by pushing to BENCH_CASES);
- *   list     the designs list's query on 10 vs 10,000 designs (scripts/bench/list.ts);
+ *   list     the designs list's query on 10 / 100 / 10,000 designs (scripts/bench/list.ts);
  *   load     autocannon against the production build (scripts/bench/load.ts);
  *   browser  Chromium, cold cache: first drawn loop on Tune, JavaScript per page (scripts/bench/browser.ts).
  * `npm run bench -- --only load` (or engine, list, browser; comma-separated) runs some sections.
@@ -10,7 +10,7 @@
 import os from 'node:os';
 import { analyze, analyzeLoop, preparePlant } from '@/lib/engine/analyze';
 import { partsFromShape, shapeFromParts } from '@/lib/engine/compensator';
-import { SAMPLE_DESIGNS } from '@/lib/engine/samples';
+import { MODE_SAMPLES, SAMPLE_DESIGNS } from '@/lib/engine/samples';
 import { simulateStepResponse } from '@/lib/engine/step-response';
 import { simulatorFor } from '@/lib/engine/switching-check';
 import type { AnalyzeRequest, CompensatorShape } from '@/lib/engine/types';
@@ -79,51 +79,12 @@ const dragCase = (): BenchCase => {
   };
 };
 
-/** One design per control mode and amplifier (our own), analysed in full. */
-const MODE_DESIGNS: [string, AnalyzeRequest][] = [
-  [
-    'peak current mode, CCM buck, op-amp Type II',
-    {
-      converter: { topology: 'buck', vin: 12, vout: 3.3, iout: 2, fsw: 500e3, l: 4.7e-6, rl: 0.02, c: 100e-6, rc: 0.005, vd: 0 },
-      modulator: { mode: 'peak-current', ri: 0.5, se: 5e4 },
-      feedback: { vref: 0.8 },
-      compensator: { type: 'type2', r1: 10e3, r2: 20e3, c1: 4.7e-9, c2: 47e-12 },
-    },
-  ],
-  [
-    'peak current mode, CCM boost, transconductance Type II',
-    {
-      converter: { topology: 'boost', vin: 5, vout: 12, iout: 0.5, fsw: 400e3, l: 10e-6, rl: 0.03, c: 44e-6, rc: 0.005, vd: 0.4 },
-      modulator: { mode: 'peak-current', ri: 0.1, se: 3e4 },
-      feedback: { vref: 1.2 },
-      compensator: { type: 'type2', amplifier: 'transconductance', gm: 1e-3, ro: 2e6, rb: 4444.44, r1: 40e3, r2: 10e3, c1: 10e-9, c2: 100e-12 },
-    },
-  ],
-  [
-    'voltage mode, CCM buck, finite op-amp Type III',
-    {
-      converter: { topology: 'buck', vin: 12, vout: 3.3, iout: 2, fsw: 500e3, l: 4.7e-6, rl: 0.02, c: 100e-6, rc: 0.005, vd: 0 },
-      modulator: { vramp: 1 },
-      feedback: { vref: 0.8 },
-      compensator: { type: 'type3', r1: 10e3, r2: 4.7e3, r3: 500, c1: 10e-9, c2: 220e-12, c3: 4.7e-9, opamp: { a0: 1e5, gbw: 20e6 } },
-    },
-  ],
-  [
-    'voltage mode, DCM boost (light load), op-amp Type II',
-    {
-      converter: { topology: 'boost', vin: 5, vout: 12, iout: 0.02, fsw: 400e3, l: 10e-6, rl: 0, c: 44e-6, rc: 0.005, vd: 0.4 },
-      modulator: { vramp: 1 },
-      feedback: { vref: 1.2 },
-      compensator: { type: 'type2', r1: 10e3, r2: 20e3, c1: 4.7e-9, c2: 47e-12 },
-    },
-  ],
-];
-
-const modeCases: BenchCase[] = MODE_DESIGNS.map(([name, req]) => ({
+/** One design per control mode and amplifier (lib/engine/samples.ts), analysed in full. */
+const modeCases: BenchCase[] = MODE_SAMPLES.map(({ name, request }) => ({
   name: `full analyze(), ${name} (400 points)`,
   targetUs: 50,
   batch: 10,
-  run: () => analyze(req),
+  run: () => analyze(request),
 }));
 
 /** Machine speed: the transcendental work of one 400-point sweep, to compare runs across machines and loads. */

@@ -5,10 +5,15 @@
  * as they are. Without this, every cold request would gzip the files again (Plotly's 4.6 MB
  * chunk costs ~150 ms of server CPU each time). Runs after `next build` (npm's postbuild, the
  * tests' build, `npm run demo`); skips files already done.
+ *
+ * It first copies plotly.js-dist-min's bundle to <distDir>/static/vendor/plotly-<version>.min.js
+ * (lib/plotly-asset.ts names it): pages with a plot preload that file early and evaluate it after
+ * their first picture, which a bundler's lazy chunk (fetched and evaluated in one go) cannot do.
  */
 import fs from 'node:fs';
 import path from 'node:path';
 import zlib from 'node:zlib';
+import { createRequire } from 'node:module';
 import { promisify } from 'node:util';
 
 const brotli = promisify(zlib.brotliCompress);
@@ -23,9 +28,22 @@ function* walk(dir) {
   }
 }
 
+/** Copy Plotly's browser bundle into the build's static files (see above); returns its path. */
+export function copyPlotly(distDir) {
+  const pkgDir = path.dirname(createRequire(import.meta.url).resolve('plotly.js-dist-min/package.json'));
+  const { version } = JSON.parse(fs.readFileSync(path.join(pkgDir, 'package.json'), 'utf8'));
+  const dest = path.join(distDir, 'static', 'vendor', `plotly-${version}.min.js`);
+  if (!fs.existsSync(dest)) {
+    fs.mkdirSync(path.dirname(dest), { recursive: true });
+    fs.copyFileSync(path.join(pkgDir, 'plotly.min.js'), dest);
+  }
+  return dest;
+}
+
 export async function precompress(distDir) {
   const root = path.join(distDir, 'static');
   if (!fs.existsSync(root)) throw new Error(`${root} not found: build first`);
+  copyPlotly(distDir);
   let files = 0;
   let bytes = 0;
   const jobs = [];

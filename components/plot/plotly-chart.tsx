@@ -1,31 +1,25 @@
 'use client';
 
 /**
- * Thin Plotly wrapper. Plotly (plotly.js-dist-min, ~1.4 MB gzip) is imported
- * dynamically on first mount, so it never reaches the server bundle nor pages
- * without a plot. Updates go through Plotly.react, coalesced to one per
- * animation frame (a dragged handle can emit many updates per frame); the
- * container's ResizeObserver resizes the plot; unmount purges it.
+ * A Plotly plot: react-plotly.js's component from its factory, bound to Plotly loaded on first
+ * mount (plotly-loader.ts), so Plotly never reaches the server bundle nor a page without a plot.
+ * The wrapper measures its box (layout width, `onSize` for overlays) before the first paint, so
+ * a caller can draw its own first picture (children) at once and let Plotly take over.
  *
- * Props: `data`, `layout`, `config` as Plotly takes them; `onRendered` is
- * called after each draw with the graph div and its size (overlays read it);
- * `children` render above the plot in a relatively positioned box.
+ * Props: `data`, `layout`, `config` as Plotly takes them; `load={false}` holds Plotly back;
+ * `onDrawn` is called after Plotly's first draw; `children` render above the plot in a relatively
+ * positioned box.
  */
-import { useEffect, useRef, useState } from 'react';
+import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import type { Config, Data, Layout } from 'plotly.js-dist-min';
-
-type PlotlyModule = typeof import('plotly.js-dist-min');
-
-let plotlyPromise: Promise<PlotlyModule> | null = null;
-/** Start fetching and evaluating Plotly (once); later calls share the same promise. */
-export const loadPlotly = () => (plotlyPromise ??= import('plotly.js-dist-min').then((m) => (m.default ?? m) as PlotlyModule));
+import { loadPlotComponent, type PlotComponent } from './plotly-loader';
 
 export interface PlotlyChartProps {
   data: Data[];
   layout: Partial<Layout>;
   config?: Partial<Config>;
   className?: string;
-  /** Called with the container size whenever it changes (before the plot is redrawn). */
+  /** Called with the box's size on mount (before the first paint) and whenever it changes. */
   onSize?: (size: { width: number; height: number }) => void;
   /** False holds Plotly back (a caller drawing its own first picture); default true. */
   load?: boolean;
@@ -39,78 +33,50 @@ export interface PlotlyChartProps {
 }
 
 const BASE_CONFIG: Partial<Config> = { displaylogo: false, responsive: false, displayModeBar: false, scrollZoom: false };
+const FILL: React.CSSProperties = { position: 'absolute', inset: 0 };
 
 export function PlotlyChart({ data, layout, config, className, onSize, load = true, onDrawn, placeholder = true, children, ...rest }: PlotlyChartProps) {
   const boxRef = useRef<HTMLDivElement>(null);
-  const plotRef = useRef<HTMLDivElement>(null);
-  const latest = useRef({ data, layout, config });
-  const frame = useRef<number | null>(null);
-  const [ready, setReady] = useState(false);
-  const plotly = useRef<PlotlyModule | null>(null);
-  const drawn = useRef(false);
+  const [Plot, setPlot] = useState<PlotComponent | null>(null);
+  const [width, setWidth] = useState(0);
+  const onSizeRef = useRef(onSize);
+  onSizeRef.current = onSize;
   const onDrawnRef = useRef(onDrawn);
   onDrawnRef.current = onDrawn;
-  latest.current = { data, layout, config };
 
-  const draw = () => {
-    if (frame.current !== null) return;
-    frame.current = requestAnimationFrame(() => {
-      frame.current = null;
-      const el = plotRef.current;
-      const P = plotly.current;
-      if (!el || !P) return;
-      const { data: d, layout: l, config: c } = latest.current;
-      void P.react(el, d, { ...l, width: el.clientWidth || undefined }, { ...BASE_CONFIG, ...c }).then(() => {
-        if (drawn.current) return;
-        drawn.current = true;
-        onDrawnRef.current?.();
-      });
-    });
-  };
+  // Measured in a layout effect so the caller's first picture is in the first paint after hydration.
+  useLayoutEffect(() => {
+    const box = boxRef.current;
+    if (!box) return;
+    const measure = () => {
+      setWidth(box.clientWidth);
+      onSizeRef.current?.({ width: box.clientWidth, height: box.clientHeight });
+    };
+    measure();
+    const ro = new ResizeObserver(measure);
+    ro.observe(box);
+    return () => ro.disconnect();
+  }, []);
 
   useEffect(() => {
     if (!load) return;
     let alive = true;
-    loadPlotly().then((P) => {
-      if (!alive) return;
-      plotly.current = P;
-      setReady(true);
-      draw();
+    void loadPlotComponent().then((C) => {
+      if (alive) setPlot(() => C);
     });
     return () => {
       alive = false;
     };
-    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [load]);
 
-  useEffect(() => {
-    const el = plotRef.current;
-    const box = boxRef.current;
-    const ro = new ResizeObserver(() => {
-      if (box) onSizeRef.current?.({ width: box.clientWidth, height: box.clientHeight });
-      draw();
-    });
-    if (box) ro.observe(box);
-    return () => {
-      ro.disconnect();
-      if (frame.current !== null) cancelAnimationFrame(frame.current);
-      if (el && plotly.current) plotly.current.purge(el);
-    };
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, []);
-
-  const onSizeRef = useRef(onSize);
-  onSizeRef.current = onSize;
-
-  useEffect(() => {
-    if (ready) draw();
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [data, layout, config, ready]);
+  const fullLayout = useMemo(() => ({ ...layout, width: width || undefined }), [layout, width]);
+  const fullConfig = useMemo(() => ({ ...BASE_CONFIG, ...config }), [config]);
+  const drawn = useCallback(() => onDrawnRef.current?.(), []);
 
   return (
-    <div ref={boxRef} role="group" className={`relative ${className ?? ''}`} data-plot-ready={ready ? 'true' : 'false'} {...rest}>
-      <div ref={plotRef} className="absolute inset-0" />
-      {!ready && placeholder && <div className="absolute inset-0 grid place-items-center text-sm text-slate-400">Loading plot…</div>}
+    <div ref={boxRef} role="group" className={`relative ${className ?? ''}`} data-plot-ready={Plot ? 'true' : 'false'} {...rest}>
+      {Plot && width > 0 && <Plot data={data} layout={fullLayout} config={fullConfig} onInitialized={drawn} style={FILL} />}
+      {!Plot && placeholder && <div className="absolute inset-0 grid place-items-center text-sm text-slate-400">Loading plot…</div>}
       {children}
     </div>
   );

@@ -4,41 +4,15 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { memo, useEffect, useRef } from 'react';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
+import { RANGE_INPUTS, RANGE_ORDER_MESSAGES, type RangeFormField, type RangeInputSpec } from '@/lib/catalog/range-inputs';
 import { parseSi } from '@/lib/units/si';
 import type { MarginTargets, OperatingRange } from '@/lib/engine/range';
 import type { FieldIssue } from '@/lib/engine/types';
 import { TextField } from '@/components/tune/text-field';
 
-type Field = 'vinMin' | 'vinMax' | 'ioutMin' | 'ioutMax' | 'lTol' | 'cTol' | 'rcMin' | 'rcMax' | 'rTol' | 'capTol' | 'pm' | 'gm';
-
-interface Spec {
-  name: Field;
-  label: string;
-  unit: string;
-  /** Engine path of the value, for its 422 messages. */
-  path: string;
-  /** Shown in % while stored as a fraction. */
-  percent?: boolean;
-  /** Empty = the parts series' own tolerance. */
-  optional?: boolean;
-  /** Zero allowed (ESR, tolerances, targets). */
-  zero?: boolean;
-}
-
-const FIELDS: readonly Spec[] = [
-  { name: 'vinMin', label: 'Input voltage, low line', unit: 'V', path: 'range.vin.min' },
-  { name: 'vinMax', label: 'Input voltage, high line', unit: 'V', path: 'range.vin.max' },
-  { name: 'ioutMin', label: 'Load current, light', unit: 'A', path: 'range.iout.min' },
-  { name: 'ioutMax', label: 'Load current, full', unit: 'A', path: 'range.iout.max' },
-  { name: 'lTol', label: 'Inductance tolerance ±', unit: '%', path: 'range.l.tol', percent: true, zero: true },
-  { name: 'cTol', label: 'Capacitance tolerance ±', unit: '%', path: 'range.c.tol', percent: true, zero: true },
-  { name: 'rcMin', label: 'ESR, hot (lowest)', unit: 'Ω', path: 'range.rc.min', zero: true },
-  { name: 'rcMax', label: 'ESR, cold (highest)', unit: 'Ω', path: 'range.rc.max', zero: true },
-  { name: 'rTol', label: 'Compensator resistors ±', unit: '%', path: 'range.parts.resistorTol', percent: true, optional: true, zero: true },
-  { name: 'capTol', label: 'Compensator capacitors ±', unit: '%', path: 'range.parts.capacitorTol', percent: true, optional: true, zero: true },
-  { name: 'pm', label: 'Phase margin target', unit: '°', path: 'targets.phaseMarginDeg', zero: true },
-  { name: 'gm', label: 'Gain margin target', unit: 'dB', path: 'targets.gainMarginDb', zero: true },
-];
+type Field = RangeFormField;
+type Spec = RangeInputSpec;
+const FIELDS = RANGE_INPUTS;
 
 const numberText = (s: Spec) =>
   z
@@ -68,9 +42,9 @@ const numberText = (s: Spec) =>
 
 const formSchema = z
   .object(Object.fromEntries(FIELDS.map((f) => [f.name, numberText(f)])) as Record<Field, ReturnType<typeof numberText>>)
-  .refine((v) => v.vinMax === null || v.vinMin === null || v.vinMax >= v.vinMin, { path: ['vinMax'], message: 'High line must be at least the low line' })
-  .refine((v) => v.ioutMax === null || v.ioutMin === null || v.ioutMax >= v.ioutMin, { path: ['ioutMax'], message: 'Full load must be at least the light load' })
-  .refine((v) => v.rcMax === null || v.rcMin === null || v.rcMax >= v.rcMin, { path: ['rcMax'], message: 'Cold ESR must be at least the hot ESR' });
+  .refine((v) => v.vinMax === null || v.vinMin === null || v.vinMax >= v.vinMin, { path: ['vinMax'], message: RANGE_ORDER_MESSAGES.vinMax })
+  .refine((v) => v.ioutMax === null || v.ioutMin === null || v.ioutMax >= v.ioutMin, { path: ['ioutMax'], message: RANGE_ORDER_MESSAGES.ioutMax })
+  .refine((v) => v.rcMax === null || v.rcMin === null || v.rcMax >= v.rcMin, { path: ['rcMax'], message: RANGE_ORDER_MESSAGES.rcMax });
 
 type Text = z.input<typeof formSchema>;
 type Values = z.output<typeof formSchema>;

@@ -9,11 +9,14 @@ export type CornersState = { ok: true; value: CornersResult; checks: Check[] } |
 
 /**
  * The corner sweep of the design as edited, in the page (32 analyses take a few tens of ms):
- * deferred so a drag or a keystroke is drawn first, and held still while a handle is dragged.
+ * deferred so a drag or a keystroke is drawn first (and the page's first picture before them),
+ * and held still while a handle is dragged.
  */
 export function useCorners(request: AnalyzeRequest, range: OperatingRange, targets: MarginTargets, paused: boolean): CornersState {
   const trio = useMemo(() => ({ request, range, targets }), [request, range, targets]);
-  const deferred = useDeferredValue(trio);
+  // null on the first render (server and hydration): the corners follow in a background render,
+  // so they never delay the page's first picture.
+  const deferred = useDeferredValue<typeof trio | null>(trio, null);
   const input = paused ? null : deferred;
   const last = useMemo<{ value: CornersState }>(() => ({ value: null }), []);
   const computed = useMemo<CornersState | undefined>(() => {

@@ -1,39 +1,54 @@
 'use client';
 
 import Link from 'next/link';
-import { useCallback, useDeferredValue, useEffect, useMemo, useRef, useState } from 'react';
-import { defaultCrossoverHz, placeForType, proposeForPlant } from '@/lib/engine/starting-point';
+import { useCallback, useDeferredValue, useEffect, useMemo, useReducer, useRef } from 'react';
+import { dividerRb } from '@/lib/engine/compensator';
+import type { MarginTargets, OperatingRange } from '@/lib/engine/range';
+import { defaultCrossoverHz } from '@/lib/engine/starting-point';
 import { defaultSweep } from '@/lib/engine/sweep';
-import { EngineInputError, type AnalyzeRequest, type CompensatorShape, type CompensatorType, type FieldIssue, type PartsOptions, type SweepOptions } from '@/lib/engine/types';
-import { formatSi } from '@/lib/units/si';
+import type { AnalyzeRequest, CompensatorShape, CompensatorType, FieldIssue, PartsOptions, SweepOptions } from '@/lib/engine/types';
+import { MODULATOR_MODE_LABELS } from '@/lib/catalog';
+import { useBenchOverlay } from '@/lib/queries/bench';
 import type { RevisionListItem, SavedRevision } from '@/lib/queries/revisions';
+import { cornerTraces } from '@/components/range/corner-traces';
+import { CornerViewToggle, RangePanel } from '@/components/range/range-panel';
+import { useRangeAnalysis } from '@/components/range/use-range-analysis';
+import { WorstReadout } from '@/components/range/worst-readout';
+import { TimeDomainView } from '@/components/time-domain/time-domain-view';
+import { TuneViewSwitch, type TuneView } from '@/components/time-domain/tune-view-switch';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { AmplifierForm, type AmplifierValues } from './amplifier-form';
 import { ChecksList } from './checks-list';
 import { CompensatorTable } from './compensator-table';
 import type { DragOffset, HandleMove } from './handle-overlay';
-import { applyMove, compensatorFromShape, dragShape, handlesOf, partsOfType, shapeFromParts, withPart, type PartKey, type PartLock } from './handles';
-import { canRedo, canUndo, commit, historyKey, redo, replace, settle, startHistory, undo, type History } from './history';
-import { SweepForm } from './sweep-form';
-import { sweepCovering } from './sweep-range';
+import { applyMove, compensatorFromShape, handlesOf, shapeFromParts, withPart, type PartKey } from './handles';
 import { MarginsReadout } from './margins-readout';
 import { PartsTable } from './parts-table';
 import { RevisionPicker } from './revision-picker';
 import { SaveBar } from './save-bar';
 import { StageForm } from './stage-form';
-import { AmplifierForm, type AmplifierValues } from './amplifier-form';
-import { dividerRb, partsFromShape } from '@/lib/engine/compensator';
-import { MODULATOR_MODE_LABELS } from '@/lib/catalog';
 import { StartingPointForm, type StartingPointRequest } from './starting-point-form';
+import { SweepForm } from './sweep-form';
+import { sweepCovering } from './sweep-range';
 import { analyzeCompensator, analyzeCompensatorParts, prepareStage } from './tune-analysis';
 import { TunePlot } from './tune-plot';
-import { useBenchOverlay } from '@/lib/queries/bench';
+import {
+  canRedo,
+  canUndo,
+  changeAmplifier,
+  historyKey,
+  initTuneState,
+  isDirty,
+  lockOf,
+  placeType,
+  proposeStart,
+  stableJson,
+  tuneReducer,
+  type Placed,
+  type StageEdit,
+} from './tune-state';
 import { useLeaveGuard } from './use-leave-guard';
-import { TuneViewSwitch, type TuneView } from '@/components/time-domain/tune-view-switch';
-import { TimeDomainView } from '@/components/time-domain/time-domain-view';
-import { withRange, type MarginTargets, type OperatingRange } from '@/lib/engine/range';
-import { cornerTraces } from '@/components/range/corner-traces';
-import { CornerViewToggle, RangePanel } from '@/components/range/range-panel';
-import { useRangeAnalysis, type DesignInput } from '@/components/range/use-range-analysis';
-import { WorstReadout } from '@/components/range/worst-readout';
 
 export type TuneMode = 'edit' | 'role-read-only' | 'earlier-revision';
 
@@ -53,96 +68,33 @@ export interface TuneScreenProps {
   revisions: Pick<RevisionListItem, 'number' | 'note' | 'authorName' | 'createdAt'>[];
 }
 
-/**
- * JSON with sorted keys, so two inputs compare equal whatever order their keys were written in;
- * with `digits`, numbers rounded to that many significant digits.
- */
-function stableJson(v: unknown, digits?: number): string {
-  return JSON.stringify(v, (_k, val) =>
-    val && typeof val === 'object' && !Array.isArray(val)
-      ? Object.fromEntries(Object.entries(val).sort(([a], [b]) => a.localeCompare(b)))
-      : digits && typeof val === 'number' && Number.isFinite(val)
-        ? Number(val.toPrecision(digits))
-        : val,
-  );
-}
-
-/**
- * Inputs compare to 12 significant digits: a handle dragged away and back returns through
- * floating-point products (~1e-16 off), which is the same circuit and no change to save.
- */
-const compareJson = (v: unknown) => stableJson(v, 12);
-
 const NO_ISSUES: FieldIssue[] = [];
 
-const firstMessage = (err: unknown) => (err instanceof EngineInputError ? err.issues[0]?.message ?? err.message : err instanceof Error ? err.message : String(err));
-
-function Card({ title, children, className = '', aside }: { title: string; children: React.ReactNode; className?: string; aside?: React.ReactNode }) {
-  return (
-    <section className={`card p-4 ${className}`} aria-label={title}>
-      <div className="mb-3 flex items-baseline justify-between gap-2">
-        <h2 className="text-sm font-semibold text-slate-800">{title}</h2>
-        {aside}
-      </div>
-      {children}
-    </section>
-  );
-}
-
-const sameInput = <T,>(a: T, b: T) => a === b || compareJson(a) === compareJson(b);
-
 export function TuneScreen({ designId, initialInput, savedInput, editFrom = null, shownRevision, latestRevision, mode, role, revisions }: TuneScreenProps) {
-  // Scratch: any reader (viewer, reviewer, an earlier revision) edits and sees margins; nothing is saved.
-  const [scratch, setScratch] = useState(false);
+  // All of the screen's own state, and every change to it, is in tune-state.ts.
+  const [state, dispatch] = useReducer(tuneReducer, { initialInput, savedInput, shownRevision, editFrom }, initTuneState);
+  const { input, scratch, view } = state;
   const readOnly = mode !== 'edit' && !scratch;
+  const dragging = state.drag !== null;
   const bench = useBenchOverlay(designId, shownRevision); // the shown revision's bench data
-  // Every edit on Tune goes through the history, so Ctrl+Z / Ctrl+Shift+Z undo and redo it.
-  // The operating range is written out (defaults filled) so every save stores it; an older
-  // revision without one opens with the defaults and is not counted as changed.
-  const [history, setHistory] = useState<History<DesignInput>>(() => startHistory(withRange(initialInput)));
-  const input = history.present;
-  // The stage form keeps its own text; it is drawn again when undo, redo or leaving scratch change the stage under it.
-  const [stageEpoch, setStageEpoch] = useState(0);
-  // An edit that lands back on the saved input (to rounding) takes the saved input itself.
-  const savedRef = useRef<{ json: string; input: DesignInput }>({ json: compareJson(withRange(savedInput ?? initialInput)), input: withRange(savedInput ?? initialInput) });
-  const snapToSaved = useCallback((next: DesignInput): DesignInput => (compareJson(next) === savedRef.current.json ? savedRef.current.input : next), []);
-  const edit = useCallback(
-    (fn: (i: DesignInput) => DesignInput) => setHistory((h) => commit(h, snapToSaved(fn(h.present)), sameInput)),
-    [snapToSaved],
-  );
-  const setInput = edit;
-  const dragCommitted = useRef(false);
-  const [lockPart, setLockPart] = useState<PartKey>('r1');
-  const [pmTarget, setPmTarget] = useState<number | null>(null);
-  const [saved, setSaved] = useState(() => ({ json: compareJson(withRange(savedInput ?? initialInput)), revision: shownRevision }));
-  const [from, setFrom] = useState(editFrom);
-  const [stageValid, setStageValid] = useState(true);
-  const [dragging, setDragging] = useState<string | null>(null);
-  const [handleProblem, setHandleProblem] = useState<string | null>(null);
-  const dragBase = useRef<CompensatorShape | null>(null);
-  const [view, setView] = useState<TuneView>('loop');
 
+  // What the engine makes of the input, memoised per part of it: the stage is prepared once per
+  // stage change, the loop once per compensator change (every frame of a drag).
   const { converter, modulator, feedback, sweep } = input;
   const stage = useMemo(() => ({ converter, modulator, feedback, sweep }), [converter, modulator, feedback, sweep]);
   const prepared = useMemo(() => prepareStage(stage), [stage]);
-  // Stable callbacks keep the memoised stage form and parts table still while a handle is dragged.
-  const onStageChange = useCallback((next: Pick<AnalyzeRequest, 'converter' | 'modulator' | 'feedback'>) => setInput((i) => ({ ...i, ...next })), [setInput]);
-  const onSeriesChange = useCallback((options: PartsOptions) => setInput((i) => ({ ...i, parts: options })), [setInput]);
-  const onStepChange = useCallback((step: NonNullable<AnalyzeRequest['step']>) => setInput((i) => ({ ...i, step })), [setInput]);
-  const loop = useMemo(() => (prepared.ok ? analyzeCompensator(prepared.value, input.compensator) : null), [prepared, input.compensator]);
+  const plant = prepared.ok ? prepared.value : null;
+  const loop = useMemo(() => (plant ? analyzeCompensator(plant, input.compensator) : null), [plant, input.compensator]);
   // Snapped parts and their margins may lag a frame behind a drag.
   const deferredComp = useDeferredValue(input.compensator);
-  const parts = useMemo(
-    () => (prepared.ok ? analyzeCompensatorParts(prepared.value, deferredComp, input.parts) : null),
-    [prepared, deferredComp, input.parts],
-  );
+  const parts = useMemo(() => (plant ? analyzeCompensatorParts(plant, deferredComp, input.parts) : null), [plant, deferredComp, input.parts]);
   const shape = useMemo(() => shapeFromParts(input.compensator), [input.compensator]);
   const crossoverHz = loop?.ok ? loop.value.margins.crossoverHz : null;
-  const sweepInUse: SweepOptions = prepared.ok ? prepared.value.sweep : (input.sweep ?? defaultSweep(input.converter.fsw));
+  const sweepInUse: SweepOptions = plant ? plant.sweep : (input.sweep ?? defaultSweep(input.converter.fsw));
   // A Type I gain handle stays at the LC resonance (or mid-sweep), so a gain change moves it only up or down.
-  const anchorHz = prepared.ok ? (prepared.value.plant.resonanceHz ?? Math.sqrt(sweepInUse.fStart * sweepInUse.fStop)) : null;
+  const anchorHz = plant ? (plant.plant.resonanceHz ?? Math.sqrt(sweepInUse.fStart * sweepInUse.fStop)) : null;
   const handles = useMemo(() => handlesOf(shape, anchorHz), [shape, anchorHz]);
-  const targetFcHz = prepared.ok ? defaultCrossoverHz(input.converter.fsw, prepared.value.plant.rhpZeroHz) : input.converter.fsw / 10;
+  const targetFcHz = plant ? defaultCrossoverHz(input.converter.fsw, plant.plant.rhpZeroHz) : input.converter.fsw / 10;
   // The form's PM target starts at the design's own margin (rounded), so a type change keeps it.
   const startPm = useRef<number | null>(null);
   if (startPm.current === null && loop?.ok) {
@@ -150,91 +102,71 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
     startPm.current = pm !== null && pm >= 30 && pm <= 80 ? Math.round(pm) : 60;
   }
 
-  const onRangeChange = useCallback((next: { range: OperatingRange; targets: MarginTargets }) => setInput((i) => ({ ...i, ...next })), []);
-  const across = useRangeAnalysis(input, dragging !== null || !prepared.ok);
+  const across = useRangeAnalysis(input, dragging || !prepared.ok);
   const cornerResult = across.corners?.ok ? across.corners.value : null;
   const rangeTraces = useMemo(
-    () => (cornerResult && prepared.ok ? cornerTraces(prepared.value.grid.f as number[], cornerResult.corners, across.view, cornerResult.worst.phaseMarginDeg.corner) : undefined),
-    [cornerResult, prepared, across.view],
+    () => (cornerResult && plant ? cornerTraces(plant.grid.f as number[], cornerResult.corners, across.view, cornerResult.worst.phaseMarginDeg.corner) : undefined),
+    [cornerResult, plant, across.view],
   );
 
-  const dirty = mode === 'edit' && (compareJson(input) !== saved.json || !stageValid);
+  const dirty = mode === 'edit' && isDirty(state);
   useLeaveGuard(dirty);
+  const lock = lockOf(state);
 
-  const lock = useMemo<PartLock | null>(() => {
-    const value = input.compensator[lockPart];
-    return partsOfType(input.compensator.type).includes(lockPart) && value !== undefined && value > 0 ? { part: lockPart, value } : null;
-  }, [input.compensator, lockPart]);
+  // Stable callbacks (dispatch never changes) keep the memoised forms still while a handle is dragged.
+  const onStageChange = useCallback((stage: StageEdit) => dispatch({ type: 'edit-stage', stage }), []);
+  const onStageValidity = useCallback((valid: boolean) => dispatch({ type: 'stage-validity', valid }), []);
+  const onSeriesChange = useCallback((parts: PartsOptions) => dispatch({ type: 'edit-series', parts }), []);
+  const onStepChange = useCallback((step: NonNullable<AnalyzeRequest['step']>) => dispatch({ type: 'edit-step', step }), []);
+  const onRangeChange = useCallback((next: { range: OperatingRange; targets: MarginTargets }) => dispatch({ type: 'edit-range', ...next }), []);
+  const onLockChange = useCallback((part: PartKey) => dispatch({ type: 'lock', part }), []);
+  const onPmTarget = useCallback((deg: number | null) => dispatch({ type: 'pm-target', deg }), []);
+  const onView = useCallback((view: TuneView) => dispatch({ type: 'view', view }), []);
+  const onDragStart = useCallback((id: string) => dispatch({ type: 'drag-start', id }), []);
+  const onDrag = useCallback((_id: string, o: DragOffset) => dispatch({ type: 'drag-move', dxPx: o.dxPx, dyPx: o.dyPx, scale: o.scale }), []);
+  const onDragEnd = useCallback(() => dispatch({ type: 'drag-end' }), []);
+  const doUndo = useCallback(() => dispatch({ type: 'undo' }), []);
+  const doRedo = useCallback(() => dispatch({ type: 'redo' }), []);
 
-  /** Apply a new shape (the locked part holds); `during` marks the frames of a drag after its first. */
-  const applyShape = useCallback(
-    (next: CompensatorShape, during = false): string | null => {
-      const r = compensatorFromShape(next, lock);
-      if (!r.ok) {
-        const message = r.issues[0]?.message ?? 'that placement is not possible';
-        setHandleProblem(message);
-        return message;
-      }
-      setHandleProblem(null);
-      if (during) setHistory((h) => replace(h, { ...h.present, compensator: r.comp }));
-      else setInput((i) => ({ ...i, compensator: r.comp }));
-      return null;
-    },
-    [lock, setInput],
-  );
-
-  const onDragStart = (id: string) => {
-    dragBase.current = shape;
-    dragCommitted.current = false;
-    setDragging(id);
-  };
-  const onDrag = (id: string, offset: DragOffset) => {
-    // The first frame is one step in the history; the rest of the drag replaces it.
-    const problem = applyShape(dragShape(dragBase.current ?? shape, id, offset.dxPx, offset.dyPx, offset.scale), dragCommitted.current);
-    if (problem === null) dragCommitted.current = true;
-  };
-  const onDragEnd = () => {
-    if (dragCommitted.current)
-      setHistory((h) => {
-        const settled = settle(h, sameInput);
-        return settled.present === h.present ? replace(settled, snapToSaved(settled.present)) : settled;
-      });
-    dragBase.current = null;
-    dragCommitted.current = false;
-    setDragging(null);
+  /** Controls that answer at once (the handle table, the type, a part): the message to show beside them, or null. */
+  const applyShape = (next: CompensatorShape): string | null => {
+    const r = compensatorFromShape(next, lock);
+    if (!r.ok) {
+      const message = r.issues[0]?.message ?? 'that placement is not possible';
+      dispatch({ type: 'refuse', message });
+      return message;
+    }
+    dispatch({ type: 'set-compensator', compensator: r.comp });
+    return null;
   };
   const onStep = (id: string, move: HandleMove) => {
     applyShape(applyMove(shape, id, move));
   };
-
+  const place = (r: Placed): string | null => {
+    if (!r.ok) return r.message;
+    dispatch({ type: 'set-compensator', compensator: r.compensator });
+    return r.note;
+  };
   const onPartChange = useCallback(
     (part: PartKey, value: number): string | null => {
       const r = withPart(input.compensator, part, value);
       if (!r.ok) return r.message;
-      setHandleProblem(null);
-      setInput((i) => ({ ...i, compensator: r.comp }));
+      dispatch({ type: 'set-compensator', compensator: r.comp });
       return null;
     },
-    [input.compensator, setInput],
+    [input.compensator],
   );
-
+  const onAmplifierChange = useCallback((values: AmplifierValues) => place(changeAmplifier(input.compensator, values)), [input.compensator]);
+  // Keep the crossover as it is and the phase margin target of the starting point.
+  const onTypeChange = (type: CompensatorType) =>
+    place(placeType(plant, input.compensator, type, { crossoverHz: crossoverHz ?? targetFcHz, phaseMarginDeg: state.pmTargetDeg ?? startPm.current ?? 60 }));
+  const propose = (target: Omit<StartingPointRequest, 'type'> & { type: CompensatorType }) => place(proposeStart(plant, input.compensator, target));
   const onSweepChange = (next: SweepOptions | undefined): string | null => {
-    setInput((i) => {
-      const { sweep: _drop, ...rest } = i;
-      return next ? { ...rest, sweep: next } : rest;
-    });
+    dispatch({ type: 'edit-sweep', sweep: next });
     return null;
   };
   const onWidenSweep = bench ? () => onSweepChange(sweepCovering(sweepInUse, bench)) : undefined;
 
-  const doUndo = useCallback(() => {
-    setHistory((h) => undo(h));
-    setStageEpoch((n) => n + 1);
-  }, []);
-  const doRedo = useCallback(() => {
-    setHistory((h) => redo(h));
-    setStageEpoch((n) => n + 1);
-  }, []);
   useEffect(() => {
     if (readOnly) return;
     const onKey = (e: KeyboardEvent) => {
@@ -244,78 +176,25 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
       const t = e.target as HTMLElement | null;
       if (t && (t.tagName === 'TEXTAREA' || (t.tagName === 'INPUT' && !['radio', 'checkbox'].includes((t as HTMLInputElement).type)))) return;
       e.preventDefault();
-      if (which === 'undo') doUndo();
-      else doRedo();
+      dispatch({ type: which });
     };
     window.addEventListener('keydown', onKey);
     return () => window.removeEventListener('keydown', onKey);
-  }, [readOnly, doUndo, doRedo]);
+  }, [readOnly]);
 
-  const startScratch = () => setScratch(true);
-  const leaveScratch = () => {
-    setScratch(false);
-    setHistory(startHistory(withRange(initialInput)));
-    setStageEpoch((n) => n + 1);
-    setHandleProblem(null);
-  };
-
-  const propose = (target: Omit<StartingPointRequest, 'type'> & { type: CompensatorType }): string | null => {
-    if (!prepared.ok) return 'Fix the power stage first: the loop cannot be placed without it.';
-    try {
-      const comp = proposeForPlant(prepared.value, { ...target, r1: input.compensator.r1, fixed: shape.fixed });
-      setHandleProblem(null);
-      setInput((i) => ({ ...i, compensator: comp }));
-      return null;
-    } catch (err) {
-      return firstMessage(err);
-    }
-  };
-
-  const onTypeChange = (type: CompensatorType): string | null => {
-    if (!prepared.ok) return 'Fix the power stage first: the loop cannot be placed without it.';
-    // Keep the crossover as it is and the phase margin target of the starting point.
-    const fc = crossoverHz ?? targetFcHz;
-    const pm = pmTarget ?? startPm.current ?? 60;
-    try {
-      if (type === 'type1' && input.compensator.amplifier === 'transconductance') return 'A transconductance amplifier is modelled for Type II and Type III: choose the op-amp first for Type I.';
-      const placed = placeForType(prepared.value, { type, crossoverHz: fc, phaseMarginDeg: pm, r1: input.compensator.r1, fixed: shape.fixed });
-      setHandleProblem(null);
-      setInput((i) => ({ ...i, compensator: placed.compensator }));
-      return placed.note ?? `Placed for the same fc (${formatSi(fc, 'Hz')}) and PM target (${pm.toFixed(0)}°).`;
-    } catch (err) {
-      return firstMessage(err);
-    }
-  };
-
-  /** A new amplifier or new amplifier values: the placed poles and zeros stay, the parts follow. */
-  const onAmplifierChange = useCallback(
-    (values: AmplifierValues): string | null => {
-      if (values.amplifier === 'transconductance' && input.compensator.type === 'type1')
-        return 'A transconductance amplifier is modelled for Type II and Type III: choose one of them first.';
-      try {
-        const comp = partsFromShape({ ...shapeFromParts(input.compensator), fixed: values });
-        setHandleProblem(null);
-        setInput((i) => ({ ...i, compensator: comp }));
-        return null;
-      } catch (err) {
-        return firstMessage(err);
-      }
-    },
-    [input.compensator, setInput],
-  );
+  const startScratch = () => dispatch({ type: 'start-scratch' });
+  const leaveScratch = () => dispatch({ type: 'leave-scratch' });
 
   const onSaved = (rev: SavedRevision, savedInput: AnalyzeRequest) => {
-    setSaved({ json: compareJson(withRange(savedInput)), revision: rev.number });
-    savedRef.current = { json: compareJson(withRange(savedInput)), input: withRange(savedInput) };
-    if (from !== null) {
-      setFrom(null);
-      // The address no longer asks to load the earlier revision (before SaveBar refreshes the page).
-      window.history.replaceState(null, '', `/designs/${designId}`);
-    }
+    // The address no longer asks to load the earlier revision (before SaveBar refreshes the page).
+    if (state.editFrom !== null) window.history.replaceState(null, '', `/designs/${designId}`);
+    dispatch({ type: 'saved', revision: rev.number, input: savedInput });
   };
+  const from = state.editFrom;
+  const saved = state.saved;
 
   const stageIssues = prepared.ok ? NO_ISSUES : prepared.issues;
-  const blockedBy = !stageValid
+  const blockedBy = !state.stageValid
     ? 'A power-stage field holds text that is not a number; fix it to save.'
     : !prepared.ok
       ? 'The power stage is not physically possible as entered; fix the fields marked in red.'
@@ -331,12 +210,12 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
         <RevisionPicker designId={designId} shown={shownRevision} initial={revisions} />
         {!readOnly && (
           <div className="flex items-center gap-1" role="group" aria-label="Undo and redo">
-            <button type="button" className="btn-secondary px-2 py-1 text-xs" onClick={doUndo} disabled={!canUndo(history)} title="Undo the last edit (Ctrl+Z)" data-testid="undo">
+            <Button size="sm" onClick={doUndo} disabled={!canUndo(state)} title="Undo the last edit (Ctrl+Z)" data-testid="undo">
               ↶ Undo
-            </button>
-            <button type="button" className="btn-secondary px-2 py-1 text-xs" onClick={doRedo} disabled={!canRedo(history)} title="Redo (Ctrl+Shift+Z)" data-testid="redo">
+            </Button>
+            <Button size="sm" onClick={doRedo} disabled={!canRedo(state)} title="Redo (Ctrl+Shift+Z)" data-testid="redo">
               ↷ Redo
-            </button>
+            </Button>
           </div>
         )}
         <div className="min-w-[20rem] flex-1">
@@ -346,9 +225,9 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
                 <strong className="mr-1 rounded bg-amber-500 px-1.5 py-0.5 text-xs font-bold uppercase tracking-wide text-white">Scratch</strong>
                 A what-if on {shownRevision ? `r${shownRevision}` : 'this design'}: edit and watch the margins. Nothing is saved, and nothing you do here changes the design.
               </p>
-              <button type="button" className="btn-secondary" onClick={leaveScratch} data-testid="scratch-leave">
+              <Button onClick={leaveScratch} data-testid="scratch-leave">
                 Leave scratch (discard)
-              </button>
+              </Button>
             </div>
           ) : mode === 'edit' ? (
             <>
@@ -374,9 +253,9 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
           ) : mode === 'role-read-only' ? (
             <p className="text-sm text-slate-600" data-testid="read-only-note">
               Read-only: your role (<strong>{role}</strong>) may look at designs but not change them.{' '}
-              <button type="button" className="text-indigo-700 underline" onClick={startScratch} data-testid="scratch-start">
+              <Button variant="link" onClick={startScratch} data-testid="scratch-start">
                 Try a what-if in Scratch
-              </button>{' '}
+              </Button>{' '}
               (nothing is saved).
             </p>
           ) : (
@@ -388,9 +267,9 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
                 </Link>
                 , or start from this one.
               </p>
-              <button type="button" className="btn-secondary" onClick={startScratch} data-testid="scratch-start" title="Edit this revision and see its margins; nothing is saved">
+              <Button onClick={startScratch} data-testid="scratch-start" title="Edit this revision and see its margins; nothing is saved">
                 Scratch on r{shownRevision}
-              </button>
+              </Button>
               <Link
                 className="btn-secondary"
                 href={`/designs/${designId}?from=${shownRevision}`}
@@ -404,7 +283,7 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
         </div>
       </div>
 
-      <TuneViewSwitch view={view} onView={setView} />
+      <TuneViewSwitch view={view} onView={onView} />
       {view === 'time' && <TimeDomainView input={input} bode={result?.bode ?? null} readOnly={readOnly} onStepChange={onStepChange} />}
       <div className={`grid items-start gap-4 xl:grid-cols-[minmax(0,1fr)_22rem] ${view === 'loop' ? '' : 'hidden'}`}>
         <section className="card p-3" aria-label="Bode plot">
@@ -441,9 +320,9 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
               </div>
             </div>
           )}
-          {handleProblem && (
+          {state.handleProblem && (
             <p className="mt-1 px-1 text-xs text-amber-800" role="status" data-testid="handle-problem">
-              Handle stopped: {handleProblem}
+              Handle stopped: {state.handleProblem}
             </p>
           )}
         </section>
@@ -474,7 +353,7 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
 
       <div className="grid items-start gap-4 lg:grid-cols-2 xl:grid-cols-3">
         <Card title="Power stage" aside={<span className="text-xs text-slate-500">{input.converter.topology}, {MODULATOR_MODE_LABELS[input.modulator.mode ?? 'voltage'].toLowerCase()}</span>}>
-          <StageForm key={stageEpoch} value={stage} readOnly={readOnly} issues={stageIssues} onChange={onStageChange} onValidityChange={setStageValid} />
+          <StageForm key={state.stageEpoch} value={stage} readOnly={readOnly} issues={stageIssues} onChange={onStageChange} onValidityChange={onStageValidity} />
         </Card>
         <Card title="Compensator handles">
           <CompensatorTable
@@ -487,7 +366,7 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
           />
           <div className="mt-4">
             <AmplifierForm
-              key={`${stageEpoch}|${input.compensator.amplifier ?? 'opamp'}`}
+              key={`${state.stageEpoch}|${input.compensator.amplifier ?? 'opamp'}`}
               compensator={input.compensator}
               rbDefault={dividerRb(input.compensator.r1, input.feedback.vref, input.converter.vout)}
               readOnly={readOnly}
@@ -503,7 +382,7 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
                   defaultPhaseMarginDeg={startPm.current ?? 60}
                   type={input.compensator.type}
                   onPropose={propose}
-                  onPhaseMarginTarget={setPmTarget}
+                  onPhaseMarginTarget={onPmTarget}
                 />
               </div>
             </details>
@@ -520,7 +399,7 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
               lock={lock?.part ?? 'r1'}
               onSeriesChange={onSeriesChange}
               onPartChange={onPartChange}
-              onLockChange={setLockPart}
+              onLockChange={onLockChange}
             />
           ) : (
             <p className="text-sm text-slate-500">Parts appear once the power stage is valid.</p>

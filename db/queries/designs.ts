@@ -133,9 +133,11 @@ export function listDesignsPage(
     where.push(sql`(d.name LIKE ${like} ESCAPE '\\' OR d.description LIKE ${like} ESCAPE '\\' OR u.name LIKE ${like} ESCAPE '\\')`);
   }
   const cond = sql.join(where, sql` AND `);
-  // Every design has an owner, so the count needs the users join only to match the owner's name.
+  // Without a text filter or waiting=me the total is a sum over the counters kept by triggers
+  // (design_counts: a few rows per team); otherwise a count over the matching rows. Every design
+  // has an owner, so that count needs the users join only to match the owner's name.
   const from = query.q ? sql`designs d CROSS JOIN users u ON u.id = d.owner_id` : sql`designs d`;
-  const total = db.get<{ n: number }>(sql`SELECT count(*) AS n FROM ${from} WHERE ${cond}`)?.n ?? 0;
+  const total = query.q || waiting ? (db.get<{ n: number }>(sql`SELECT count(*) AS n FROM ${from} WHERE ${cond}`)?.n ?? 0) : countFromCounters(db, teamId, query);
   const lastPage = Math.max(1, Math.ceil(total / pageSize));
   const page = Math.min(query.page, lastPage);
   const dir = sql.raw((query.dir ?? defaultSortDir(query.sort)) === 'asc' ? 'ASC' : 'DESC');
@@ -144,6 +146,16 @@ export function listDesignsPage(
       ORDER BY ${sql.raw(ORDER_COLUMN[query.sort])} ${dir}, d.id ${dir}
       LIMIT ${pageSize} OFFSET ${(page - 1) * pageSize}`);
   return { designs: rows.map(toListItem), total, page, pageSize };
+}
+
+/** The designs matching the list's bucket filters (archived, topology, status), from design_counts. */
+function countFromCounters(db: Db, teamId: number, query: DesignListQuery): number {
+  const where = [sql`team_id = ${teamId}`];
+  const archived = query.archived ?? 'active';
+  if (archived !== 'all') where.push(sql`archived = ${archived === 'archived' ? 1 : 0}`);
+  if (query.topology !== 'all') where.push(sql`topology = ${query.topology}`);
+  if (query.status !== 'all') where.push(sql`state = ${query.status}`);
+  return db.get<{ n: number | null }>(sql`SELECT sum(n) AS n FROM design_counts WHERE ${sql.join(where, sql` AND `)}`)?.n ?? 0;
 }
 
 /** How many designs of the team wait for this user's review (the count beside the filter). */

@@ -31,6 +31,26 @@ export const PARTS = {
   rb: { name: 'Rb', kind: 'resistor', unit: 'Ω', role: 'lower divider resistor (sets Vout)' },
 } as const satisfies Record<PartKey, PartSpec>;
 
+/** The error amplifier's own numbers (not parts): the gm stage's and the finite op-amp's. */
+export interface AmplifierInputSpec {
+  /** Words first: "Transconductance". */
+  label: string;
+  symbol: string;
+  unit: 'S' | 'Ω' | 'V/V' | 'Hz';
+  /** What leaving it out means, where it means something. */
+  absentMeans?: string;
+}
+
+export const AMPLIFIER_INPUTS = {
+  gm: { label: 'Transconductance', symbol: 'gm', unit: 'S' },
+  ro: { label: 'Amplifier output resistance', symbol: 'ro', unit: 'Ω', absentMeans: 'infinite' },
+  a0: { label: 'Op-amp open-loop gain', symbol: 'a0', unit: 'V/V' },
+  gbw: { label: 'Op-amp gain-bandwidth', symbol: 'GBW', unit: 'Hz' },
+} as const satisfies Record<string, AmplifierInputSpec>;
+
+/** "Transconductance gm" — as a form label or a table row. */
+export const amplifierInputLabel = (key: keyof typeof AMPLIFIER_INPUTS): string => `${AMPLIFIER_INPUTS[key].label} ${AMPLIFIER_INPUTS[key].symbol}`;
+
 /** Display order of parts in tables and files. */
 export const PART_ORDER = ['r1', 'r2', 'c1', 'c2', 'r3', 'c3', 'rb'] as const satisfies readonly PartKey[];
 

@@ -16,3 +16,4 @@ export * from './signoff';
 export * from './traces';
 export * from './topologies';
 export * from './modes';
+export * from './range-inputs';

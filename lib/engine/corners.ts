@@ -22,7 +22,7 @@ export interface CornerResult extends CornerValues {
   margins: CornerMargins;
   /** The corner in words ("low line, full load, L −20 %, …"). */
   label: string;
-  /** The risk-level checks the analysis raised at this corner (e.g. "subharmonic"). */
+  /** The risk-level checks the analysis raised at this corner (e.g. "subharmonic"), other than the margins' own. */
   risks: Pick<Check, 'id' | 'message'>[];
   /** Loop gain on the nominal sweep grid, when asked for (the Tune band). */
   loop?: BodeTrace;
@@ -45,6 +45,9 @@ export interface CornersResult {
 }
 
 export { DEFAULT_TARGETS, type MarginTargets } from './range';
+
+/** Checks on the margins themselves: the worst-case margin checks speak for them across the corners. */
+const MARGIN_CHECKS = new Set(['phase-margin-low', 'gain-margin-low', 'no-crossover']);
 
 /** Paths of a stage problem at a corner, moved to the range field that made the corner. */
 const cornerPath = (path: string, k: CornerValues, range: OperatingRange): string => {
@@ -86,7 +89,7 @@ export const analyzeCorners = (request: AnalyzeRequest, range: OperatingRange, o
       duty: r.operatingPoint.duty,
       margins: { crossoverHz, phaseMarginDeg, gainMarginDb },
       label,
-      risks: r.checks.filter((c) => c.level === 'risk').map(({ id, message }) => ({ id, message })),
+      risks: r.checks.filter((c) => c.level === 'risk' && !MARGIN_CHECKS.has(c.id)).map(({ id, message }) => ({ id, message })),
       ...(options.loop ? { loop: r.bode.loop } : {}),
     });
   }

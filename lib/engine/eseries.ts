@@ -28,6 +28,20 @@ const TABLES: Record<ESeriesName, readonly number[]> = {
   E192: geometric(192),
 };
 
+/**
+ * Tolerance (fraction) each series was designed for: IEC 60063 spaces a series so that adjacent
+ * values' tolerance bands meet — E6 ±20 %, E12 ±10 %, E24 ±5 %, E48 ±2 %, E96 ±1 %, E192 ±0.5 %.
+ * Read by the operating range (default part tolerances) and the parts list.
+ */
+export const SERIES_TOLERANCE: Readonly<Record<ESeriesName, number>> = {
+  E6: 0.2,
+  E12: 0.1,
+  E24: 0.05,
+  E48: 0.02,
+  E96: 0.01,
+  E192: 0.005,
+};
+
 /** Mantissas of a series in [1, 10), ascending. */
 export const seriesValues = (series: ESeriesName): readonly number[] => TABLES[series];
 

@@ -6,7 +6,9 @@
  * Tolerances are fractions (0.2 = ±20 %). The ESR is a min/max pair in Ω rather than a
  * tolerance: an electrolytic's ESR moves several-fold between hot and cold.
  */
-import type { ConverterInput, ESeriesName, FieldIssue, PartsOptions } from './types';
+import { RANGE_QUANTITIES } from '@/lib/catalog/range-inputs';
+import { SERIES_TOLERANCE } from './eseries';
+import type { ConverterInput, FieldIssue, PartsOptions } from './types';
 
 export interface Interval {
   min: number;
@@ -20,23 +22,9 @@ export interface OperatingRange {
   c: { tol: number };
   /** Capacitor ESR, Ω. */
   rc: Interval;
-  /** Compensator parts' tolerances; absent: each series' own (see seriesTolerance). */
+  /** Compensator parts' tolerances; absent: each series' own (SERIES_TOLERANCE, eseries.ts). */
   parts?: { resistorTol: number; capacitorTol: number };
 }
-
-/**
- * Tolerance that goes with each preferred-number series (IEC 60063 pairs E6 with ±20 %, E12
- * ±10 %, E24 ±5 %, E48 ±2 %, E96 ±1 %, E192 ±0.5 %; the series are spaced so adjacent values'
- * tolerance bands meet).
- */
-export const SERIES_TOLERANCE: Record<ESeriesName, number> = {
-  E6: 0.2,
-  E12: 0.1,
-  E24: 0.05,
-  E48: 0.02,
-  E96: 0.01,
-  E192: 0.005,
-};
 
 export const DEFAULT_PARTS_SERIES: PartsOptions = { resistorSeries: 'E96', capacitorSeries: 'E12' };
 
@@ -81,17 +69,18 @@ export const rangeIssues = (range: OperatingRange, prefix = 'range'): FieldIssue
     if (!(Number.isFinite(max) && max >= min))
       issues.push({ path: `${prefix}.${key}.max`, message: `${what} maximum must be at least its minimum (${min} ${unit})` });
   };
-  interval('vin', 'Input voltage', 'V', false);
-  interval('iout', 'Load current', 'A', false);
-  interval('rc', 'Capacitor ESR', 'Ω', true);
+  const q = RANGE_QUANTITIES;
+  interval('vin', q.vin.label, q.vin.unit, false);
+  interval('iout', q.iout.label, q.iout.unit, false);
+  interval('rc', q.rc.label, q.rc.unit, true);
   const tol = (path: string, v: number, what: string) => {
     if (!(Number.isFinite(v) && v >= 0 && v < 1)) issues.push({ path: `${prefix}.${path}`, message: `${what} tolerance must be from 0 to under 100 %` });
   };
-  tol('l.tol', range.l.tol, 'Inductance');
-  tol('c.tol', range.c.tol, 'Capacitance');
+  tol('l.tol', range.l.tol, q.l.label);
+  tol('c.tol', range.c.tol, q.c.label);
   if (range.parts) {
-    tol('parts.resistorTol', range.parts.resistorTol, 'Resistor');
-    tol('parts.capacitorTol', range.parts.capacitorTol, 'Capacitor');
+    tol('parts.resistorTol', range.parts.resistorTol, q.resistorTol.label);
+    tol('parts.capacitorTol', range.parts.capacitorTol, q.capacitorTol.label);
   }
   return issues;
 };

@@ -3,6 +3,8 @@
  * (HTTP 400); this module rejects what no circuit can be (HTTP 422) by throwing
  * EngineInputError with every problem found, each naming its field ("converter.l", …).
  */
+import { AMPLIFIER_INPUTS, amplifierInputLabel, COMPENSATORS, PARTS } from '@/lib/catalog/compensators';
+import { inputApplies, inputLabel, STAGE_INPUTS, type InputSpec } from '@/lib/catalog/stage-inputs';
 import { EngineInputError, type AnalyzeRequest, type CompensatorInput, type FieldIssue } from './types';
 
 const num = (v: unknown): v is number => typeof v === 'number' && Number.isFinite(v);
@@ -17,64 +19,76 @@ const requireNonNegative = (issues: FieldIssue[], path: string, v: unknown, what
   else if (v < 0) issues.push({ path, message: `${what} cannot be negative` });
 };
 
+/** One number checked against its catalogue bound, named by the catalogue's label. */
+const requireBound = (issues: FieldIssue[], path: string, v: unknown, bound: 'positive' | 'nonNegative', what: string) =>
+  (bound === 'positive' ? requirePositive : requireNonNegative)(issues, path, v, what);
+
+/** "R2 (a Type II part)" — the part's schematic name from the catalogue. */
+const partLabel = (key: keyof typeof PARTS, note?: string) =>
+  `${PARTS[key].name}${note ? ` (${note})` : ''}`;
+
 /** Problems of a compensator's parts: R1, C1 > 0; Type II needs R2; Type III R2, R3, C3; C2 ≥ 0. */
 export const compensatorIssues = (c: CompensatorInput, prefix = 'compensator'): FieldIssue[] => {
   const issues: FieldIssue[] = [];
-  requirePositive(issues, `${prefix}.r1`, c.r1, 'R1');
-  requirePositive(issues, `${prefix}.c1`, c.c1, 'C1');
+  const typeLabel = COMPENSATORS[c.type]?.label ?? c.type;
+  requirePositive(issues, `${prefix}.r1`, c.r1, partLabel('r1'));
+  requirePositive(issues, `${prefix}.c1`, c.c1, partLabel('c1'));
   if (c.type === 'type2' || c.type === 'type3') {
-    requirePositive(issues, `${prefix}.r2`, c.r2, `R2 (a ${c.type === 'type2' ? 'Type II' : 'Type III'} part)`);
-    if (c.c2 !== undefined) requireNonNegative(issues, `${prefix}.c2`, c.c2, 'C2 (0 = absent)');
+    requirePositive(issues, `${prefix}.r2`, c.r2, partLabel('r2', `a ${typeLabel} part`));
+    if (c.c2 !== undefined) requireNonNegative(issues, `${prefix}.c2`, c.c2, partLabel('c2', '0 = absent'));
   }
   if (c.type === 'type3') {
-    requirePositive(issues, `${prefix}.r3`, c.r3, 'R3 (a Type III part)');
-    requirePositive(issues, `${prefix}.c3`, c.c3, 'C3 (a Type III part)');
+    requirePositive(issues, `${prefix}.r3`, c.r3, partLabel('r3', `a ${typeLabel} part`));
+    requirePositive(issues, `${prefix}.c3`, c.c3, partLabel('c3', `a ${typeLabel} part`));
   }
   if (c.amplifier !== undefined && c.amplifier !== 'opamp' && c.amplifier !== 'transconductance') {
     issues.push({ path: `${prefix}.amplifier`, message: 'amplifier must be "opamp" or "transconductance"' });
   }
   if (c.amplifier === 'transconductance') {
     if (c.type === 'type1') {
-      issues.push({ path: `${prefix}.amplifier`, message: 'a transconductance amplifier is modelled for Type II and Type III; choose one of them or the op-amp' });
+      issues.push({ path: `${prefix}.amplifier`, message: `a transconductance amplifier is modelled for ${COMPENSATORS.type2.label} and ${COMPENSATORS.type3.label}; choose one of them or the op-amp` });
     }
-    requirePositive(issues, `${prefix}.gm`, c.gm, 'Transconductance gm (S)');
-    requirePositive(issues, `${prefix}.rb`, c.rb, 'Divider bottom Rb (part of the loop with a transconductance amplifier)');
-    if (c.ro !== undefined) requirePositive(issues, `${prefix}.ro`, c.ro, 'Amplifier output resistance ro (omit for infinite)');
+    requirePositive(issues, `${prefix}.gm`, c.gm, `${amplifierInputLabel('gm')} (${AMPLIFIER_INPUTS.gm.unit})`);
+    requirePositive(issues, `${prefix}.rb`, c.rb, partLabel('rb', `${PARTS.rb.role}; part of the loop with a transconductance amplifier`));
+    if (c.ro !== undefined) requirePositive(issues, `${prefix}.ro`, c.ro, `${amplifierInputLabel('ro')} (omit for ${AMPLIFIER_INPUTS.ro.absentMeans})`);
     if (c.opamp !== undefined) issues.push({ path: `${prefix}.opamp`, message: 'an op-amp model does not apply to a transconductance amplifier; remove it' });
   }
   if (c.opamp !== undefined && c.amplifier !== 'transconductance') {
-    requirePositive(issues, `${prefix}.opamp.a0`, c.opamp?.a0, 'Op-amp open-loop gain a0 (V/V)');
-    requirePositive(issues, `${prefix}.opamp.gbw`, c.opamp?.gbw, 'Op-amp gain-bandwidth GBW (Hz)');
+    requirePositive(issues, `${prefix}.opamp.a0`, c.opamp?.a0, `${amplifierInputLabel('a0')} (${AMPLIFIER_INPUTS.a0.unit})`);
+    requirePositive(issues, `${prefix}.opamp.gbw`, c.opamp?.gbw, `${amplifierInputLabel('gbw')} (${AMPLIFIER_INPUTS.gbw.unit})`);
   }
   return issues;
 };
 
 /**
+ * A stage input as the request holds it: undefined when left out, except the converter's loss
+ * terms, which the engine takes as their catalogue default (0) when absent (withLossDefaults).
+ */
+const stageValue = (req: StageRequest, spec: InputSpec): unknown => {
+  const section: unknown = req[spec.section];
+  const v: unknown = section && typeof section === 'object' ? Reflect.get(section, spec.field) : undefined;
+  return v === undefined && spec.section === 'converter' ? spec.defaultValue : v;
+};
+
+type StageRequest = Pick<AnalyzeRequest, 'converter' | 'modulator' | 'sweep'> & { feedback?: AnalyzeRequest['feedback'] };
+
+/**
  * Everything about the power stage, modulator, reference and sweep that no circuit can be.
+ * Each input's bound and name come from the catalogue (lib/catalog/stage-inputs.ts).
  * Duty-cycle limits that need the loss model (e.g. a boost whose rl caps the ratio) are
  * reported by steady-state.ts with the same error type.
  */
-export const stageIssues = (req: Pick<AnalyzeRequest, 'converter' | 'modulator' | 'sweep'> & { feedback?: AnalyzeRequest['feedback'] }): FieldIssue[] => {
+export const stageIssues = (req: StageRequest): FieldIssue[] => {
   const issues: FieldIssue[] = [];
   const c = req.converter;
-  requirePositive(issues, 'converter.vin', c.vin, 'Input voltage vin');
-  requirePositive(issues, 'converter.vout', c.vout, 'Output voltage vout (a magnitude)');
-  requirePositive(issues, 'converter.iout', c.iout, 'Load current iout');
-  requirePositive(issues, 'converter.fsw', c.fsw, 'Switching frequency fsw');
-  requirePositive(issues, 'converter.l', c.l, 'Inductance L');
-  requirePositive(issues, 'converter.c', c.c, 'Output capacitance C');
-  requireNonNegative(issues, 'converter.rl', c.rl ?? 0, 'Inductor DCR rl');
-  requireNonNegative(issues, 'converter.rc', c.rc ?? 0, 'Capacitor ESR rc');
-  requireNonNegative(issues, 'converter.vd', c.vd ?? 0, 'Diode drop vd');
-  const m = req.modulator;
-  if (m?.mode === 'peak-current') {
-    requirePositive(issues, 'modulator.ri', m.ri, 'Current-sense gain Ri (V/A)');
-    requireNonNegative(issues, 'modulator.se', m.se, 'External ramp Se (V/s, 0 = none)');
-  } else if (m?.mode !== undefined && m?.mode !== 'voltage') {
-    issues.push({ path: 'modulator.mode', message: 'mode must be "voltage" or "peak-current"' });
-  } else {
-    requirePositive(issues, 'modulator.vramp', m?.vramp, 'PWM ramp Vramp');
+  const mode = req.modulator?.mode;
+  const knownMode = mode === undefined || mode === 'voltage' || mode === 'peak-current';
+  for (const spec of STAGE_INPUTS) {
+    if (spec.section === 'feedback' && !req.feedback) continue;
+    if (spec.section === 'modulator' && (!knownMode || !inputApplies(spec, { modulator: { mode } }))) continue;
+    requireBound(issues, `${spec.section}.${spec.field}`, stageValue(req, spec), spec.bound, inputLabel(spec));
   }
+  if (!knownMode) issues.push({ path: 'modulator.mode', message: 'mode must be "voltage" or "peak-current"' });
   if (num(c.vin) && num(c.vout) && c.vin > 0 && c.vout > 0) {
     if (c.topology === 'buck' && c.vout >= c.vin) {
       issues.push({ path: 'converter.vout', message: `a buck steps down: vout (${c.vout} V) must be below vin (${c.vin} V)` });
@@ -84,7 +98,6 @@ export const stageIssues = (req: Pick<AnalyzeRequest, 'converter' | 'modulator' 
     }
   }
   if (req.feedback) {
-    requirePositive(issues, 'feedback.vref', req.feedback.vref, 'Reference voltage vref');
     if (num(req.feedback.vref) && num(c.vout) && req.feedback.vref >= Math.abs(c.vout) && req.feedback.vref > 0) {
       issues.push({ path: 'feedback.vref', message: `vref (${req.feedback.vref} V) must be below |vout| (${Math.abs(c.vout)} V) for a divider to set the output` });
     }

@@ -3,8 +3,9 @@
  * exported as CSV or TSV of frequency, gain (dB) and phase (degrees).
  *
  * Accepted:
- * - separators comma, semicolon, tab, or runs of spaces; with a semicolon, tab or space
- *   separator a decimal comma is read as a decimal point (`1,5` → 1.5);
+ * - separators comma, semicolon, tab, or runs of spaces; fields may be quoted (`"Gain, dB"`,
+ *   RFC 4180 quoting, read by papaparse); with a semicolon, tab or space separator a decimal
+ *   comma is read as a decimal point (`1,5` → 1.5);
  * - an optional header line naming the columns in any common wording ("Frequency (Hz)",
  *   "Freq [kHz]", "f/Hz", "Gain dB", "Magnitude (dB)", "Phase (deg)", "Phase/°"), with extra
  *   columns ignored; lines of text above the header (instrument metadata) are skipped;
@@ -24,6 +25,7 @@
  * store a 180° shift.
  */
 
+import Papa from 'papaparse';
 import { wrapDeg } from '@/lib/engine/transfer';
 
 export const BENCH_MAX_BYTES = 10 * 1024 * 1024;
@@ -98,15 +100,31 @@ const tooLarge = (bytes: number) =>
 
 const NUMBER_RE = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 
-function splitFields(line: string, sep: Separator): string[] {
-  const raw = sep === 'space' ? line.trim().split(/\s+/) : line.split(SEP_CHAR[sep]);
-  return raw.map((s) => s.trim().replace(/^"(.*)"$/, '$1').replace(/^'(.*)'$/, '$1').trim());
+const unquoteSingle = (s: string) => s.trim().replace(/^'(.*)'$/, '$1').trim();
+
+/**
+ * Lines to fields. Delimited lines go through one papaparse call (RFC 4180 quoting: a separator
+ * inside quotes is text, `""` is a quote); aligned columns split on runs of spaces, a quoted
+ * field keeping its spaces. A quote left open names its line.
+ */
+function splitRows(lines: readonly string[], lineNos: readonly number[], sep: Separator): string[][] {
+  if (sep === 'space')
+    return lines.map((line) => Array.from(line.trim().matchAll(/"([^"]*)"|(\S+)/g), (m) => unquoteSingle(m[1] ?? m[2])));
+  const parsed = Papa.parse<string[]>(lines.join('\n'), { delimiter: SEP_CHAR[sep], newline: '\n', quoteChar: '"', skipEmptyLines: false });
+  const open = parsed.errors.find((e) => e.type === 'Quotes');
+  if (open || parsed.data.length !== lines.length) {
+    const row = open?.row ?? parsed.data.findIndex((fields) => fields.some((x) => x.includes('\n')));
+    throw new BenchParseError(lineNos[Math.max(0, row ?? 0)] ?? null, 'a quoted field is not closed on its line');
+  }
+  return parsed.data.map((fields) => fields.map(unquoteSingle));
 }
 
+/** The separator of one line, read outside quoted fields. */
 function detectSeparator(line: string): Separator {
-  if (line.includes('\t')) return 'tab';
-  if (line.includes(';')) return 'semicolon';
-  if (line.includes(',')) return 'comma';
+  const bare = line.replace(/"[^"]*"/g, '""');
+  if (bare.includes('\t')) return 'tab';
+  if (bare.includes(';')) return 'semicolon';
+  if (bare.includes(',')) return 'comma';
   return 'space';
 }
 
@@ -186,6 +204,8 @@ export function parseBenchData(input: string | Uint8Array, opts: BenchParseOptio
   const gainDb: number[] = [];
   const phaseDeg: number[] = [];
   const lineOf: number[] = [];
+  const bodyLines: string[] = [];
+  const bodyLineNos: number[] = [];
   let previousText: { lineNo: number; fields: string[]; headerError?: string } | null = null;
   let contentLine = 0;
 
@@ -199,7 +219,13 @@ export function parseBenchData(input: string | Uint8Array, opts: BenchParseOptio
 
     if (columns === null) {
       const s = detectSeparator(trimmed);
-      const fields = splitFields(trimmed, s);
+      let fields: string[];
+      try {
+        [fields] = splitRows([trimmed], [lineNo], s);
+      } catch {
+        previousText = { lineNo, fields: [trimmed] }; // an open quote above the header: metadata text
+        continue;
+      }
       const dc = s !== 'comma';
       const numeric = fields.filter((x) => parseNumber(x, dc) !== null).length;
       if (numeric === fields.length) {
@@ -238,21 +264,30 @@ export function parseBenchData(input: string | Uint8Array, opts: BenchParseOptio
       }
     }
 
-    const fields = splitFields(trimmed, sep!);
-    const need = Math.max(columns.f, columns.gain, columns.phase) + 1;
-    if (fields.length < need)
-      throw new BenchParseError(lineNo, `${fields.length} column${fields.length === 1 ? '' : 's'}; expected ${need} (frequency, gain dB, phase deg)`);
-    if (f.length >= BENCH_MAX_ROWS)
+    bodyLines.push(trimmed);
+    bodyLineNos.push(lineNo);
+    if (bodyLines.length > BENCH_MAX_ROWS)
       throw new BenchParseError(lineNo, `more than ${BENCH_MAX_ROWS.toLocaleString('en')} data rows; thin the sweep`, true);
-    const read = (idx: number, what: string) => {
-      const v = parseNumber(fields[idx], decimalComma);
-      if (v === null) throw new BenchParseError(lineNo, `${what} "${fields[idx].slice(0, 30)}" is not a number`);
-      return v;
-    };
-    f.push(read(columns.f, 'frequency'));
-    gainDb.push(read(columns.gain, 'gain'));
-    phaseDeg.push(read(columns.phase, 'phase'));
-    lineOf.push(lineNo);
+  }
+
+  if (columns !== null && bodyLines.length > 0) {
+    const rowsOfFields = splitRows(bodyLines, bodyLineNos, sep!);
+    const need = Math.max(columns.f, columns.gain, columns.phase) + 1;
+    for (let k = 0; k < rowsOfFields.length; k++) {
+      const fields = rowsOfFields[k];
+      const lineNo = bodyLineNos[k];
+      if (fields.length < need)
+        throw new BenchParseError(lineNo, `${fields.length} column${fields.length === 1 ? '' : 's'}; expected ${need} (frequency, gain dB, phase deg)`);
+      const read = (idx: number, what: string) => {
+        const v = parseNumber(fields[idx], decimalComma);
+        if (v === null) throw new BenchParseError(lineNo, `${what} "${fields[idx].slice(0, 30)}" is not a number`);
+        return v;
+      };
+      f.push(read(columns.f, 'frequency'));
+      gainDb.push(read(columns.gain, 'gain'));
+      phaseDeg.push(read(columns.phase, 'phase'));
+      lineOf.push(lineNo);
+    }
   }
 
   if (columns === null) throw new BenchParseError(null, 'no header naming frequency, gain and phase, and no rows of numbers');

@@ -9,25 +9,23 @@
  * tight; a looser part can land nearer a neighbouring value than the one chosen.
  */
 import { PART_ORDER, PARTS, type PartKey } from '@/lib/catalog/compensators';
-import type { Amplifier, CompensatorType, ESeriesName, PartsResult } from '@/lib/engine/types';
+import { SERIES_TOLERANCE } from '@/lib/engine/eseries';
+import { E_SERIES_NAMES, type Amplifier, type CompensatorType, type ESeriesName, type PartsResult } from '@/lib/engine/types';
 import { formatSi } from '@/lib/units/si';
 
 export type { PartKey };
+
+/** Percent tolerance of a series (IEC 60063's pairing, {@link SERIES_TOLERANCE}). */
+const tolerancePctOf = (series: ESeriesName) => Math.round(SERIES_TOLERANCE[series] * 1000) / 10;
+export const formatTolerance = (pct: number) => `±${pct} %`;
+
 /** Parts-list order: resistors, then capacitors, then the divider. */
 export const PART_KEYS: readonly PartKey[] = ['r1', 'r2', 'r3', 'c1', 'c2', 'c3', 'rb'];
 
-/** Tolerance (percent) conventionally paired with each series. */
-export const SERIES_TOLERANCE_PCT: Record<ESeriesName, number> = {
-  E6: 20,
-  E12: 10,
-  E24: 5,
-  E48: 2,
-  E96: 1,
-  E192: 0.5,
-};
-
-export const TOLERANCE_CONVENTION =
-  'Tolerance is the one each IEC 60063 series was designed for: E6 ±20 %, E12 ±10 %, E24 ±5 %, E48 ±2 %, E96 ±1 %, E192 ±0.5 %.';
+/** The tolerance convention in words, from the series table. */
+export const TOLERANCE_CONVENTION = `Tolerance is the one each IEC 60063 series was designed for: ${E_SERIES_NAMES
+  .map((series) => `${series} ${formatTolerance(tolerancePctOf(series))}`)
+  .join(', ')}.`;
 
 /** Our name for each part in the compensator drawing, and the designator used when none is mapped. */
 export const PART_NAME: Record<PartKey, string> = Object.fromEntries(PART_ORDER.map((k) => [k, PARTS[k].name])) as Record<PartKey, string>;
@@ -117,7 +115,7 @@ export function buildPartsList(
       ideal,
       standard,
       series,
-      tolerancePct: SERIES_TOLERANCE_PCT[series],
+      tolerancePct: tolerancePctOf(series),
     });
   }
   return rows;
@@ -135,7 +133,6 @@ export function schematicValue(value: number, digits = 3): string {
   return formatSi(value, '', digits).replace(/\s+/g, '').replace('µ', 'u');
 }
 
-export const formatTolerance = (pct: number) => `±${pct} %`;
 
 const unitOf = (r: PartRow) => (r.kind === 'resistor' ? 'ohm' : 'F');
 

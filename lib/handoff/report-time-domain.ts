@@ -10,10 +10,10 @@ import { describeStep, stepOf } from '@/lib/step-summary';
 import { formatSi } from '@/lib/units/si';
 import { TRACE_COLORS } from '@/lib/catalog/traces';
 import { plotSvg } from './svg-plot';
+import esc from 'escape-html';
 
 const PLOT_COLORS = TRACE_COLORS;
 
-const esc = (s: string) => s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
 const r1 = (v: number) => Math.round(v * 10) / 10;
 const signed = (v: number, dp: number) => `${v < 0 ? '−' : '+'}${Math.abs(v).toFixed(dp)}`;
 

@@ -7,7 +7,7 @@
  */
 import { formatIsoDay, formatIsoMinute } from '@/lib/format';
 import { CAUTIONS } from '@/lib/cautions';
-import { AMPLIFIER_LABELS, compensatorTitle, inputApplies, MODULATOR_MODE_LABELS, inputLabel, readInput, signoffLabel, STAGE_INPUTS, topologyLabel, type SignoffState } from '@/lib/catalog';
+import { AMPLIFIER_INPUTS, AMPLIFIER_LABELS, amplifierInputLabel, compensatorTitle, inputApplies, MODULATOR_MODE_LABELS, inputLabel, readInput, signoffLabel, STAGE_INPUTS, topologyLabel, type SignoffState } from '@/lib/catalog';
 import type { AnalyzeRequest, AnalyzeResult, Margins } from '@/lib/engine/types';
 import { formatSi } from '@/lib/units/si';
 import { formatTolerance, PART_NAME, TOLERANCE_CONVENTION, schematicValue, type PartRow } from './parts-list';
@@ -15,6 +15,7 @@ import type { ReportBench } from './report-bench';
 import { bodeSvg } from './svg-plot';
 import { timeDomainSections } from './report-time-domain';
 import { summarizeRange, worstCaseSentence, type RangeSummary } from '@/lib/range-summary';
+import esc from 'escape-html';
 
 export interface ReportInput {
   design: { name: string; description: string; topology: string };
@@ -122,8 +123,6 @@ function rangeSection(s: RangeSummary): string {
   return `<p><b>${esc(worstCaseSentence(s))}</b></p><div class="cols"><div>${rangeRows}</div><div>${worst}</div></div><p class="muted small">Corners: every combination of the range's extremes, compensator at nominal. Spread: every part drawn within its tolerance at nominal line and load.</p>`;
 }
 
-const esc = (s: string) =>
-  s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
 
 
 const date = formatIsoDay;
@@ -151,8 +150,8 @@ const amplifierRows = (c: AnalyzeRequest['compensator']): [string, string][] => 
   if (c.amplifier === 'transconductance') {
     return [
       ['Error amplifier', AMPLIFIER_LABELS.transconductance],
-      ['Transconductance gm', si(c.gm ?? null, 'S')],
-      ['Output resistance ro', c.ro ? si(c.ro, 'Ω') : 'infinite'],
+      [amplifierInputLabel('gm'), si(c.gm ?? null, AMPLIFIER_INPUTS.gm.unit)],
+      [amplifierInputLabel('ro'), c.ro ? si(c.ro, AMPLIFIER_INPUTS.ro.unit) : AMPLIFIER_INPUTS.ro.absentMeans],
     ];
   }
   return [['Error amplifier', c.opamp ? `Op-amp, a0 ${c.opamp.a0.toPrecision(3)}, GBW ${si(c.opamp.gbw, 'Hz')}` : 'Op-amp (ideal)']];

@@ -6,6 +6,7 @@
  */
 import { TRACE_COLORS } from '@/lib/catalog/traces';
 import { formatSi } from '@/lib/units/si';
+import esc from 'escape-html';
 
 const PLOT_COLORS = TRACE_COLORS;
 
@@ -52,8 +53,6 @@ export interface SvgPlotOptions {
   markers?: { f: number; label: string; color: string }[];
 }
 
-const esc = (s: string) =>
-  s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
 const r1 = (v: number) => Math.round(v * 10) / 10;
 
 const MARGIN = { l: 58, r: 14, t: 26, b: 30 };

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { RANGE_QUANTITIES } from '@/lib/catalog/range-inputs';
 import { analyzeRequestSchema, parseAnalyzeRequest, zodIssues } from '@/lib/validation/analyze';
 import type { AnalyzeRequest, FieldIssue } from '@/lib/engine/types';
 
@@ -15,23 +16,25 @@ const interval = (label: string, unit: string) =>
 
 const tolerance = (label: string) => z.object({ tol: finite(`${label} tolerance (a fraction, 0.2 = ±20 %)`) }, { error: `${label} needs { tol }` });
 
+const q = RANGE_QUANTITIES;
+
 export const rangeSchema = z.object({
-  vin: interval('Input voltage', 'V'),
-  iout: interval('Load current', 'A'),
-  l: tolerance('Inductance'),
-  c: tolerance('Capacitance'),
-  rc: interval('Capacitor ESR', 'Ω'),
+  vin: interval(q.vin.label, q.vin.unit),
+  iout: interval(q.iout.label, q.iout.unit),
+  l: tolerance(q.l.label),
+  c: tolerance(q.c.label),
+  rc: interval(q.rc.label, q.rc.unit),
   parts: z
     .object({
-      resistorTol: finite('Resistor tolerance (a fraction)'),
-      capacitorTol: finite('Capacitor tolerance (a fraction)'),
+      resistorTol: finite(`${q.resistorTol.label} tolerance (a fraction)`),
+      capacitorTol: finite(`${q.capacitorTol.label} tolerance (a fraction)`),
     })
     .optional(),
 });
 
 export const targetsSchema = z.object({
-  phaseMarginDeg: finite('Phase margin target (°)'),
-  gainMarginDb: finite('Gain margin target (dB)'),
+  phaseMarginDeg: finite(`${q.phaseMarginDeg.label} (${q.phaseMarginDeg.unit})`),
+  gainMarginDb: finite(`${q.gainMarginDb.label} (${q.gainMarginDb.unit})`),
 });
 
 /** The corner sweep's additions to the analysis body (range absent: the design's defaults). */

@@ -29,6 +29,17 @@ export interface BrowserResult {
   /** ms from navigation start, one per cold run. */
   firstLoopMs: number[];
   plotlyDrawnMs: number[];
+  /** Where the time to the first loop goes, per run (ms from navigation start). */
+  phases: (Phases | null)[];
+}
+
+export interface Phases {
+  responseStartMs: number;
+  responseEndMs: number;
+  scriptsLoadedMs: number;
+  domContentLoadedMs: number;
+  plotlyFetchStartMs: number | null;
+  plotlyFetchedMs: number | null;
 }
 
 async function measurePage(browser: Browser, url: string, cookies: Parameters<BrowserContext['addCookies']>[0], ready: (ctx: BrowserContext) => Promise<void>) {
@@ -55,7 +66,24 @@ async function measurePage(browser: Browser, url: string, cookies: Parameters<Br
   const timing = await page.evaluate((mark) => {
     const first = performance.getEntriesByName(mark)[0];
     const drawn = performance.getEntriesByName('phasewright:plotly-drawn')[0];
-    return { firstLoopMs: first ? first.startTime : null, plotlyDrawnMs: drawn ? drawn.startTime : null };
+    const nav = performance.getEntriesByType('navigation')[0] as PerformanceNavigationTiming | undefined;
+    const scripts = performance.getEntriesByType('resource').filter((r) => (r as PerformanceResourceTiming).initiatorType === 'script' || r.name.endsWith('.js')) as PerformanceResourceTiming[];
+    const pageScripts = scripts.filter((r) => !r.name.includes('/vendor/plotly-'));
+    const plotly = scripts.find((r) => r.name.includes('/vendor/plotly-'));
+    return {
+      firstLoopMs: first ? first.startTime : null,
+      plotlyDrawnMs: drawn ? drawn.startTime : null,
+      phases: nav
+        ? {
+            responseStartMs: nav.responseStart,
+            responseEndMs: nav.responseEnd,
+            scriptsLoadedMs: pageScripts.reduce((m, r) => Math.max(m, r.responseEnd), 0),
+            domContentLoadedMs: nav.domContentLoadedEventEnd,
+            plotlyFetchedMs: plotly ? plotly.responseEnd : null,
+            plotlyFetchStartMs: plotly ? plotly.startTime : null,
+          }
+        : null,
+    };
   }, FIRST_LOOP_MARK);
   await ctx.close();
   return {
@@ -112,6 +140,7 @@ export async function browserSection(): Promise<BrowserResult | null> {
       ],
       firstLoopMs: tunes.map((r) => r.firstLoopMs ?? NaN),
       plotlyDrawnMs: tunes.map((r) => r.plotlyDrawnMs ?? NaN),
+      phases: tunes.map((r) => r.phases),
     };
   } finally {
     await browser.close();
@@ -137,4 +166,11 @@ export function printBrowser(r: BrowserResult | null) {
     `- Tune, first drawn loop (SVG): median ${first.toFixed(0)} ms from navigation start (runs ${r.firstLoopMs.map((x) => x.toFixed(0)).join(', ')}); target ≤ ${FIRST_LOOP_TARGET_MS} ms: ${first <= FIRST_LOOP_TARGET_MS ? 'within target' : 'ABOVE target'}`,
   );
   console.log(`- Tune, Plotly's first draw: median ${median(r.plotlyDrawnMs).toFixed(0)} ms (runs ${r.plotlyDrawnMs.map((x) => x.toFixed(0)).join(', ')})`);
+  const ms = (x: number | null | undefined) => (x === null || x === undefined ? '–' : x.toFixed(0));
+  r.phases.forEach((p, i) => {
+    if (!p) return;
+    console.log(
+      `  run ${i + 1}: HTML first byte ${ms(p.responseStartMs)}, HTML done ${ms(p.responseEndMs)}, page scripts fetched ${ms(p.scriptsLoadedMs)}, DOMContentLoaded ${ms(p.domContentLoadedMs)}, first loop ${ms(r.firstLoopMs[i])}; Plotly fetched ${ms(p.plotlyFetchStartMs)}–${ms(p.plotlyFetchedMs)}, drawn ${ms(r.plotlyDrawnMs[i])} ms`,
+    );
+  });
 }

@@ -1,6 +1,7 @@
 /**
  * Security headers on every page (frame-ancestors none, X-Frame-Options, a
- * content security policy that keeps scripts, styles and fonts to this origin)
+ * content security policy that keeps scripts, styles and fonts to this origin, inline scripts
+ * only with the response's nonce)
  * and the database files readable by their owner only.
  */
 import fs from 'node:fs';
@@ -33,6 +34,19 @@ describe('security headers', () => {
     expect(csp).toMatch(/font-src 'self'/);
     expect(res.headers.get('x-frame-options')).toBe('DENY');
     expect(res.headers.get('x-content-type-options')).toBe('nosniff');
+  });
+
+  it.each(['/signin', '/designs', '/no-such-page'])('%s: scripts need this response\'s nonce, never unsafe-inline', async (page) => {
+    const [a, b] = [await designer.fetch(page), await designer.fetch(page)];
+    const scriptSrc = (res: Response) => (res.headers.get('content-security-policy') ?? '').split('; ').find((d) => d.startsWith('script-src ')) ?? '';
+    expect(scriptSrc(a)).not.toContain('unsafe-inline');
+    const nonce = scriptSrc(a).match(/'nonce-([A-Za-z0-9+/=]+)'/)?.[1];
+    expect(nonce, scriptSrc(a)).toBeTruthy();
+    expect(scriptSrc(b)).not.toBe(scriptSrc(a)); // fresh per response
+    const html = await a.text();
+    const inline = [...html.matchAll(/<script(?![^>]*\ssrc=)([^>]*)>/g)].map((m) => m[1]);
+    expect(inline.length).toBeGreaterThan(0);
+    for (const attrs of inline) expect(attrs).toContain(`nonce="${nonce}"`);
   });
 });
 

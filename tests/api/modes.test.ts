@@ -6,6 +6,7 @@
  */
 import { beforeAll, describe, expect, inject, it } from 'vitest';
 import { partsFromShape, shapeFromParts } from '@/lib/engine/compensator';
+import { sampleByKey } from '@/lib/engine/samples';
 import type { AnalyzeRequest } from '@/lib/engine/types';
 import { Client, signedInAs } from '../support/http';
 
@@ -16,34 +17,11 @@ beforeAll(async () => {
   designer = await signedInAs(baseUrl, 'designer');
 });
 
+const sample = (key: string, label: string): [string, AnalyzeRequest] => [label, sampleByKey(key).request];
 const DESIGNS: [string, AnalyzeRequest][] = [
-  [
-    'current-mode buck',
-    {
-      converter: { topology: 'buck', vin: 12, vout: 3.3, iout: 2, fsw: 500e3, l: 4.7e-6, rl: 0.02, c: 100e-6, rc: 0.005, vd: 0 },
-      modulator: { mode: 'peak-current', ri: 0.5, se: 5e4 },
-      feedback: { vref: 0.8 },
-      compensator: { type: 'type2', r1: 10e3, r2: 20e3, c1: 4.7e-9, c2: 47e-12 },
-    },
-  ],
-  [
-    'current-mode boost with a transconductance amplifier',
-    {
-      converter: { topology: 'boost', vin: 5, vout: 12, iout: 0.5, fsw: 400e3, l: 10e-6, rl: 0.03, c: 44e-6, rc: 0.005, vd: 0.4 },
-      modulator: { mode: 'peak-current', ri: 0.1, se: 3e4 },
-      feedback: { vref: 1.2 },
-      compensator: { type: 'type2', amplifier: 'transconductance', gm: 1e-3, ro: 2e6, rb: 40e3 / 9, r1: 40e3, r2: 10e3, c1: 10e-9, c2: 100e-12 },
-    },
-  ],
-  [
-    'voltage-mode boost at light load',
-    {
-      converter: { topology: 'boost', vin: 5, vout: 12, iout: 0.02, fsw: 400e3, l: 10e-6, rl: 0, c: 44e-6, rc: 0.005, vd: 0.4 },
-      modulator: { vramp: 1 },
-      feedback: { vref: 1.2 },
-      compensator: { type: 'type2', r1: 10e3, r2: 20e3, c1: 4.7e-9, c2: 47e-12 },
-    },
-  ],
+  sample('cm-buck-opamp-type2', 'current-mode buck'),
+  sample('cm-boost-gm-type2', 'current-mode boost with a transconductance amplifier'),
+  sample('vm-boost-dcm-type2', 'voltage-mode boost at light load'),
 ];
 
 describe('control modes over HTTP', () => {

@@ -4,8 +4,8 @@
  * whole team per request).
  */
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { sql } from 'drizzle-orm';
-import { createDesign, createRevision, createTeam, createUser, listDesignsPage, submitForReview } from '@/db/queries';
+import { eq, sql } from 'drizzle-orm';
+import { createDesign, createRevision, createTeam, createUser, deleteDesign, listDesignsPage, setDesignArchived, submitForReview, updateDesign } from '@/db/queries';
 import type { Db } from '@/db/connection';
 import { designs, memberships } from '@/db/schema';
 import { DESIGN_SORTS, designListQuerySchema, type DesignListQuery } from '@/lib/validation/design';
@@ -77,6 +77,42 @@ describe('listDesignsPage', () => {
     expect(listDesignsPage(db, team, q({ sort: 'name', dir: 'desc' })).designs[0].name).toBe('Rail 249');
     const byTopology = listDesignsPage(db, team, q({ sort: 'topology', page: 3 })).designs;
     expect(byTopology.at(-1)?.topology).toBe('buck-boost');
+  });
+
+  it('keeps the counters (design_counts) equal to a count of the rows through saves, sign-off, archive, edits and deletes', () => {
+    const ids = listDesignsPage(db, team, q({ sort: 'name', dir: 'asc' })).designs.map((d) => d.id);
+    const r1 = createRevision(db, { teamId: team, designId: ids[0], baseNumber: null, ...sampleRevisionBody(), authorId: designer, note: '' });
+    createRevision(db, { teamId: team, designId: ids[1], baseNumber: null, ...sampleRevisionBody(), authorId: designer, note: '' });
+    submitForReview(db, { teamId: team, designId: ids[0], revisionId: r1.id, number: 1 }, { actorId: designer, reviewerId: reviewer, message: '' });
+    setDesignArchived(db, designer, team, ids[2], true);
+    setDesignArchived(db, designer, team, ids[3], true);
+    setDesignArchived(db, designer, team, ids[3], false);
+    db.update(designs).set({ topology: 'boost' }).where(eq(designs.id, ids[4])).run(); // no route changes it; the trigger must follow anyway
+    updateDesign(db, designer, team, ids[6], { name: 'Renamed' });
+    expect(deleteDesign(db, designer, team, ids[5])).toBe(true);
+    createDesign(db, designer, team, { name: 'New one', topology: 'buck-boost' });
+    const counted = (where: string) => db.get<{ n: number }>(sql.raw(`SELECT count(*) AS n FROM designs d WHERE d.team_id = ${team} AND ${where}`))!.n;
+    const archivedWhere = { active: 'd.archived_at IS NULL', archived: 'd.archived_at IS NOT NULL', all: '1' } as const;
+    for (const archived of ['active', 'archived', 'all'] as const)
+      for (const topology of ['all', 'buck', 'boost', 'buck-boost'] as const)
+        for (const status of ['all', 'unsaved', 'draft', 'in-review', 'approved'] as const) {
+          const where: string[] = [archivedWhere[archived]];
+          if (topology !== 'all') where.push(`d.topology = '${topology}'`);
+          if (status === 'unsaved') where.push('d.latest_revision IS NULL');
+          else if (status !== 'all') where.push(`d.signoff_state = '${status}'`);
+          expect(listDesignsPage(db, team, q({ archived, topology, status })).total, `${archived} ${topology} ${status}`).toBe(counted(where.join(' AND ')));
+        }
+    expect(listDesignsPage(db, team, q()).total).toBe(249);
+    expect(listDesignsPage(db, team, q({ status: 'in-review' })).total).toBe(1);
+  });
+
+  it('counts the list without scanning the team (a sum over design_counts)', () => {
+    const plan = db
+      .all<{ detail: string }>(sql.raw(`EXPLAIN QUERY PLAN SELECT sum(n) FROM design_counts WHERE team_id = ${team} AND archived = 0`))
+      .map((r) => r.detail)
+      .join('\n');
+    expect(plan).toMatch(/design_counts/);
+    expect(plan).not.toMatch(/designs_team/);
   });
 
   it.each(DESIGN_SORTS)('sorting by %s reads an index, not a temporary sort', (sort) => {

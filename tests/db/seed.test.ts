@@ -76,6 +76,10 @@ describe('demo review story', () => {
     expect(listRemarks(db, revs[1].id)[0].comparedWith).toBe(1);
     expect(listBenchData(db, teamId, story.id, { revisionNumber: 3 }).map((b) => b.revisionNumber)).toEqual([3]);
     expect(listBenchData(db, teamId, story.id, { revisionNumber: 1 }).map((b) => b.revisionNumber)).toEqual([1]);
+    // The approved revision holds across its stored operating range, not only at nominal.
+    const worst = summarizeRange(revs[2].input);
+    expect(worst.ok && worst.value.worst.phaseMarginDeg.value).toBeGreaterThan(45);
+    expect(worst.ok && worst.value.spread.meetsTargets.share).toBeGreaterThan(0.95);
   });
 
   it('stores the mail each step sends: requests to the reviewer, decisions and remarks to the designer', () => {
@@ -86,12 +90,14 @@ describe('demo review story', () => {
     expect(toReviewer).toEqual(expect.arrayContaining([`Review requested: ${name} r1`, `Review requested: ${name} r3`, `Review requested: ${DEMO_WAITING.name} r2`, `Remark on ${name} r1`]));
     expect(toDesigner).toEqual(expect.arrayContaining([`Changes requested: ${name} r1`, `Changes requested: ${name} r2`, `Approved: ${name} r3`, `Remark on ${name} r2`]));
     expect(listMailTo(db, 'designer@demo.test', 100).every((m) => m.teamId !== null)).toBe(true);
+    // Review requests state the worst case across the operating range, as the submit route's do.
+    for (const m of listMailTo(db, 'reviewer@demo.test', 100).filter((m) => m.subject.startsWith('Review requested'))) expect(m.text).toMatch(/Worst case over 32 corners/);
   });
 
   it('holds a current-mode design with its operating range: r1 sent back for a corner at subharmonic risk, r2 clear and approved', () => {
     seedDemo(db);
     const teamId = listTeamsForUser(db, getUserByEmail(db, 'admin@demo.test')!.id)[0].teamId;
-    const story = DEMO_STORIES.find((s) => typeof s.sample !== 'string')!;
+    const story = DEMO_STORIES.find((s) => typeof s.sample !== 'string' && s.sample.modulator.mode === 'peak-current')!;
     const design = listDesigns(db, teamId).find((d) => d.name === story.name)!;
     const revs = listRevisions(db, design.id);
     expect(revs).toHaveLength(2);

@@ -16,6 +16,7 @@ import { analyze, preparePlant } from '@/lib/engine/analyze';
 import { proposeForPlant } from '@/lib/engine/starting-point';
 import { compensatorImpedances, compensatorTransfer, partsFromShape, shapeFromParts, summarizeCompensator } from '@/lib/engine/compensator';
 import { peakCurrentParameters } from '@/lib/engine/control';
+import { sampleByKey } from '@/lib/engine/samples';
 import { computeOperatingPoint } from '@/lib/engine/steady-state';
 import { evaluateTransfer } from '@/lib/engine/transfer';
 import { EngineInputError, type AnalyzeRequest, type CompensatorInput, type ConverterInput } from '@/lib/engine/types';
@@ -324,12 +325,7 @@ describe('backward compatibility', () => {
 });
 
 describe('starting point follows the mode and the amplifier', () => {
-  const cmBoostGm: AnalyzeRequest = {
-    converter: { topology: 'boost', vin: 5, vout: 12, iout: 0.5, fsw: 400e3, l: 10e-6, rl: 0.03, c: 44e-6, rc: 0.005, vd: 0.4 },
-    modulator: { mode: 'peak-current', ri: 0.1, se: 3e4 },
-    feedback: { vref: 1.2 },
-    compensator: { type: 'type2', amplifier: 'transconductance', gm: 1e-3, ro: 2e6, rb: 40e3 / 9, r1: 40e3, r2: 10e3, c1: 10e-9, c2: 100e-12 },
-  };
+  const cmBoostGm: AnalyzeRequest = sampleByKey('cm-boost-gm-type2').request;
 
   it('K factor around a gm amplifier meets the target fc and PM (ro aside), keeping gm and Rb', () => {
     const prepared = preparePlant(cmBoostGm);

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { analyze } from '@/lib/engine/analyze';
 import { createRandom } from '@/lib/engine/random';
-import { defaultRange, SERIES_TOLERANCE, type OperatingRange } from '@/lib/engine/range';
+import { SERIES_TOLERANCE } from '@/lib/engine/eseries';
+import { defaultRange, type OperatingRange } from '@/lib/engine/range';
 import { MAX_SPREAD_SAMPLES, percentileOfSorted, runSpread } from '@/lib/engine/spread';
 import { SAMPLE_DESIGNS } from '@/lib/engine/samples';
 import { EngineInputError, type AnalyzeRequest } from '@/lib/engine/types';

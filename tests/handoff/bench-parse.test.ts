@@ -229,3 +229,43 @@ describe('bench data parser: rejected files name the line and the problem', () =
     expect(parseBenchData(header + body).rows).toBe(BENCH_MAX_ROWS);
   });
 });
+
+describe('bench data parser: quoted fields (RFC 4180, read by papaparse)', () => {
+  it('reads a quoted header whose names hold the separator', () => {
+    const r = parseBenchData('"Frequency, Hz","Gain, dB","Phase, deg"\n' + rows(',', SAMPLE));
+    expect(r.hasHeader).toBe(true);
+    expect(r.separator).toBe('comma');
+    expect(r.frequencyUnit).toBe('Hz');
+    expect(r.points.gainDb).toEqual([40.5, 20.1, -0.5, -30.2]);
+    expect(r.points.phaseDeg).toEqual([-91.2, -110.4, -125.3, -170.8]);
+  });
+
+  it('finds the columns by name when a quoted extra column holds commas and quotes', () => {
+    const text =
+      'Instrument: "bench analyzer, port 1"\n' +
+      '"Point, #",Frequency (kHz),"Gain, dB","Remark ""raw""",Phase (deg)\n' +
+      '1,0.1,40,"ok, settled",-90\n2,1,20,"""late""",-100\n3,10,0,,-120\n';
+    const r = parseBenchData(text);
+    expect(r.points.f).toEqual([100, 1000, 10000]);
+    expect(r.points.gainDb).toEqual([40, 20, 0]);
+    expect(r.points.phaseDeg).toEqual([-90, -100, -120]);
+  });
+
+  it('reads quoted numbers with a decimal comma after a semicolon header', () => {
+    const r = parseBenchData('"Frequenz; Hz";"Verstärkung, dB";"Phase, deg"\n"100";"40,5";"-91,2"\n"1000";"20,1";"-110,4"');
+    expect(r.separator).toBe('semicolon');
+    expect(r.points.gainDb).toEqual([40.5, 20.1]);
+  });
+
+  it('reads quoted names in aligned columns', () => {
+    const r = parseBenchData('"Freq Hz"   "Gain dB"   "Phase deg"\n100   40   -90\n1000  20  -100');
+    expect(r.separator).toBe('space');
+    expect(r.points.f).toEqual([100, 1000]);
+  });
+
+  it('names the line of a quote left open', () => {
+    const e = errorOf('Frequency (Hz),"Gain, dB",Phase (deg)\n100,20,-90\n1000,"10,-100\n2000,0,-120');
+    expect(e.line).toBe(3);
+    expect(e.message).toBe('line 3: a quoted field is not closed on its line');
+  });
+});

@@ -1,3 +1,4 @@
+import escapeHtml from 'escape-html';
 import { describe, expect, it } from 'vitest';
 import { CAUTIONS } from '@/lib/cautions';
 import { analyze } from '@/lib/engine/analyze';
@@ -44,7 +45,7 @@ describe('printable report', () => {
     expect(html).toContain('Duty cycle D');
     expect(html).toContain('Phase margin');
     expect(html).toContain('<b>R17</b>');
-    for (const c of ctx().result.checks) expect(html).toContain(c.message.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;'));
+    for (const c of ctx().result.checks) expect(html).toContain(escapeHtml(c.message));
   });
 
   it('shows every caution', () => {

@@ -11,7 +11,7 @@ import path from 'node:path';
 
 const ROOT = path.resolve(__dirname, '../..');
 const DIST = '.next-test';
-const SOURCES = ['app', 'components', 'lib', 'db', 'instrumentation.ts', 'next.config.mjs', 'tailwind.config.ts', 'package.json'];
+const SOURCES = ['app', 'components', 'lib', 'db', 'instrumentation.ts', 'proxy.ts', 'next.config.mjs', 'tailwind.config.ts', 'package.json'];
 
 function newestMtime(p: string): number {
   const full = path.join(ROOT, p);

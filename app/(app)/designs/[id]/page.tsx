@@ -5,6 +5,7 @@ import { can, requireUser } from '@/lib/auth';
 import { SAMPLE_DESIGNS } from '@/lib/engine/samples';
 import type { AnalyzeRequest, Topology } from '@/lib/engine/types';
 import { CautionsPanel } from '@/components/cautions-panel';
+import { preloadPlotly } from '@/components/plot/preload-plotly';
 import { TuneScreen, type TuneMode } from '@/components/tune/tune-screen';
 
 /** A new design starts from the engine's sample of its topology. */
@@ -18,6 +19,7 @@ const revisionParam = (v: string | undefined) => (v !== undefined && v !== '' ? 
 // Tune: the latest revision (editable for designers and admins), or ?r=N read-only.
 // ?from=N (designers and admins): the latest revision with rN's input loaded as unsaved changes.
 export default async function TunePage({ params, searchParams }: { params: Promise<{ id: string }>; searchParams: Promise<{ r?: string; from?: string }> }) {
+  preloadPlotly(); // fetched while the page hydrates, evaluated after Tune's SVG first picture
   const [{ id }, q] = await Promise.all([params, searchParams]);
   const user = await requireUser();
   const db = getDb();

@@ -17,6 +17,7 @@ import { MarginDeltas } from '@/components/review/margin-deltas';
 import { StepCompare } from '@/components/time-domain/step-compare';
 import { describeStep, stepOf, stepResponseOf } from '@/lib/step-summary';
 import { RangeCompare } from '@/components/range/range-compare';
+import { preloadPlotly } from '@/components/plot/preload-plotly';
 import { summarizeRange } from '@/lib/range-summary';
 
 export const metadata: Metadata = { title: 'Compare' };
@@ -33,6 +34,7 @@ function loopOf(label: string, input: AnalyzeRequest, summary: RevisionSummary):
 }
 
 export default async function ComparePage({ params, searchParams }: Props) {
+  preloadPlotly();
   const [{ id }, q] = await Promise.all([params, searchParams]);
   const { user, db, design } = await loadDesignPage(id);
 
