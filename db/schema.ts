@@ -272,7 +272,10 @@ export const mailbox = sqliteTable('mailbox', {
   html: text('html').notNull().default(''),
   raw: text('raw').notNull(),
   createdAt: createdAt(),
-});
+},
+  // The mailbox page lists one address's mail about one team, newest first, 100 a page.
+  (t) => [index('mailbox_to_team').on(t.toAddress, t.teamId)],
+);
 
 export const usersRelations = relations(users, ({ many }) => ({ memberships: many(memberships) }));
 export const teamsRelations = relations(teams, ({ many }) => ({

@@ -1,6 +1,6 @@
 'use client';
 
-import { useDeferredValue, useMemo } from 'react';
+import { useDeferredValue, useEffect, useMemo, useState } from 'react';
 import { analyzeCorners, worstCaseChecks, type CornersResult } from '@/lib/engine/corners';
 import type { MarginTargets, OperatingRange } from '@/lib/engine/range';
 import { EngineInputError, type AnalyzeRequest, type Check, type FieldIssue } from '@/lib/engine/types';
@@ -17,7 +17,17 @@ export function useCorners(request: AnalyzeRequest, range: OperatingRange, targe
   // null on the first render (server and hydration): the corners follow in a background render,
   // so they never delay the page's first picture.
   const deferred = useDeferredValue<typeof trio | null>(trio, null);
-  const input = paused ? null : deferred;
+  // Not before the page's first paint (Tune's first picture comes first), then in the background.
+  const [painted, setPainted] = useState(false);
+  useEffect(() => {
+    let timer: ReturnType<typeof setTimeout> | undefined;
+    const frame = requestAnimationFrame(() => (timer = setTimeout(() => setPainted(true), 0)));
+    return () => {
+      cancelAnimationFrame(frame);
+      if (timer !== undefined) clearTimeout(timer);
+    };
+  }, []);
+  const input = paused || !painted ? null : deferred;
   const last = useMemo<{ value: CornersState }>(() => ({ value: null }), []);
   const computed = useMemo<CornersState | undefined>(() => {
     if (!input) return undefined;

@@ -1,4 +1,5 @@
-import { and, asc, desc, eq } from 'drizzle-orm';
+import { and, asc, count, desc, eq } from 'drizzle-orm';
+import { pageWindow } from '../../lib/paging';
 import type { Db } from '../connection';
 import { remarks, revisions, signoffEvents, users } from '../schema';
 import { writeAudit } from './audit';
@@ -23,6 +24,22 @@ export function listRemarks(db: Db, revisionId: number) {
 }
 
 export type RemarkView = ReturnType<typeof listRemarks>[number];
+
+/** One page of a revision's remarks (the History timeline), newest first, 100 a page. */
+export function listRemarksPage(db: Db, revisionId: number, page: number) {
+  const total = db.select({ n: count() }).from(remarks).where(eq(remarks.revisionId, revisionId)).get()?.n ?? 0;
+  const w = pageWindow(total, page);
+  const rows = db
+    .select({ id: remarks.id, authorName: users.name, body: remarks.body, comparedWith: remarks.comparedWith, createdAt: remarks.createdAt })
+    .from(remarks)
+    .innerJoin(users, eq(users.id, remarks.authorId))
+    .where(eq(remarks.revisionId, revisionId))
+    .orderBy(desc(remarks.id))
+    .limit(w.pageSize)
+    .offset(w.offset)
+    .all();
+  return { remarks: rows, total, page: w.page, lastPage: w.lastPage };
+}
 
 /** Attach a remark to a revision (the revision itself stays untouched). */
 export function addRemark(

@@ -1,4 +1,5 @@
-import { and, asc, desc, eq, sql } from 'drizzle-orm';
+import { and, asc, count, desc, eq, sql } from 'drizzle-orm';
+import { PAGE_SIZE, pageWindow } from '../../lib/paging';
 import type { Db } from '../connection';
 import type { AnalyzeRequest } from '../../lib/engine/types';
 import type { RevisionSummary } from '../../lib/revision-summary';
@@ -108,6 +109,38 @@ export function getRevision(db: Db, designId: number, number: number) {
     .where(and(eq(revisions.designId, designId), eq(revisions.number, number)))
     .get();
 }
+
+/**
+ * One page of a design's revisions, newest first, without their stored input (the history table
+ * shows number, author, note, margins): 100 a page on the unique index (design, number).
+ * Numbers run 1…latest without gaps (revisions are never deleted), so revision n is on page
+ * floor((latest − n) / 100) + 1 (revisionPageOf).
+ */
+export function listRevisionPage(db: Db, designId: number, page: number) {
+  const total = db.select({ n: count() }).from(revisions).where(eq(revisions.designId, designId)).get()?.n ?? 0;
+  const w = pageWindow(total, page);
+  const rows = db
+    .select({
+      id: revisions.id,
+      number: revisions.number,
+      baseNumber: revisions.baseNumber,
+      summary: revisions.summary,
+      authorName: users.name,
+      note: revisions.note,
+      createdAt: revisions.createdAt,
+    })
+    .from(revisions)
+    .innerJoin(users, eq(users.id, revisions.authorId))
+    .where(eq(revisions.designId, designId))
+    .orderBy(desc(revisions.number))
+    .limit(w.pageSize)
+    .offset(w.offset)
+    .all();
+  return { revisions: rows, total, page: w.page, lastPage: w.lastPage, pageSize: w.pageSize };
+}
+
+/** The history page (newest first, PAGE_SIZE a page) that holds revision `number` of `latest`. */
+export const revisionPageOf = (latest: number, number: number) => Math.floor(Math.max(0, latest - number) / PAGE_SIZE) + 1;
 
 /** A revision with its author's name, as the revision routes answer it. */
 export type RevisionRow = ReturnType<typeof listRevisions>[number];

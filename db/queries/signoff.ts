@@ -59,11 +59,12 @@ export function getSignoffState(db: Db, revisionId: number): SignoffState {
 }
 
 /** State of every revision of a design, keyed by revision number. */
-export function listSignoffStates(db: Db, designId: number): Map<number, SignoffState> {
+export function listSignoffStates(db: Db, designId: number, numbers?: { from: number; to: number }): Map<number, SignoffState> {
+  const range = numbers ? sql` AND r.number BETWEEN ${numbers.from} AND ${numbers.to}` : sql``;
   const rows = db.all<{ number: number; state: SignoffState | null }>(
     sql`SELECT r.number AS number,
                (SELECT e.state FROM signoff_events e WHERE e.revision_id = r.id ORDER BY e.id DESC LIMIT 1) AS state
-          FROM revisions r WHERE r.design_id = ${designId}`,
+          FROM revisions r WHERE r.design_id = ${designId}${range}`,
   );
   return new Map(rows.map((r) => [r.number, r.state ?? 'draft']));
 }

@@ -103,41 +103,6 @@ export class MembershipError extends Error {
   }
 }
 
-/**
- * Add a user to a team with a role. An unknown email creates the account
- * (then a password of at least 8 characters is required).
- */
-export function addTeamMember(
-  db: Db,
-  actorId: number,
-  teamId: number,
-  m: { email: string; name?: string; role: Role; password?: string },
-) {
-  return db.transaction((tx) => {
-    let user = getUserByEmail(tx, m.email);
-    let created = false;
-    if (!user) {
-      if (!m.password || m.password.length < 8)
-        throw new MembershipError('password', 'A new account needs a password of at least 8 characters');
-      if (!m.name?.trim()) throw new MembershipError('name', 'A new account needs a name');
-      user = createUser(tx, { email: m.email, name: m.name, password: m.password });
-      created = true;
-    }
-    if (getMembership(tx, user.id, teamId))
-      throw new MembershipError('email', `${user.email} is already a member of this team`);
-    tx.insert(memberships).values({ userId: user.id, teamId, role: m.role }).run();
-    writeAudit(tx, {
-      teamId,
-      userId: actorId,
-      action: 'member.added',
-      entityType: 'user',
-      entityId: user.id,
-      detail: { email: user.email, role: m.role, accountCreated: created },
-    });
-    return { user: { id: user.id, email: user.email, name: user.name }, created };
-  });
-}
-
 /** End every session of a user: tokens carrying an older session version are refused (lib/auth.ts). */
 export function bumpSessionVersion(db: Db, userId: number) {
   db.update(users)

@@ -2,7 +2,9 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { getDb } from '@/db/client';
-import { getMailForMember, listMailForMember } from '@/db/queries';
+import { getMailForMember, listMailPageForMember } from '@/db/queries';
+import { pageParam } from '@/lib/paging';
+import { Pager } from '@/components/ui/pager';
 import { requireUser } from '@/lib/auth';
 import { formatDate } from '@/components/review/format';
 
@@ -13,13 +15,17 @@ export const metadata: Metadata = { title: 'Mailbox' };
  * local fake mail server. Only in the demo (PHASEWRIGHT_DEMO=1), for every
  * signed-in member; elsewhere the page does not exist.
  */
-export default async function MailboxPage({ searchParams }: { searchParams: Promise<{ m?: string }> }) {
+export default async function MailboxPage({ searchParams }: { searchParams: Promise<{ m?: string; page?: string }> }) {
   const user = await requireUser();
   if (process.env.PHASEWRIGHT_DEMO !== '1') notFound();
-  const { m } = await searchParams;
+  const { m, page } = await searchParams;
   const db = getDb();
-  const messages = listMailForMember(db, user.email, user.teamId, 200);
-  const open = (m && /^\d+$/.test(m) ? getMailForMember(db, Number(m), user.email, user.teamId) : undefined) ?? messages[0];
+  // 100 messages a page, newest first; the page is in the URL, so Back and links keep it.
+  const list = listMailPageForMember(db, user.email, user.teamId, pageParam(page));
+  const messages = list.messages;
+  const pageQuery = list.page > 1 ? `page=${list.page}&` : '';
+  const openId = m && /^\d{1,12}$/.test(m) ? Number(m) : messages[0]?.id;
+  const open = (openId === undefined ? undefined : getMailForMember(db, openId, user.email, user.teamId)) ?? (messages[0] ? getMailForMember(db, messages[0].id, user.email, user.teamId) : undefined);
 
   return (
     <div className="space-y-4">
@@ -38,7 +44,7 @@ export default async function MailboxPage({ searchParams }: { searchParams: Prom
             {messages.map((msg) => (
               <li key={msg.id}>
                 <Link
-                  href={`/mailbox?m=${msg.id}`}
+                  href={`/mailbox?${pageQuery}m=${msg.id}`}
                   scroll={false}
                   className={`block px-3 py-2 text-sm ${open?.id === msg.id ? 'bg-indigo-50' : 'hover:bg-slate-50'}`}
                   aria-current={open?.id === msg.id ? 'true' : undefined}
@@ -51,6 +57,9 @@ export default async function MailboxPage({ searchParams }: { searchParams: Prom
                 </Link>
               </li>
             ))}
+            <li>
+              <Pager page={list.page} lastPage={list.lastPage} total={list.total} noun="messages" href={(n) => `/mailbox?page=${n}`} testId="mail-pager" />
+            </li>
           </ol>
           {open && (
             <article className="card overflow-hidden" data-testid="mail-open">

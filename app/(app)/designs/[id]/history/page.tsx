@@ -1,6 +1,20 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { getSignoffFacts, getTeamSignoffSettings, listRemarks, listRevisions, listSignoffEvents, listSignoffStates, listTeamMembers } from '@/db/queries';
+import {
+  getLatestRevision,
+  getRevision,
+  getSignoffFacts,
+  getSignoffState,
+  getTeamSignoffSettings,
+  listRemarksPage,
+  listRevisionPage,
+  listSignoffEvents,
+  listSignoffStates,
+  listTeamMembers,
+  revisionPageOf,
+} from '@/db/queries';
+import { pageParam } from '@/lib/paging';
+import { Pager } from '@/components/ui/pager';
 import { checkDecide, checkSubmit, eligibleReviewers, mayReview } from '@/lib/signoff-policy';
 import { can } from '@/lib/auth';
 import { loadDesignPage } from '@/lib/design-page';
@@ -9,14 +23,14 @@ import { SignoffPanel, type TimelineItem } from '@/components/review/signoff-pan
 
 export const metadata: Metadata = { title: 'History' };
 
-type Props = { params: Promise<{ id: string }>; searchParams: Promise<{ r?: string }> };
+type Props = { params: Promise<{ id: string }>; searchParams: Promise<{ r?: string; page?: string; remarks?: string }> };
 
 export default async function HistoryPage({ params, searchParams }: Props) {
-  const [{ id }, { r }] = await Promise.all([params, searchParams]);
+  const [{ id }, q] = await Promise.all([params, searchParams]);
   const { user, db, design } = await loadDesignPage(id);
 
-  const revisions = listRevisions(db, design.id);
-  if (revisions.length === 0)
+  const latest = getLatestRevision(db, design.id);
+  if (!latest)
     return (
       <div className="card p-8 text-center text-slate-600">
         No revision saved yet. Shape the loop on{' '}
@@ -27,9 +41,13 @@ export default async function HistoryPage({ params, searchParams }: Props) {
       </div>
     );
 
-  const states = listSignoffStates(db, design.id);
-  const rows: RevisionRow[] = revisions
-    .map((rev) => {
+  // 100 revisions a page, newest first; the page is in the URL (?page=), else the one holding ?r=.
+  const asked = q.r && /^\d{1,9}$/.test(q.r) ? getRevision(db, design.id, Number(q.r)) : undefined;
+  const selected = asked ?? latest;
+  const list = listRevisionPage(db, design.id, q.page !== undefined ? pageParam(q.page) : revisionPageOf(latest.number, selected.number));
+  const shown = list.revisions.map((x) => x.number);
+  const states = listSignoffStates(db, design.id, { from: Math.min(...shown), to: Math.max(...shown) });
+  const rows: RevisionRow[] = list.revisions.map((rev) => {
       const margins = rev.summary.margins;
       return {
         number: rev.number,
@@ -42,12 +60,10 @@ export default async function HistoryPage({ params, searchParams }: Props) {
         gainMarginDb: margins?.gainMarginDb ?? null,
         state: states.get(rev.number) ?? 'draft',
       };
-    })
-    .reverse();
+    });
 
-  const latest = revisions[revisions.length - 1];
-  const selected = revisions.find((x) => String(x.number) === r) ?? latest;
-  const state = states.get(selected.number) ?? 'draft';
+  const state = states.get(selected.number) ?? getSignoffState(db, selected.id);
+  const remarkPage = listRemarksPage(db, selected.id, pageParam(q.remarks));
   const events = listSignoffEvents(db, selected.id);
   const waitingFor = state === 'in-review' ? (events.findLast((e) => e.state === 'in-review')?.reviewerName ?? null) : null;
   const timeline: TimelineItem[] = [
@@ -60,7 +76,7 @@ export default async function HistoryPage({ params, searchParams }: Props) {
       reviewerName: e.state === 'in-review' ? e.reviewerName : null,
       text: e.message,
     })),
-    ...listRemarks(db, selected.id).map((m) => ({
+    ...remarkPage.remarks.map((m) => ({
       kind: 'remark' as const,
       id: m.id,
       at: m.createdAt.toISOString(),
@@ -83,7 +99,17 @@ export default async function HistoryPage({ params, searchParams }: Props) {
 
   return (
     <div className="space-y-4">
-      <RevisionTable designId={design.id} rows={rows} selected={selected.number} />
+      <div>
+        <RevisionTable designId={design.id} rows={rows} selected={selected.number} />
+        <Pager
+          page={list.page}
+          lastPage={list.lastPage}
+          total={list.total}
+          noun="revisions"
+          href={(p) => `/designs/${design.id}/history?page=${p}${asked ? `&r=${selected.number}` : ''}`}
+          testId="revisions-pager"
+        />
+      </div>
       <SignoffPanel
         key={selected.number}
         designId={design.id}
@@ -96,6 +122,14 @@ export default async function HistoryPage({ params, searchParams }: Props) {
         waitingFor={waitingFor}
         compareWith={selected.baseNumber ?? (selected.number > 1 ? selected.number - 1 : null)}
         decideBlockedReason={decideBlockedReason}
+      />
+      <Pager
+        page={remarkPage.page}
+        lastPage={remarkPage.lastPage}
+        total={remarkPage.total}
+        noun={`remarks on r${selected.number}`}
+        href={(p) => `/designs/${design.id}/history?r=${selected.number}&remarks=${p}`}
+        testId="remarks-pager"
       />
     </div>
   );

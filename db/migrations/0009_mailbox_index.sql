@@ -1,0 +1,1 @@
+CREATE INDEX `mailbox_to_team` ON `mailbox` (`to_address`,`team_id`);
