@@ -6,6 +6,7 @@ import { RevisionConflictError } from '@/db/queries/revisions';
 import { MembershipError } from '@/db/queries/users';
 import { InvitationError } from '@/db/queries/invitations';
 import { HashBusyError } from './password-hash';
+import { SwitchingBusyError } from './switching-busy';
 import type { Role } from '@/db/schema';
 import { zodIssues } from '@/lib/validation/analyze';
 import { getCurrentUser, type CurrentUser } from './auth';
@@ -39,13 +40,6 @@ export async function parseJson<S extends z.ZodType>(req: Request, schema: S): P
   return r.data;
 }
 
-/** Parse the URL's query parameters with a zod schema: a misfit → 400 naming the parameter. */
-export function parseQuery<S extends z.ZodType>(req: Request, schema: S): z.infer<S> {
-  const r = schema.safeParse(Object.fromEntries(new URL(req.url).searchParams));
-  if (!r.success) throw new HttpError(400, 'The query parameters do not fit the expected form', zodIssues(r.error));
-  return r.data;
-}
-
 /** Route params arrive as strings; ids must be positive integers. */
 export function parseId(value: string | undefined, field: string): number {
   const n = Number(value);
@@ -62,6 +56,8 @@ export function toErrorResponse(err: unknown) {
   if (err instanceof MembershipError) return jsonError(422, err.message, [{ path: err.field, message: err.message }]);
   if (err instanceof InvitationError) return jsonError(err.status, err.message, [{ path: err.field, message: err.message }]);
   if (err instanceof HashBusyError) return NextResponse.json({ error: err.message }, { status: 429, headers: { 'retry-after': '5' } });
+  if (err instanceof SwitchingBusyError)
+    return NextResponse.json({ error: err.message }, { status: 503, headers: { 'retry-after': String(err.retryAfterSeconds) } });
   console.error(err);
   return jsonError(500, 'Something went wrong on the server; nothing was changed');
 }

@@ -7,7 +7,7 @@ import { useEffect, useRef, useState } from 'react';
 import type { DesignPage } from '@/db/queries/designs';
 import { formatDateTime } from '@/lib/format';
 import { designListQueryOptions } from '@/lib/queries/designs';
-import { topologyLabel } from '@/lib/topology';
+import { topologyLabel } from '@/lib/catalog/topologies';
 import {
   DESIGN_STATUSES,
   defaultSortDir,

@@ -17,6 +17,7 @@ import {
 } from '@/db/queries';
 import { memberships } from '@/db/schema';
 import { resolveDatabasePath, type OpenDb } from '@/db/connection';
+import { createTestUser } from '../support/users';
 import { tempDb } from '../support/temp-db';
 import { sampleRevisionBody } from '../support/sample-revision';
 
@@ -31,8 +32,8 @@ beforeEach(() => {
   ({ db, cleanup } = tempDb());
   teamA = createTeam(db, { name: 'A', slug: 'a' }).id;
   teamB = createTeam(db, { name: 'B', slug: 'b' }).id;
-  alice = createUser(db, { email: 'Alice@Example.test', name: 'Alice', password: 'correct horse' }).id;
-  bob = createUser(db, { email: 'bob@example.test', name: 'Bob', password: 'battery staple' }).id;
+  alice = createTestUser(db, { email: 'Alice@Example.test', name: 'Alice', password: 'correct horse' }).id;
+  bob = createTestUser(db, { email: 'bob@example.test', name: 'Bob', password: 'battery staple' }).id;
   db.insert(memberships).values({ userId: alice, teamId: teamA, role: 'admin' }).run();
   db.insert(memberships).values({ userId: bob, teamId: teamB, role: 'designer' }).run();
 });
@@ -58,6 +59,10 @@ describe('users', () => {
     expect(verifyCredentials(db, 'ALICE@example.test', 'correct horse')?.id).toBe(alice);
     expect(verifyCredentials(db, 'alice@example.test', 'wrong')).toBeNull();
     expect(verifyCredentials(db, 'nobody@example.test', 'correct horse')).toBeNull();
+    // createUser hashes the password itself (the fixtures above share a hash).
+    const carol = createUser(db, { email: ' Carol@Example.test ', name: 'Carol', password: 'tulip wire' });
+    expect(carol.passwordHash).toMatch(/^\$2[aby]\$10\$/);
+    expect(verifyCredentials(db, 'carol@example.test', 'tulip wire')?.id).toBe(carol.id);
   });
 
   it('lists only the teams a user belongs to', () => {
