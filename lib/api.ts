@@ -39,13 +39,6 @@ export async function parseJson<S extends z.ZodType>(req: Request, schema: S): P
   return r.data;
 }
 
-/** Parse the URL's query parameters with a zod schema: a misfit → 400 naming the parameter. */
-export function parseQuery<S extends z.ZodType>(req: Request, schema: S): z.infer<S> {
-  const r = schema.safeParse(Object.fromEntries(new URL(req.url).searchParams));
-  if (!r.success) throw new HttpError(400, 'The query parameters do not fit the expected form', zodIssues(r.error));
-  return r.data;
-}
-
 /** Route params arrive as strings; ids must be positive integers. */
 export function parseId(value: string | undefined, field: string): number {
   const n = Number(value);

@@ -1,7 +1,7 @@
 import 'server-only';
 import { cookies, headers } from 'next/headers';
 import { redirect } from 'next/navigation';
-import { getServerSession, type NextAuthOptions } from 'next-auth';
+import type { NextAuthOptions } from 'next-auth';
 import { decode } from 'next-auth/jwt';
 import CredentialsProvider from 'next-auth/providers/credentials';
 import { getDb } from '@/db/client';
@@ -71,10 +71,6 @@ export const authOptions: NextAuthOptions = {
     },
   },
 };
-
-export function getSession() {
-  return getServerSession(authOptions);
-}
 
 async function readTeamCookie(): Promise<number | null> {
   try {

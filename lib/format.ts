@@ -13,11 +13,6 @@ export function formatDateTime(d: Date | string | number): string {
   return `${dateTimeFormat.format(new Date(d))} UTC`;
 }
 
-/** "2 Dec 2026". */
-export function formatDay(d: Date | string | number): string {
-  return dayFormat.format(new Date(d));
-}
-
 /** "2026-12-02" — for file names and compact tables. */
 export function formatIsoDay(d: Date | string | number): string {
   return new Date(d).toISOString().slice(0, 10);

@@ -6,7 +6,7 @@ import { useSearchParams } from 'next/navigation';
 import { useEffect, useRef, useState } from 'react';
 import type { DesignPage } from '@/db/queries/designs';
 import { designListQueryOptions } from '@/lib/queries/designs';
-import { topologyLabel } from '@/lib/topology';
+import { topologyLabel } from '@/lib/catalog/topologies';
 import {
   DESIGN_STATUSES,
   defaultSortDir,

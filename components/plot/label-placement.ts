@@ -128,8 +128,3 @@ export function placeLabels(labels: LabelRequest[], avoid: Avoid = {}): PlacedLa
   });
 }
 
-/** Whether two placed labels cover each other (for tests and checks). */
-export function labelsOverlap(a: PlacedLabel & { x: number; y: number }, b: PlacedLabel & { x: number; y: number }): boolean {
-  const box = (p: typeof a) => ({ x0: p.x + p.dx - p.width / 2, y0: p.y + p.dy - p.height / 2, x1: p.x + p.dx + p.width / 2, y1: p.y + p.dy + p.height / 2 });
-  return overlap(box(a), box(b));
-}

@@ -24,10 +24,6 @@ export function listMail(db: Db, limit = 100) {
   return db.select().from(mailbox).orderBy(desc(mailbox.id)).limit(limit).all();
 }
 
-export function getMail(db: Db, id: number) {
-  return db.select().from(mailbox).where(eq(mailbox.id, id)).get();
-}
-
 /** Messages to one address, newest first (addresses compared lower-case). */
 export function listMailTo(db: Db, address: string, limit = 50) {
   return db.select().from(mailbox).where(eq(mailbox.toAddress, address.trim().toLowerCase())).orderBy(desc(mailbox.id)).limit(limit).all();

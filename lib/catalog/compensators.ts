@@ -207,10 +207,6 @@ export const partRole = (type: CompensatorType, part: PartKey, amplifier?: Ampli
   return compensatorFor(type, amplifier).roles?.[part] ?? PARTS[part].role;
 };
 
-/** Whether a type uses a part (Rb, the divider, always). */
-export const usesPart = (type: CompensatorType, part: PartKey): boolean =>
-  part === 'rb' || COMPENSATORS[type].parts.includes(part);
-
 /**
  * The landmarks a shape actually has: when it lists fewer poles (or zeros) than the
  * entry, the optional ones are the missing ones.

@@ -104,15 +104,3 @@ export function readInput(stage: Stage, spec: InputSpec): number | null {
   }
   return v ?? spec.defaultValue ?? null;
 }
-
-/** The stage with one input set. */
-export function writeInput(stage: Stage, spec: InputSpec, value: number): Stage {
-  switch (spec.section) {
-    case 'converter':
-      return { ...stage, converter: { ...stage.converter, [spec.field]: value } };
-    case 'modulator':
-      return { ...stage, modulator: { ...stage.modulator, [spec.field]: value } };
-    case 'feedback':
-      return { ...stage, feedback: { ...stage.feedback, [spec.field]: value } };
-  }
-}

@@ -11,7 +11,7 @@
  * crossings).
  */
 import Complex from 'complex.js';
-import { evalPoly, polyMul, polySections, polyTrim, type Poly } from './complex-poly';
+import { evalPoly, polyMul, polyRoots, polySections, polyTrim, type Poly } from './complex-poly';
 import type { TransferSummary } from './types';
 
 const TWO_PI = 2 * Math.PI;
@@ -111,26 +111,8 @@ export const dbFromMagSq = (magSq: number): number => DB_PER_LN_MAGSQ * Math.log
 /** 20·log10(x) for a magnitude x. */
 export const dbFromMag = (mag: number): number => 20 * Math.log10(mag);
 
-/** Roots of one section [1, a1] or [1, a1, a2] as plain {re, im} (rad/s), without cancellation. */
-const sectionRoots = (p: Poly): { re: number; im: number }[] => {
-  const a1 = p[1] ?? 0;
-  const a2 = p.length > 2 ? p[2] : 0;
-  if (a2 === 0) return a1 === 0 ? [] : [{ re: -1 / a1, im: 0 }];
-  const disc = a1 * a1 - 4 * a2;
-  if (disc >= 0) {
-    const q = -0.5 * (a1 + (a1 >= 0 ? Math.sqrt(disc) : -Math.sqrt(disc)));
-    return [
-      { re: q / a2, im: 0 },
-      { re: 1 / q, im: 0 },
-    ];
-  }
-  const re = -a1 / (2 * a2);
-  const im = Math.sqrt(-disc) / (2 * Math.abs(a2));
-  return [
-    { re, im },
-    { re, im: -im },
-  ];
-};
+/** Roots of one section [1, a1] or [1, a1, a2] (rad/s), by the engine's one root finder. */
+const sectionRoots = (p: Poly): { re: number; im: number }[] => polyRoots(p);
 
 /** Poles and zeros of a sectioned transfer (rad/s), origin roots included as 0. */
 export const transferRoots = (h: SectionedTransfer): { zeros: { re: number; im: number }[]; poles: { re: number; im: number }[] } => {

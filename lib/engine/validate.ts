@@ -27,19 +27,24 @@ const requireBound = (issues: FieldIssue[], path: string, v: unknown, bound: 'po
 const partLabel = (key: keyof typeof PARTS, note?: string) =>
   `${PARTS[key].name}${note ? ` (${note})` : ''}`;
 
-/** Problems of a compensator's parts: R1, C1 > 0; Type II needs R2; Type III R2, R3, C3; C2 ≥ 0. */
+/**
+ * Problems of a compensator's parts, for the parts its catalogue entry lists: each above 0,
+ * except C2, which may be 0 or left out (no high-frequency pole).
+ */
 export const compensatorIssues = (c: CompensatorInput, prefix = 'compensator'): FieldIssue[] => {
   const issues: FieldIssue[] = [];
-  const typeLabel = COMPENSATORS[c.type]?.label ?? c.type;
-  requirePositive(issues, `${prefix}.r1`, c.r1, partLabel('r1'));
-  requirePositive(issues, `${prefix}.c1`, c.c1, partLabel('c1'));
-  if (c.type === 'type2' || c.type === 'type3') {
-    requirePositive(issues, `${prefix}.r2`, c.r2, partLabel('r2', `a ${typeLabel} part`));
-    if (c.c2 !== undefined) requireNonNegative(issues, `${prefix}.c2`, c.c2, partLabel('c2', '0 = absent'));
+  const entry = Object.hasOwn(COMPENSATORS, c.type) ? COMPENSATORS[c.type] : null;
+  if (!entry) {
+    issues.push({ path: `${prefix}.type`, message: `type must be one of ${Object.values(COMPENSATORS).map((e) => e.label).join(', ')}` });
+    return issues;
   }
-  if (c.type === 'type3') {
-    requirePositive(issues, `${prefix}.r3`, c.r3, partLabel('r3', `a ${typeLabel} part`));
-    requirePositive(issues, `${prefix}.c3`, c.c3, partLabel('c3', `a ${typeLabel} part`));
+  for (const key of entry.parts) {
+    const v: unknown = c[key];
+    if (key === 'c2') {
+      if (v !== undefined) requireNonNegative(issues, `${prefix}.c2`, v, partLabel('c2', '0 = absent'));
+    } else {
+      requirePositive(issues, `${prefix}.${key}`, v, partLabel(key, key === 'r1' || key === 'c1' ? undefined : `a ${entry.label} part`));
+    }
   }
   if (c.amplifier !== undefined && c.amplifier !== 'opamp' && c.amplifier !== 'transconductance') {
     issues.push({ path: `${prefix}.amplifier`, message: 'amplifier must be "opamp" or "transconductance"' });

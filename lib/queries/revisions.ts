@@ -33,13 +33,6 @@ export const revisionsQueryOptions = (designId: number) =>
     queryFn: () => requestJson<{ revisions: RevisionListItem[] }>(`/api/designs/${designId}/revisions`),
   });
 
-export const revisionQueryOptions = (designId: number, number: number) =>
-  queryOptions({
-    queryKey: designKeys.revision(designId, number),
-    queryFn: () => requestJson<RevisionListItem>(`/api/designs/${designId}/revisions/${number}`),
-    staleTime: Infinity, // revisions are immutable
-  });
-
 /** POST a new revision; throws ApiError (409 carries latestRevision). */
 export const saveRevision = (designId: number, body: SaveRevisionBody) =>
   requestJson<SavedRevision>(`/api/designs/${designId}/revisions`, {

@@ -5,12 +5,13 @@
  */
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { eq, sql } from 'drizzle-orm';
-import { createDesign, createRevision, createTeam, createUser, deleteDesign, listDesignsPage, setDesignArchived, submitForReview, updateDesign } from '@/db/queries';
+import { createDesign, createRevision, createTeam, deleteDesign, listDesignsPage, setDesignArchived, submitForReview, updateDesign } from '@/db/queries';
 import type { Db } from '@/db/connection';
 import { designs, memberships } from '@/db/schema';
 import { DESIGN_SORTS, designListQuerySchema, type DesignListQuery } from '@/lib/validation/design';
 import { sampleRevisionBody } from '../support/sample-revision';
 import { tempDb } from '../support/temp-db';
+import { createTestUser } from '../support/users';
 
 let db: Db;
 let cleanup: () => void;
@@ -24,8 +25,8 @@ beforeEach(() => {
   ({ db, cleanup } = tempDb());
   team = createTeam(db, { name: 'T', slug: 't' }).id;
   other = createTeam(db, { name: 'O', slug: 'o' }).id;
-  designer = createUser(db, { email: 'd@example.test', name: 'Dana Designer', password: 'long enough' }).id;
-  reviewer = createUser(db, { email: 'r@example.test', name: 'Remy Reviewer', password: 'long enough' }).id;
+  designer = createTestUser(db, { email: 'd@example.test', name: 'Dana Designer', password: 'long enough' }).id;
+  reviewer = createTestUser(db, { email: 'r@example.test', name: 'Remy Reviewer', password: 'long enough' }).id;
   db.insert(memberships).values({ userId: designer, teamId: team, role: 'designer' }).run();
   db.insert(memberships).values({ userId: reviewer, teamId: team, role: 'reviewer' }).run();
   // 250 designs in the team, 5 in another team; updated_at spread so the order is known.

@@ -17,6 +17,7 @@ import {
 } from '@/db/queries';
 import { memberships } from '@/db/schema';
 import { resolveDatabasePath, type OpenDb } from '@/db/connection';
+import { createTestUser } from '../support/users';
 import { tempDb } from '../support/temp-db';
 import { sampleRevisionBody } from '../support/sample-revision';
 
@@ -32,7 +33,7 @@ beforeEach(() => {
   teamA = createTeam(db, { name: 'A', slug: 'a' }).id;
   teamB = createTeam(db, { name: 'B', slug: 'b' }).id;
   alice = createUser(db, { email: 'Alice@Example.test', name: 'Alice', password: 'correct horse' }).id;
-  bob = createUser(db, { email: 'bob@example.test', name: 'Bob', password: 'battery staple' }).id;
+  bob = createTestUser(db, { email: 'bob@example.test', name: 'Bob', password: 'battery staple' }).id;
   db.insert(memberships).values({ userId: alice, teamId: teamA, role: 'admin' }).run();
   db.insert(memberships).values({ userId: bob, teamId: teamB, role: 'designer' }).run();
 });

@@ -1,4 +1,4 @@
-import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
   countDesignsWaitingFor,
   getSignoffState,
@@ -19,21 +19,23 @@ import type { Db } from '@/db/connection';
 import { summarizeRange } from '@/lib/range-summary';
 import { tempDb } from '../support/temp-db';
 
+// One seeded database for the file: the tests only read it, and seeding it again is the idempotency check.
 let db: Db;
 let cleanup: () => void;
-beforeEach(() => ({ db, cleanup } = tempDb()));
-afterEach(() => cleanup());
+beforeAll(() => {
+  ({ db, cleanup } = tempDb());
+  seedDemo(db);
+}, 60_000);
+afterAll(() => cleanup());
 
 describe('demo seed', () => {
   it('creates four accounts, one per role, that sign in with the demo password', () => {
-    seedDemo(db);
     for (const u of DEMO_USERS) expect(verifyCredentials(db, u.email, DEMO_PASSWORD)).not.toBeNull();
     const teamId = listTeamsForUser(db, getUserByEmail(db, 'admin@demo.test')!.id)[0].teamId;
     expect(listTeamMembers(db, teamId).map((m) => m.role).sort()).toEqual(['admin', 'designer', 'reviewer', 'viewer']);
   });
 
   it('creates a buck, a boost and a buck-boost, each with a first revision with sensible margins', () => {
-    seedDemo(db);
     const teamId = listTeamsForUser(db, getUserByEmail(db, 'admin@demo.test')!.id)[0].teamId;
     const designs = listDesigns(db, teamId).filter((d) => !DEMO_STORIES.some((s) => s.name === d.name));
     expect(designs.map((d) => d.topology).sort()).toEqual(['boost', 'buck', 'buck-boost']);
@@ -48,7 +50,6 @@ describe('demo seed', () => {
   });
 
   it('is idempotent', () => {
-    seedDemo(db);
     const mailCount = listMail(db, 1000).length;
     seedDemo(db);
     const teamId = listTeamsForUser(db, getUserByEmail(db, 'admin@demo.test')!.id)[0].teamId;
@@ -63,7 +64,6 @@ describe('demo seed', () => {
 
 describe('demo review story', () => {
   it('takes a design through three revisions: thin margin sent back with remarks, sent back again, approved with bench data', () => {
-    seedDemo(db);
     const teamId = listTeamsForUser(db, getUserByEmail(db, 'admin@demo.test')!.id)[0].teamId;
     const story = listDesigns(db, teamId).find((d) => d.name === DEMO_STORIES[0].name)!;
     const revs = listRevisions(db, story.id);
@@ -83,7 +83,6 @@ describe('demo review story', () => {
   });
 
   it('stores the mail each step sends: requests to the reviewer, decisions and remarks to the designer', () => {
-    seedDemo(db);
     const name = DEMO_STORIES[0].name;
     const toReviewer = listMailTo(db, 'reviewer@demo.test', 100).map((m) => m.subject);
     const toDesigner = listMailTo(db, 'designer@demo.test', 100).map((m) => m.subject);
@@ -95,7 +94,6 @@ describe('demo review story', () => {
   });
 
   it('holds a current-mode design with its operating range: r1 sent back for a corner at subharmonic risk, r2 clear and approved', () => {
-    seedDemo(db);
     const teamId = listTeamsForUser(db, getUserByEmail(db, 'admin@demo.test')!.id)[0].teamId;
     const story = DEMO_STORIES.find((s) => typeof s.sample !== 'string' && s.sample.modulator.mode === 'peak-current')!;
     const design = listDesigns(db, teamId).find((d) => d.name === story.name)!;
@@ -115,7 +113,6 @@ describe('demo review story', () => {
   });
 
   it('leaves one design waiting for the demo reviewer', () => {
-    seedDemo(db);
     const teamId = listTeamsForUser(db, getUserByEmail(db, 'admin@demo.test')!.id)[0].teamId;
     const reviewer = getUserByEmail(db, 'reviewer@demo.test')!;
     expect(countDesignsWaitingFor(db, teamId, reviewer.id)).toBe(1);

@@ -4,7 +4,6 @@ import {
   createDesign,
   createRevision,
   createTeam,
-  createUser,
   decideSignoff,
   getSignoffState,
   listAudit,
@@ -20,6 +19,7 @@ import {
 import type { Db } from '@/db/connection';
 import { memberships } from '@/db/schema';
 import { tempDb } from '../support/temp-db';
+import { createTestUser } from '../support/users';
 import { sampleRevisionBody } from '../support/sample-revision';
 
 let db: Db;
@@ -32,10 +32,10 @@ beforeEach(() => {
   ({ db, cleanup } = tempDb());
   team = createTeam(db, { name: 'T', slug: 't' }).id;
   for (const role of ['designer', 'reviewer', 'admin'] as const) {
-    u[role] = createUser(db, { email: `${role}@example.test`, name: role, password: 'long enough' }).id;
+    u[role] = createTestUser(db, { email: `${role}@example.test`, name: role, password: 'long enough' }).id;
     db.insert(memberships).values({ userId: u[role], teamId: team, role }).run();
   }
-  u.reviewer2 = createUser(db, { email: 'reviewer2@example.test', name: 'reviewer2', password: 'long enough' }).id;
+  u.reviewer2 = createTestUser(db, { email: 'reviewer2@example.test', name: 'reviewer2', password: 'long enough' }).id;
   db.insert(memberships).values({ userId: u.reviewer2, teamId: team, role: 'reviewer' }).run();
   const design = createDesign(db, u.designer, team, { name: 'D', topology: 'buck' });
   const rev = createRevision(db, { teamId: team, designId: design.id, baseNumber: null, ...sampleRevisionBody(), authorId: u.designer, note: '' });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import Complex from 'complex.js';
-import { evalPoly, evalPolyJw, polyFromRealRoots, polyMul, polyRoots, polyTrim } from '@/lib/engine/complex-poly';
+import { evalPoly, evalPolyJw, polyFromRealRoots, polyMul, polyRoots, polySections, polyTrim } from '@/lib/engine/complex-poly';
 import { expectRel } from './helpers';
 
 const sortRoots = (r: Complex[]) => [...r].sort((a, b) => a.re - b.re || a.im - b.im);
@@ -35,10 +35,51 @@ describe('polynomials (ascending coefficients)', () => {
     expect(Math.abs(c[0].im)).toBeCloseTo(2, 12);
   });
 
-  it('finds roots at the origin and of cubics (Durand–Kerner)', () => {
+  it('finds roots at the origin and of cubics (Aberth–Ehrlich)', () => {
     const p = polyMul([0, 1], polyFromRealRoots([-3, 5, -7e3]));
     const r = sortRoots(polyRoots(p));
     expect(r.map((x) => Math.round(x.re * 1e6) / 1e6)).toEqual([-7000, -3, 0, 5]);
     r.forEach((x) => expect(Math.abs(x.im)).toBeLessThan(1e-9));
+  });
+
+  it('finds widely spread real and complex roots of a quintic to full precision', () => {
+    // Poles as a current-mode plant and a finite op-amp give them: 20 Hz … 10 MHz, Q 0.7 and 3 pairs.
+    const w = (hz: number) => 2 * Math.PI * hz;
+    const pair = (hz: number, q: number) => [1, 1 / (q * w(hz)), 1 / w(hz) ** 2];
+    const p = [pair(250e3, 0.7), pair(3e6, 3), [1, 1 / w(20)]].reduce((a, b) => polyMul(a, b), [2.5]);
+    const r = sortRoots(polyRoots(p));
+    expect(r).toHaveLength(5);
+    const mags = r.map((x) => x.abs() / (2 * Math.PI)).sort((a, b) => a - b);
+    [20, 250e3, 250e3, 3e6, 3e6].forEach((hz, k) => expectRel(mags[k], hz, 1e-12));
+    for (const x of r) expect(evalPoly(p, x).abs() / evalPoly(p.map(Math.abs), new Complex(x.abs(), 0)).abs()).toBeLessThan(1e-13);
+    // Conjugate pairs come out exactly conjugate.
+    const upper = r.filter((x) => x.im > 0);
+    for (const x of upper) expect(r.some((y) => y.re === x.re && y.im === -x.im)).toBe(true);
+  });
+
+  it('keeps a double real root real and the degree whole', () => {
+    const r = polyRoots(polyFromRealRoots([-1e4, -1e4, -3e2]));
+    expect(r).toHaveLength(3);
+    r.forEach((x) => expect(x.im).toBe(0));
+    expect(r.map((x) => x.re).sort((a, b) => a - b).map((x) => Math.round(x))).toEqual([-10000, -10000, -300]);
+  });
+});
+
+describe('polySections: a polynomial as sections of degree ≤ 2 (from its roots)', () => {
+  const product = (sections: number[][]) => sections.reduce((a, b) => polyMul(a, b), [1]);
+
+  it.each([
+    ['a cubic with a real root and a complex pair', [[1, 1e-4], [1, 2e-7, 4e-13]]],
+    ['a quartic with two complex pairs far apart', [[1, 3e-8, 1e-14], [1, 2e-5, 5e-10]]],
+    ['a quintic with an RHP zero', [[1, -2e-6], [1, 1e-7], [1, 4e-9, 1e-15], [1, 1e-3]]],
+  ])('%s: the sections multiply back to p/p(0)', (_name, sections) => {
+    const p = product(sections).map((c) => c * 7.5);
+    const got = polySections(p);
+    expect(got.reduce((n, s) => n + s.length - 1, 0)).toBe(p.length - 1);
+    const back = product(got);
+    back.forEach((c, k) => expectRel(c, p[k] / p[0], 1e-9));
+    for (const s of got) expect(s[0]).toBe(1);
+    // Only complex pairs become quadratic sections.
+    for (const s of got) if (s.length === 3) expect(s[1] * s[1] - 4 * s[2]).toBeLessThan(0);
   });
 });

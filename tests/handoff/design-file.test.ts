@@ -1,5 +1,5 @@
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { createDesign, createRevision, createTeam, createUser, getDesign, getRevision, importDesign, updateDesign } from '@/db/queries';
+import { createDesign, createRevision, createTeam, getDesign, getRevision, importDesign, updateDesign } from '@/db/queries';
 import { memberships } from '@/db/schema';
 import type { Db } from '@/db/connection';
 import { analyze } from '@/lib/engine/analyze';
@@ -10,6 +10,7 @@ import { buildExport } from '@/lib/handoff/exports';
 import { summarizeAnalysis } from '@/lib/revision-summary';
 import { parseAnalyzeRequest } from '@/lib/validation/analyze';
 import { tempDb } from '../support/temp-db';
+import { createTestUser } from '../support/users';
 
 let db: Db;
 let cleanup: () => void;
@@ -19,7 +20,7 @@ let user: number;
 beforeEach(() => {
   ({ db, cleanup } = tempDb());
   team = createTeam(db, { name: 'Bench team', slug: 'bench' }).id;
-  user = createUser(db, { email: 'd@example.test', name: 'Dee', password: 'a long password' }).id;
+  user = createTestUser(db, { email: 'd@example.test', name: 'Dee', password: 'a long password' }).id;
   db.insert(memberships).values({ userId: user, teamId: team, role: 'designer' }).run();
 });
 afterEach(() => cleanup());

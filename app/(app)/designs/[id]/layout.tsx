@@ -3,7 +3,7 @@ import { notFound } from 'next/navigation';
 import { getDb } from '@/db/client';
 import { getDesign, getLatestRevision, hasSignoffTrail } from '@/db/queries';
 import { can, requireUser } from '@/lib/auth';
-import { topologyLabel } from '@/lib/topology';
+import { topologyLabel } from '@/lib/catalog/topologies';
 import { ArchiveControl } from '@/components/designs/archive-control';
 import { DesignTabs } from '@/components/designs/design-tabs';
 
