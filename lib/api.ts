@@ -6,6 +6,7 @@ import { RevisionConflictError } from '@/db/queries/revisions';
 import { MembershipError } from '@/db/queries/users';
 import { InvitationError } from '@/db/queries/invitations';
 import { HashBusyError } from './password-hash';
+import { SwitchingBusyError } from './switching-busy';
 import type { Role } from '@/db/schema';
 import { zodIssues } from '@/lib/validation/analyze';
 import { getCurrentUser, type CurrentUser } from './auth';
@@ -55,6 +56,8 @@ export function toErrorResponse(err: unknown) {
   if (err instanceof MembershipError) return jsonError(422, err.message, [{ path: err.field, message: err.message }]);
   if (err instanceof InvitationError) return jsonError(err.status, err.message, [{ path: err.field, message: err.message }]);
   if (err instanceof HashBusyError) return NextResponse.json({ error: err.message }, { status: 429, headers: { 'retry-after': '5' } });
+  if (err instanceof SwitchingBusyError)
+    return NextResponse.json({ error: err.message }, { status: 503, headers: { 'retry-after': String(err.retryAfterSeconds) } });
   console.error(err);
   return jsonError(500, 'Something went wrong on the server; nothing was changed');
 }

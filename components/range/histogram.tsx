@@ -48,5 +48,8 @@ export function Histogram({
       },
     };
   }, [data, percentiles, target, scale, unit, title]);
-  return <PlotlyChart data={plot.data} layout={plot.layout} data-testid={testId} aria-label={`Histogram of ${title}`} />;
+  // The chart's box takes the plot's height: PlotlyChart draws into an absolutely placed layer,
+  // so a box without a height is 0 px tall (hidden to assistive tools and tests, overlapped by
+  // what follows).
+  return <PlotlyChart className="h-[150px]" data={plot.data} layout={plot.layout} data-testid={testId} aria-label={`Histogram of ${title}`} />;
 }

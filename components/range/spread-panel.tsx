@@ -4,7 +4,7 @@ import { useForm } from 'react-hook-form';
 import type { SpreadDistribution, SpreadResult } from '@/lib/engine/spread';
 import type { MarginTargets } from '@/lib/engine/range';
 import { Histogram } from './histogram';
-import type { SpreadState } from './use-spread';
+import { useSpreadProgress, type SpreadState } from './use-spread';
 
 interface SpreadForm {
   samples: string;
@@ -41,6 +41,7 @@ export function SpreadPanel({
     formState: { errors },
   } = useForm<SpreadForm>({ defaultValues: { samples: '10000', seed: '1', distribution: 'uniform' } });
   const running = state.status === 'running';
+  const done = useSpreadProgress(state.status === 'running' ? state.progress : null);
   const submit = handleSubmit((v) => onRun({ samples: Number(v.samples), seed: Number(v.seed), distribution: v.distribution }));
   const result: SpreadResult | null = state.status === 'done' ? state.result : null;
 
@@ -80,12 +81,14 @@ export function SpreadPanel({
             <input type="radio" value="normal" {...register('distribution')} /> normal (tol = 3σ)
           </label>
         </fieldset>
+        {/* Keys keep these two apart: were one <button> reused, the click on Cancel would end with
+            the element already turned into the submit button, and the form would start a new run. */}
         {running ? (
-          <button type="button" className="btn-secondary" onClick={onCancel} data-testid="spread-cancel">
+          <button key="cancel" type="button" className="btn-secondary" onClick={onCancel} data-testid="spread-cancel">
             Cancel
           </button>
         ) : (
-          <button type="submit" className="btn-primary" data-testid="spread-run">
+          <button key="run" type="submit" className="btn-primary" data-testid="spread-run">
             Run spread
           </button>
         )}
@@ -96,18 +99,18 @@ export function SpreadPanel({
         </p>
       )}
       {state.status === 'running' && (
-        <div role="progressbar" aria-label="Spread progress" aria-valuemin={0} aria-valuemax={state.total} aria-valuenow={state.done} data-testid="spread-progress">
+        <div role="progressbar" aria-label="Spread progress" aria-valuemin={0} aria-valuemax={state.total} aria-valuenow={done} data-testid="spread-progress">
           <div className="h-2 overflow-hidden rounded bg-slate-200">
-            <div className="h-full bg-indigo-600 transition-[width]" style={{ width: `${(100 * state.done) / state.total}%` }} />
+            <div className="h-full bg-indigo-600 transition-[width]" style={{ width: `${(100 * done) / state.total}%` }} />
           </div>
           <p className="mt-1 text-xs text-slate-600">
-            {state.done.toLocaleString('en-US')} of {state.total.toLocaleString('en-US')} samples
+            {done.toLocaleString('en-US')} of {state.total.toLocaleString('en-US')} samples
           </p>
         </div>
       )}
       {state.status === 'cancelled' && (
         <p className="text-xs text-slate-600" data-testid="spread-cancelled">
-          Cancelled after {state.done.toLocaleString('en-US')} of {state.total.toLocaleString('en-US')} samples; nothing kept.
+          Spread cancelled after {state.done.toLocaleString('en-US')} of {state.total.toLocaleString('en-US')} samples; nothing kept. Run it again to see the histograms.
         </p>
       )}
       {state.status === 'error' && (

@@ -1,13 +1,46 @@
 'use client';
 
-import { useCallback, useEffect, useRef, useState } from 'react';
+import { useCallback, useEffect, useRef, useState, useSyncExternalStore } from 'react';
 import type { OperatingRange } from '@/lib/engine/range';
 import type { SpreadOptions, SpreadResult } from '@/lib/engine/spread';
 import type { AnalyzeRequest } from '@/lib/engine/types';
 
+/**
+ * Samples done so far, as a small store of its own: progress arrives every 100 ms, and only
+ * the progress bar should re-render for it, not the Tune screen that holds the spread's state
+ * (a whole-screen render per message kept the page too busy to take a click on Cancel).
+ */
+export interface SpreadProgress {
+  get: () => number;
+  subscribe: (onChange: () => void) => () => void;
+}
+
+const createProgress = () => {
+  let done = 0;
+  const listeners = new Set<() => void>();
+  const store: SpreadProgress & { set: (n: number) => void } = {
+    get: () => done,
+    subscribe: (onChange) => {
+      listeners.add(onChange);
+      return () => listeners.delete(onChange);
+    },
+    set: (n) => {
+      done = n;
+      for (const l of listeners) l();
+    },
+  };
+  return store;
+};
+
+/** The samples done of a running spread, re-rendering only the component that reads it. */
+export function useSpreadProgress(progress: SpreadProgress | null): number {
+  const subscribe = useCallback((cb: () => void) => (progress ? progress.subscribe(cb) : () => {}), [progress]);
+  return useSyncExternalStore(subscribe, () => progress?.get() ?? 0, () => 0);
+}
+
 export type SpreadState =
   | { status: 'idle' }
-  | { status: 'running'; done: number; total: number; startedAt: number }
+  | { status: 'running'; total: number; startedAt: number; progress: SpreadProgress }
   | { status: 'done'; result: SpreadResult; elapsedMs: number }
   | { status: 'cancelled'; done: number; total: number }
   | { status: 'error'; message: string };
@@ -21,6 +54,7 @@ type WorkerMessage =
 export function useSpread() {
   const [state, setState] = useState<SpreadState>({ status: 'idle' });
   const worker = useRef<Worker | null>(null);
+  const progress = useRef<ReturnType<typeof createProgress> | null>(null);
 
   const stop = () => {
     worker.current?.terminate();
@@ -31,11 +65,13 @@ export function useSpread() {
     stop();
     const w = new Worker(new URL('./spread.worker.ts', import.meta.url), { type: 'module' });
     worker.current = w;
-    setState({ status: 'running', done: 0, total: options.samples, startedAt: performance.now() });
+    const p = createProgress();
+    progress.current = p;
+    setState({ status: 'running', total: options.samples, startedAt: performance.now(), progress: p });
     w.onmessage = (e: MessageEvent<WorkerMessage>) => {
       if (worker.current !== w) return;
       const m = e.data;
-      if (m.type === 'progress') setState((s) => (s.status === 'running' ? { ...s, done: m.done, total: m.total } : s));
+      if (m.type === 'progress') p.set(m.done);
       else {
         stop();
         setState(m.type === 'done' ? { status: 'done', result: m.result, elapsedMs: m.elapsedMs } : { status: 'error', message: m.message });
@@ -51,7 +87,7 @@ export function useSpread() {
 
   const cancel = useCallback(() => {
     stop();
-    setState((s) => (s.status === 'running' ? { status: 'cancelled', done: s.done, total: s.total } : s));
+    setState((s) => (s.status === 'running' ? { status: 'cancelled', done: s.progress.get(), total: s.total } : s));
   }, []);
 
   useEffect(() => stop, []);

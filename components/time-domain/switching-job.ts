@@ -26,6 +26,8 @@ export class SwitchingJobError extends Error {
 export function useSwitchingJob() {
   const worker = useRef<Worker | null>(null);
   const [progress, setProgress] = useState<{ fraction: number; message: string } | null>(null);
+  /** Where the last run computed: in the Web Worker, or on the page when no worker answered. */
+  const [via, setVia] = useState<'worker' | 'page' | null>(null);
   const stop = useCallback(() => {
     worker.current?.terminate();
     worker.current = null;
@@ -36,6 +38,7 @@ export function useSwitchingJob() {
       new Promise<SwitchingOutcome>((resolve, reject) => {
         stop();
         setProgress({ fraction: 0, message: 'starting' });
+        setVia(null);
         let heard = false;
         let settled = false;
         const finish = (f: () => void) => {
@@ -60,6 +63,7 @@ export function useSwitchingJob() {
         const fallBack = () => {
           if (settled) return;
           stop();
+          setVia('page');
           setProgress({ fraction: 0, message: 'running on this page' });
           runHere();
         };
@@ -73,6 +77,7 @@ export function useSwitchingJob() {
         }
         worker.current = w;
         w.onmessage = (e: MessageEvent<WorkerMessage>) => {
+          if (!heard) setVia('worker');
           heard = true;
           const m = e.data;
           if (m.type === 'progress') setProgress({ fraction: m.fraction, message: m.message });
@@ -88,5 +93,5 @@ export function useSwitchingJob() {
     setProgress(null);
     mutation.reset();
   };
-  return { ...mutation, progress, cancel };
+  return { ...mutation, progress, via, cancel };
 }

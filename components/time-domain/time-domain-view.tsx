@@ -89,7 +89,7 @@ export function TimeDomainView({ input, bode, readOnly, onStepChange }: { input:
             )}
           </div>
           {job.progress && (
-            <div data-testid="switching-progress" role="progressbar" aria-valuemin={0} aria-valuemax={100} aria-valuenow={Math.round(job.progress.fraction * 100)}>
+            <div data-testid="switching-progress" data-computed-in={job.via ?? 'starting'} role="progressbar" aria-valuemin={0} aria-valuemax={100} aria-valuenow={Math.round(job.progress.fraction * 100)}>
               <div className="h-2 w-full overflow-hidden rounded bg-slate-200">
                 <div className="h-2 bg-indigo-600 transition-all" style={{ width: `${Math.max(3, job.progress.fraction * 100)}%` }} />
               </div>
@@ -105,7 +105,7 @@ export function TimeDomainView({ input, bode, readOnly, onStepChange }: { input:
             <>
               <ModelCheckPlot bode={bode} points={modelCheck.points} />
               <ModelCheckTable points={modelCheck.points} />
-              <p className="text-xs text-slate-500" data-testid="model-check-summary">
+              <p className="text-xs text-slate-500" data-testid="model-check-summary" data-computed-in={job.via ?? undefined}>
                 {modelCheck.cycleCount} switching cycles. Steady state: output ripple {formatSi(modelCheck.steadyState.voutRipplePp, 'V')} p-p, inductor ripple {formatSi(modelCheck.steadyState.inductorRipplePp, 'A')} p-p, duty {(modelCheck.steadyState.duty * 100).toFixed(2)} %
                 {modelCheck.steadyState.dcm ? ', with DCM intervals' : ''}. The averaged model is expected to hold well below fsw/10 and to depart toward fsw/2; switching ripple that reaches the comparator through the compensator (e.g. ESR steps of a boost's output) adds a feedback of the inductor current the averaged model lacks, which shows as errors even at low frequency.
               </p>

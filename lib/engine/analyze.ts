@@ -284,6 +284,14 @@ export const snapCompensator = (comp: CompensatorInput, parts: PartsOptions): Co
   };
 };
 
+/**
+ * The compensator that will be built: every part at its standard value in the request's series
+ * (default E96 resistors, E12 capacitors), as analyze() reports it under `parts.snapped` and
+ * its snappedMargins. The tolerance spread samples around these values.
+ */
+export const standardValueCompensator = (comp: CompensatorInput, options?: Partial<PartsOptions>): CompensatorInput =>
+  snapCompensator(comp, { ...DEFAULT_PARTS, ...options });
+
 const sameParts = (a: CompensatorInput, b: CompensatorInput) =>
   a.type === b.type && a.r1 === b.r1 && a.r2 === b.r2 && a.r3 === b.r3 && a.c1 === b.c1 && a.c2 === b.c2 && a.c3 === b.c3 && a.rb === b.rb;
 

@@ -1,6 +1,9 @@
 /**
  * Tolerance spread: a Monte Carlo over the part tolerances of a design at its nominal line
- * and load. Each sample draws L, C, the ESR and every compensator part, builds the loop and
+ * and load. The compensator parts are drawn around the values that will be built, the
+ * standard values of the request's series (analyze()'s `parts.snapped`), not the ideal ones
+ * the handles placed: a tolerance is the spread of a real part around its marked value.
+ * Each sample draws L, C, the ESR and every compensator part, builds the loop and
  * keeps its margins only (complex samples on the sweep grid, crossings refined on the
  * analytic loop, as analyze() does for snapped parts) — no Bode traces per sample.
  *
@@ -12,7 +15,7 @@
  * Every sample draws all nine values in a fixed order, so a seed gives the same samples
  * whatever parts the compensator type uses.
  */
-import { loopMargins, loopPlant, loopPlantTransfer } from './analyze';
+import { loopMargins, loopPlant, loopPlantTransfer, standardValueCompensator } from './analyze';
 import { dividerRb } from './compensator';
 import { createRandom, type Random } from './random';
 import { DEFAULT_TARGETS, partsTolerances, rangeIssues, type MarginTargets, type OperatingRange } from './range';
@@ -115,9 +118,10 @@ export const runSpread = (
   const n = options.samples;
   const cv = withLossDefaults(request.converter);
   const tol = partsTolerances(range, request.parts);
-  // A finite op-amp's inverting input is loaded by the divider's Rb (as in analyze()).
-  const given = request.compensator;
-  const comp = given.opamp && given.amplifier !== 'transconductance' && given.rb === undefined ? { ...given, rb: dividerRb(given.r1, request.feedback.vref, cv.vout) } : given;
+  // The parts as built (standard values); a finite op-amp's inverting input is loaded by the
+  // divider's Rb (as in analyze()).
+  const built = standardValueCompensator(request.compensator, request.parts);
+  const comp = built.opamp && built.amplifier !== 'transconductance' && built.rb === undefined ? { ...built, rb: dividerRb(built.r1, request.feedback.vref, cv.vout) } : built;
   const { plantTransfer, grid } = loopPlant(request);
   const nominal = loopMargins(plantTransfer, grid, comp);
 

@@ -21,6 +21,7 @@ import { createSwitchingSim, type CycleRecord, type Sample, type SwitchControl, 
 import { withLossDefaults } from './steady-state';
 import { wrapDeg } from './transfer';
 import { EngineInputError, type AnalyzeRequest, type ConverterInput } from './types';
+import { inputByPath, inputLabel } from '@/lib/catalog/stage-inputs';
 
 /** Most switching cycles one request may simulate (a second or two of work on one core). */
 export const MAX_SWITCHING_CYCLES = 10_000;
@@ -55,8 +56,12 @@ export const switchControlOf = (request: AnalyzeRequest): SwitchControl => {
   if (m.mode === 'peak-current') {
     const ri: unknown = m.ri;
     const se: unknown = m.se;
-    if (typeof ri !== 'number' || !(ri > 0)) throw new EngineInputError([{ path: 'modulator.ri', message: 'current-sense gain Ri must be above 0 V/A' }]);
-    if (typeof se !== 'number' || !(se >= 0)) throw new EngineInputError([{ path: 'modulator.se', message: 'slope compensation Se must be 0 V/s or more' }]);
+    const name = (path: string) => {
+      const spec = inputByPath(path);
+      return spec ? `${inputLabel(spec)} (${spec.unit})` : path;
+    };
+    if (typeof ri !== 'number' || !(ri > 0)) throw new EngineInputError([{ path: 'modulator.ri', message: `${name('modulator.ri')} must be above 0` }]);
+    if (typeof se !== 'number' || !(se >= 0)) throw new EngineInputError([{ path: 'modulator.se', message: `${name('modulator.se')} must be 0 or more` }]);
     return { mode: 'peak-current', ri, se };
   }
   return { mode: 'voltage', vramp: m.vramp };

@@ -9,18 +9,25 @@ import { EngineInputError, type AnalyzeRequest, type CompensatorInput, type Fiel
 
 const num = (v: unknown): v is number => typeof v === 'number' && Number.isFinite(v);
 
-const requirePositive = (issues: FieldIssue[], path: string, v: unknown, what: string) => {
-  if (!num(v)) issues.push({ path, message: `${what} is required and must be a finite number` });
-  else if (v <= 0) issues.push({ path, message: `${what} must be above 0` });
+/**
+ * An input's name for a message. Labels are built only when a check fails: validation runs on
+ * every analysis (the drag path included), and valid input is the usual case.
+ */
+type Name = string | (() => string);
+const named = (what: Name) => (typeof what === 'string' ? what : what());
+
+const requirePositive = (issues: FieldIssue[], path: string, v: unknown, what: Name) => {
+  if (!num(v)) issues.push({ path, message: `${named(what)} is required and must be a finite number` });
+  else if (v <= 0) issues.push({ path, message: `${named(what)} must be above 0` });
 };
 
-const requireNonNegative = (issues: FieldIssue[], path: string, v: unknown, what: string) => {
-  if (!num(v)) issues.push({ path, message: `${what} must be a finite number` });
-  else if (v < 0) issues.push({ path, message: `${what} cannot be negative` });
+const requireNonNegative = (issues: FieldIssue[], path: string, v: unknown, what: Name) => {
+  if (!num(v)) issues.push({ path, message: `${named(what)} must be a finite number` });
+  else if (v < 0) issues.push({ path, message: `${named(what)} cannot be negative` });
 };
 
 /** One number checked against its catalogue bound, named by the catalogue's label. */
-const requireBound = (issues: FieldIssue[], path: string, v: unknown, bound: 'positive' | 'nonNegative', what: string) =>
+const requireBound = (issues: FieldIssue[], path: string, v: unknown, bound: 'positive' | 'nonNegative', what: Name) =>
   (bound === 'positive' ? requirePositive : requireNonNegative)(issues, path, v, what);
 
 /** "R2 (a Type II part)" — the part's schematic name from the catalogue. */
@@ -41,9 +48,9 @@ export const compensatorIssues = (c: CompensatorInput, prefix = 'compensator'): 
   for (const key of entry.parts) {
     const v: unknown = c[key];
     if (key === 'c2') {
-      if (v !== undefined) requireNonNegative(issues, `${prefix}.c2`, v, partLabel('c2', '0 = absent'));
+      if (v !== undefined) requireNonNegative(issues, `${prefix}.c2`, v, () => partLabel('c2', '0 = absent'));
     } else {
-      requirePositive(issues, `${prefix}.${key}`, v, partLabel(key, key === 'r1' || key === 'c1' ? undefined : `a ${entry.label} part`));
+      requirePositive(issues, `${prefix}.${key}`, v, () => partLabel(key, key === 'r1' || key === 'c1' ? undefined : `a ${entry.label} part`));
     }
   }
   if (c.amplifier !== undefined && c.amplifier !== 'opamp' && c.amplifier !== 'transconductance') {
@@ -53,14 +60,14 @@ export const compensatorIssues = (c: CompensatorInput, prefix = 'compensator'): 
     if (c.type === 'type1') {
       issues.push({ path: `${prefix}.amplifier`, message: `a transconductance amplifier is modelled for ${COMPENSATORS.type2.label} and ${COMPENSATORS.type3.label}; choose one of them or the op-amp` });
     }
-    requirePositive(issues, `${prefix}.gm`, c.gm, `${amplifierInputLabel('gm')} (${AMPLIFIER_INPUTS.gm.unit})`);
-    requirePositive(issues, `${prefix}.rb`, c.rb, partLabel('rb', `${PARTS.rb.role}; part of the loop with a transconductance amplifier`));
-    if (c.ro !== undefined) requirePositive(issues, `${prefix}.ro`, c.ro, `${amplifierInputLabel('ro')} (omit for ${AMPLIFIER_INPUTS.ro.absentMeans})`);
+    requirePositive(issues, `${prefix}.gm`, c.gm, () => `${amplifierInputLabel('gm')} (${AMPLIFIER_INPUTS.gm.unit})`);
+    requirePositive(issues, `${prefix}.rb`, c.rb, () => partLabel('rb', `${PARTS.rb.role}; part of the loop with a transconductance amplifier`));
+    if (c.ro !== undefined) requirePositive(issues, `${prefix}.ro`, c.ro, () => `${amplifierInputLabel('ro')} (omit for ${AMPLIFIER_INPUTS.ro.absentMeans})`);
     if (c.opamp !== undefined) issues.push({ path: `${prefix}.opamp`, message: 'an op-amp model does not apply to a transconductance amplifier; remove it' });
   }
   if (c.opamp !== undefined && c.amplifier !== 'transconductance') {
-    requirePositive(issues, `${prefix}.opamp.a0`, c.opamp?.a0, `${amplifierInputLabel('a0')} (${AMPLIFIER_INPUTS.a0.unit})`);
-    requirePositive(issues, `${prefix}.opamp.gbw`, c.opamp?.gbw, `${amplifierInputLabel('gbw')} (${AMPLIFIER_INPUTS.gbw.unit})`);
+    requirePositive(issues, `${prefix}.opamp.a0`, c.opamp?.a0, () => `${amplifierInputLabel('a0')} (${AMPLIFIER_INPUTS.a0.unit})`);
+    requirePositive(issues, `${prefix}.opamp.gbw`, c.opamp?.gbw, () => `${amplifierInputLabel('gbw')} (${AMPLIFIER_INPUTS.gbw.unit})`);
   }
   return issues;
 };
@@ -91,7 +98,7 @@ export const stageIssues = (req: StageRequest): FieldIssue[] => {
   for (const spec of STAGE_INPUTS) {
     if (spec.section === 'feedback' && !req.feedback) continue;
     if (spec.section === 'modulator' && (!knownMode || !inputApplies(spec, { modulator: { mode } }))) continue;
-    requireBound(issues, `${spec.section}.${spec.field}`, stageValue(req, spec), spec.bound, inputLabel(spec));
+    requireBound(issues, `${spec.section}.${spec.field}`, stageValue(req, spec), spec.bound, () => inputLabel(spec));
   }
   if (!knownMode) issues.push({ path: 'modulator.mode', message: 'mode must be "voltage" or "peak-current"' });
   if (num(c.vin) && num(c.vout) && c.vin > 0 && c.vout > 0) {

@@ -1,7 +1,8 @@
 /**
  * The operating range in Chromium: Tune draws the corners as a band, lists them with the worst
  * row highlighted, shows nominal and worst side by side and raises the worst-case checks; the
- * spread runs in a Web Worker and shows histograms;
+ * spread runs in a Web Worker with a progress bar, can be cancelled (the worker ends, the bar
+ * goes, a note says so), and shows histograms;
  * an edited range is saved with the revision; Compare states both revisions' worst cases.
  * Screenshots go to $SCREENSHOT_DIR.
  */
@@ -39,11 +40,30 @@ describe.runIf(run)('Tune across the operating range', () => {
     await expect.poll(() => page.getByTestId('worst-where').textContent()).toMatch(/Worst PM at corner \d+: /);
     expect(await page.locator('[data-check="worst-phase-margin"]').count()).toBe(1);
 
+    // Cancel a long run: the worker is ended, the bar goes, a note says so, no result comes.
+    await page.getByLabel('Samples').selectOption('100000');
+    const workersBefore = page.workers().length;
+    await page.getByTestId('spread-run').click();
+    await page.getByTestId('spread-progress').waitFor();
+    await expect.poll(() => page.workers().length).toBe(workersBefore + 1);
+    await expect.poll(async () => Number(await page.getByTestId('spread-progress').getAttribute('aria-valuenow')), { timeout: 30_000 }).toBeGreaterThan(0);
+    await page.getByTestId('spread-cancel').click();
+    await page.getByTestId('spread-cancelled').waitFor();
+    expect(await page.getByTestId('spread-cancelled').textContent()).toMatch(/Spread cancelled after [\d,]+ of 100,000 samples/);
+    expect(await page.getByTestId('spread-progress').count()).toBe(0);
+    await expect.poll(() => page.workers().length).toBe(workersBefore);
+    await page.waitForTimeout(1500);
+    expect(await page.getByTestId('spread-result').count()).toBe(0);
+    await page.getByTestId('spread-run').waitFor();
+
     // Run 10,000 samples: a progress bar while the worker runs, then the histograms.
     await page.getByLabel('Samples').selectOption('10000');
     await page.getByTestId('spread-run').click();
     await page.getByTestId('spread-result').waitFor({ timeout: 60_000 });
-    await page.getByTestId('hist-pm').waitFor({ state: 'attached' });
+    await page.getByTestId('hist-pm').waitFor({ state: 'visible' });
+    expect(await page.getByTestId('spread-cancelled').count()).toBe(0);
+    const box = await page.getByTestId('hist-pm').boundingBox();
+    expect(box?.height).toBeGreaterThan(100);
     await expect.poll(() => page.getByTestId('spread-share').textContent()).toMatch(/% of 10,000 simulated builds meet/);
     await page.getByTestId('corners-family').check();
     await screenshot(page, 'range-tune');

@@ -47,6 +47,8 @@ describe.runIf(run)('Tune: closed loop and step', () => {
     await page.getByTestId('switching-progress').waitFor({ timeout: 30_000 });
     await screenshot(page, 'time-domain-progress');
     await page.getByTestId('model-check-table').waitFor({ timeout: 120_000 });
+    // Computed in the Web Worker of the production build, not by the page's fallback.
+    expect(await page.getByTestId('model-check-summary').getAttribute('data-computed-in')).toBe('worker');
     const rows = await page.getByTestId('model-check-table').locator('tbody tr').count();
     expect(rows).toBeGreaterThanOrEqual(5);
     await page.getByTestId('run-switching-step').click();

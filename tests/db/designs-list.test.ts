@@ -31,10 +31,13 @@ beforeEach(() => {
   db.insert(memberships).values({ userId: reviewer, teamId: team, role: 'reviewer' }).run();
   // 250 designs in the team, 5 in another team; updated_at spread so the order is known.
   const topologies = ['buck', 'boost', 'buck-boost'] as const;
-  for (let i = 0; i < 250; i++)
-    db.insert(designs)
-      .values({ teamId: team, ownerId: designer, name: `Rail ${String(i).padStart(3, '0')}`, description: i % 10 === 0 ? 'for 100% load' : '', topology: topologies[i % 3], updatedAt: new Date(1e12 + i * 1000) })
-      .run();
+  // One transaction: the insert triggers still run per row, the file is synced once.
+  db.transaction((tx) => {
+    for (let i = 0; i < 250; i++)
+      tx.insert(designs)
+        .values({ teamId: team, ownerId: designer, name: `Rail ${String(i).padStart(3, '0')}`, description: i % 10 === 0 ? 'for 100% load' : '', topology: topologies[i % 3], updatedAt: new Date(1e12 + i * 1000) })
+        .run();
+  });
   for (let i = 0; i < 5; i++) createDesign(db, designer, other, { name: `Other ${i}`, topology: 'buck' });
 });
 afterEach(() => cleanup());

@@ -32,7 +32,7 @@ beforeEach(() => {
   ({ db, cleanup } = tempDb());
   teamA = createTeam(db, { name: 'A', slug: 'a' }).id;
   teamB = createTeam(db, { name: 'B', slug: 'b' }).id;
-  alice = createUser(db, { email: 'Alice@Example.test', name: 'Alice', password: 'correct horse' }).id;
+  alice = createTestUser(db, { email: 'Alice@Example.test', name: 'Alice', password: 'correct horse' }).id;
   bob = createTestUser(db, { email: 'bob@example.test', name: 'Bob', password: 'battery staple' }).id;
   db.insert(memberships).values({ userId: alice, teamId: teamA, role: 'admin' }).run();
   db.insert(memberships).values({ userId: bob, teamId: teamB, role: 'designer' }).run();
@@ -59,6 +59,10 @@ describe('users', () => {
     expect(verifyCredentials(db, 'ALICE@example.test', 'correct horse')?.id).toBe(alice);
     expect(verifyCredentials(db, 'alice@example.test', 'wrong')).toBeNull();
     expect(verifyCredentials(db, 'nobody@example.test', 'correct horse')).toBeNull();
+    // createUser hashes the password itself (the fixtures above share a hash).
+    const carol = createUser(db, { email: ' Carol@Example.test ', name: 'Carol', password: 'tulip wire' });
+    expect(carol.passwordHash).toMatch(/^\$2[aby]\$10\$/);
+    expect(verifyCredentials(db, 'carol@example.test', 'tulip wire')?.id).toBe(carol.id);
   });
 
   it('lists only the teams a user belongs to', () => {

@@ -26,7 +26,8 @@ const integrator: AnalyzeRequest = {
   converter: { topology: 'buck', vin: 10, vout: 5, iout: 1, fsw: 100e6, l: 1e-7, rl: 0, c: 1e-8, rc: 0, vd: 0 },
   modulator: { vramp: 1 },
   feedback: { vref: 1 },
-  compensator: { type: 'type1', r1: 10e3, c1: 10 / (2 * Math.PI * 1e3 * 10e3) },
+  // Standard values (E96, E12): the spread samples around the parts as built.
+  compensator: { type: 'type1', r1: 10e3, c1: 150e-9 },
   sweep: { fStart: 10, fStop: 1e5, points: 200 },
 };
 const integratorRange = (resistorTol: number): OperatingRange => ({ ...zeroRange(integrator), parts: { resistorTol, capacitorTol: 0 } });
@@ -47,9 +48,51 @@ describe('tolerance spread', () => {
     });
   }
 
+  // Parts off the series (as the handles leave them): the spread is about the circuit that will
+  // be built, so with zero tolerances it is analyze()'s margins of the standard-value parts.
+  const offSeries: [string, AnalyzeRequest][] = [
+    ...SAMPLE_DESIGNS.map((s): [string, AnalyzeRequest] => {
+      const c = s.request.compensator;
+      const nudge = (v: number | undefined) => (v === undefined ? undefined : v * 1.037);
+      return [s.key, { ...s.request, compensator: { ...c, r1: c.r1 * 1.029, r2: nudge(c.r2), r3: nudge(c.r3), c1: c.c1 * 1.037, c2: nudge(c.c2), c3: nudge(c.c3) } }];
+    }),
+    [
+      'transconductance, peak current mode',
+      {
+        converter: { topology: 'boost', vin: 5, vout: 12, iout: 0.5, fsw: 400e3, l: 10e-6, rl: 0.03, c: 44e-6, rc: 0.005, vd: 0.4 },
+        modulator: { mode: 'peak-current', ri: 0.1, se: 3e4 },
+        feedback: { vref: 1.2 },
+        compensator: { type: 'type2', amplifier: 'transconductance', gm: 1e-3, ro: 2e6, rb: 4444.44, r1: 40.3e3, r2: 10.3e3, c1: 10.4e-9, c2: 96e-12 },
+      },
+    ],
+    [
+      'finite op-amp Type III',
+      {
+        converter: { topology: 'buck', vin: 12, vout: 3.3, iout: 2, fsw: 500e3, l: 4.7e-6, rl: 0.02, c: 100e-6, rc: 0.005, vd: 0 },
+        modulator: { vramp: 1 },
+        feedback: { vref: 0.8 },
+        compensator: { type: 'type3', r1: 10.1e3, r2: 4.7e3, r3: 500, c1: 9.1e-9, c2: 230e-12, c3: 4.4e-9, opamp: { a0: 1e5, gbw: 20e6 } },
+      },
+    ],
+  ];
+  it.each(offSeries)('%s, parts off the series: zero tolerances collapse to the margins of the standard-value parts', (_, req) => {
+    const a = analyze(req);
+    const built = a.parts.snappedMargins;
+    const r = runSpread(req, zeroRange(req), { samples: 20, seed: 3 });
+    expectRel(r.nominal.phaseMarginDeg, built.phaseMarginDeg!, 1e-9, 'nominal PM = built PM');
+    for (const q of ['p1', 'p50', 'p99'] as const) {
+      expectRel(r.percentiles.crossoverHz![q], built.crossoverHz!, 1e-9, `fc ${q}`);
+      expectRel(r.percentiles.phaseMarginDeg![q], built.phaseMarginDeg!, 1e-9, `PM ${q}`);
+      if (built.gainMarginDb === null) expect(r.percentiles.gainMarginDb).toBeNull();
+      else expectRel(r.percentiles.gainMarginDb![q], built.gainMarginDb, 1e-9, `GM ${q}`);
+    }
+    // The ideal parts give another loop: the spread is not about them.
+    expect(Math.abs(a.margins.crossoverHz! - built.crossoverHz!)).toBeGreaterThan(1e-6 * built.crossoverHz!);
+  });
+
   it('the fc of an integrator loop with one uniformly distributed part follows fc₀/(1 + t·u) (within sampling error)', () => {
     const fc0 = analyze(integrator).margins.crossoverHz!;
-    expectRel(fc0, 1e3, 1e-4, 'nominal fc = Vin/(2π·R1·C1·Vramp)');
+    expectRel(fc0, 10 / (2 * Math.PI * 10e3 * 150e-9), 1e-4, 'nominal fc = Vin/(2π·R1·C1·Vramp)');
     const t = 0.1;
     const n = 20_000;
     const r = runSpread(integrator, integratorRange(t), { samples: n, seed: 11 });

@@ -2,7 +2,10 @@ import { describe, expect, it } from 'vitest';
 import { preparePlant } from '@/lib/engine/analyze';
 import { SAMPLE_DESIGNS } from '@/lib/engine/samples';
 import { createSwitchingSim } from '@/lib/engine/switching';
+import { loopCompensatorTransfer } from '@/lib/engine/analyze';
 import { measureSteadyState, modelCheck, simulatorFor, switchingStep } from '@/lib/engine/switching-check';
+import { transferEvaluator } from '@/lib/engine/sweep';
+import { multiplyTransfers, transferFromPolys, wrapDeg } from '@/lib/engine/transfer';
 import type { AnalyzeRequest } from '@/lib/engine/types';
 import { expectAbs, expectRel } from './helpers';
 
@@ -117,5 +120,55 @@ describe('switching load step next to the averaged step (buck sample)', () => {
     const last = r.cycles.voutAvg[r.cycles.voutAvg.length - 1];
     expectAbs(last, BUCK.converter.vout, 0.002);
     expect(r.outsideModel).toEqual([]);
+  });
+});
+
+/**
+ * Current mode toward fsw/2: the loop gain read from the switching waveforms of a peak
+ * current-mode buck follows Ridley's sampled-data model (R. B. Ridley, "A new, continuous-time
+ * model for current-mode control", IEEE Trans. Power Electronics 6(2), 1991: the double pole at
+ * fsw/2 with Qp = 1/(π(mc·D' − 0.5))), while the first-order model that treats the current loop
+ * as ideal, Gvc = (R/Ri)·(1 + s·rc·C)/(1 + s·(R + rc)·C) (Erickson & Maksimović, Fundamentals
+ * of Power Electronics, 2nd ed., ch. 12, the simple approximation; from memory), departs from
+ * it more and more toward fsw/2: the known divergence the sampled-data model exists to capture.
+ */
+describe('peak current-mode buck: the switching loop gain toward fsw/2 follows Ridley 1991, not the first-order model', () => {
+  const req: AnalyzeRequest = {
+    converter: { topology: 'buck', vin: 12, vout: 3.3, iout: 2, fsw: 500e3, l: 4.7e-6, rl: 0.02, c: 100e-6, rc: 0.005, vd: 0 },
+    modulator: { mode: 'peak-current', ri: 0.5, se: 5e4 },
+    feedback: { vref: 0.8 },
+    compensator: { type: 'type2', r1: 10e3, r2: 20e3, c1: 4.7e-9, c2: 47e-12 },
+  };
+  const fsw = req.converter.fsw;
+  const prepared = preparePlant(req);
+  const r = prepared.operatingPoint.loadResistance;
+  const { rc, c } = prepared.converter;
+  const firstOrder = transferFromPolys([r / 0.5, (r / 0.5) * rc * c], [1, (r + rc) * c]);
+  const firstLoop = transferEvaluator(multiplyTransfers(firstOrder, loopCompensatorTransfer(prepared, req.compensator)), 10);
+  const points = modelCheck(req, [fsw / 40, fsw / 10, fsw / 6, fsw / 4, fsw / 3]).points;
+  const firstErrDeg = points.map((p) => wrapDeg(p.phaseDeg - firstLoop(p.hz).phaseDeg));
+  const firstErrDb = points.map((p) => p.magDb - firstLoop(p.hz).magDb);
+
+  it('the sampling pair is there: Qp between 1 and 2 at this duty', () => {
+    expect(prepared.modulator.mode === 'peak-current' && prepared.modulator.qp).toBeGreaterThan(1);
+    expect(prepared.modulator.mode === 'peak-current' && prepared.modulator.qp).toBeLessThan(2);
+  });
+  it("Ridley's model: within 1 dB and 5° up to fsw/3", () => {
+    for (const p of points) {
+      expect(Math.abs(p.errorDb), `${p.hz} Hz: ${p.errorDb} dB`).toBeLessThan(1);
+      expect(Math.abs(p.errorDeg), `${p.hz} Hz: ${p.errorDeg}°`).toBeLessThan(5);
+    }
+  });
+  it('the first-order model: its phase error grows toward fsw/2 and passes 15° above fsw/6', () => {
+    for (let i = 1; i < points.length; i++) expect(Math.abs(firstErrDeg[i])).toBeGreaterThan(Math.abs(firstErrDeg[i - 1]));
+    expect(Math.abs(firstErrDeg[points.length - 1])).toBeGreaterThan(15);
+    expect(Math.abs(firstErrDeg[2])).toBeGreaterThan(10);
+  });
+  it("above fsw/10 Ridley's model is closer than the first-order one, in phase and in magnitude", () => {
+    points.forEach((p, i) => {
+      if (p.hz < fsw / 10 + 1) return;
+      expect(Math.abs(p.errorDeg)).toBeLessThan(Math.abs(firstErrDeg[i]) / 4);
+      expect(Math.abs(p.errorDb)).toBeLessThan(Math.abs(firstErrDb[i]));
+    });
   });
 });
