@@ -10,8 +10,9 @@ const opt = (v: number | null) => (v === null ? undefined : v);
 
 /**
  * The compensator from standard part values (C2 = 0 or absent stays absent). The amplifier
- * (kind, gm, ro, op-amp model) and a gm stage's own Rb are kept as entered: Rb is part of a gm
- * stage's loop, so the built circuit must use the same one.
+ * (kind, gm, ro, op-amp model) is kept as entered. A gm stage's Rb is part of its loop and is
+ * soldered like any other resistor, so it takes its standard value too, as the engine's
+ * snapped margins assume (snapCompensator).
  */
 export function builtCompensator(entered: CompensatorInput, snapped: PartValues): CompensatorInput {
   const { type, amplifier, gm, ro, rb, opamp } = entered;
@@ -19,7 +20,7 @@ export function builtCompensator(entered: CompensatorInput, snapped: PartValues)
   if (amplifier !== undefined) comp.amplifier = amplifier;
   if (gm !== undefined) comp.gm = gm;
   if (ro !== undefined) comp.ro = ro;
-  if (rb !== undefined) comp.rb = rb;
+  if (rb !== undefined) comp.rb = amplifier === 'transconductance' ? (snapped.rb ?? rb) : rb;
   if (opamp !== undefined) comp.opamp = opamp;
   if (type !== 'type1') {
     comp.r2 = opt(snapped.r2);

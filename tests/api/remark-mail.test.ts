@@ -60,8 +60,8 @@ describe('remark mail', () => {
       const mail = mailTo(to, 'Remark on Remark mail rail r2').find((m) => m.text.includes('the zero moved well'))!;
       expect(mail.text).toMatch(/\/designs\/\d+\/compare\?a=1&b=2/);
     }
-    const list = await (await clients.viewer.fetch(remarks(2))).json();
-    expect(list.remarks.at(-1)).toMatchObject({ body: 'Compared with r1: the zero moved well', comparedWith: 1, authorName: 'Ada Admin' });
+    const list = await (await clients.viewer.fetch(remarks(2))).json(); // newest first
+    expect(list.remarks[0]).toMatchObject({ body: 'Compared with r1: the zero moved well', comparedWith: 1, authorName: 'Ada Admin' });
   });
 
   it('the author remarking on their own draft mails nobody', async () => {

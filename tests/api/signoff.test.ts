@@ -161,8 +161,12 @@ describe('POST …/remarks', () => {
   it.each(['admin', 'designer', 'reviewer'] as const)('%s adds a remark (201)', async (role) => {
     const res = await clients[role].json(url(1, 'remarks'), 'POST', { body: `A remark from the ${role}` });
     expect(res.status).toBe(201);
-    const { remarks } = await (await clients.viewer.fetch(url(1, 'remarks'))).json();
-    expect(remarks.map((r: { body: string }) => r.body)).toContain(`A remark from the ${role}`);
+    const answer = await (await clients.viewer.fetch(url(1, 'remarks'))).json();
+    expect(answer.remarks[0].body).toBe(`A remark from the ${role}`); // newest first
+    expect(answer).toMatchObject({ page: 1, pageSize: 100 });
+    expect(answer.total).toBeGreaterThanOrEqual(answer.remarks.length);
+    const past = await (await clients.viewer.fetch(`${url(1, 'remarks')}?page=999`)).json();
+    expect(past.page).toBe(past.lastPage); // a page past the end serves the last one
   });
 
   it('viewer may not (403); no session 401; another team 404; empty body 400', async () => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { analyze } from '@/lib/engine/analyze';
 import { interpolateLogF } from '@/lib/engine/margins';
-import { SAMPLE_DESIGNS } from '@/lib/engine/samples';
+import { MODE_SAMPLES, SAMPLE_DESIGNS } from '@/lib/engine/samples';
 import type { AnalyzeRequest } from '@/lib/engine/types';
 import { builtRequest } from '@/lib/handoff/built-parts';
 import { buildExport } from '@/lib/handoff/exports';
@@ -27,7 +27,7 @@ function exportCir(request: AnalyzeRequest, name: string) {
 }
 
 describe.skipIf(!haveNgspice)('exported SPICE netlist agrees with the engine (ngspice)', () => {
-  for (const sample of SAMPLE_DESIGNS) {
+  for (const sample of [...SAMPLE_DESIGNS, ...MODE_SAMPLES]) {
     it(sample.key, () => {
       const file = exportCir(sample.request, sample.name);
       expect(file.fileName).toMatch(/-r2\.cir$/);
@@ -68,7 +68,8 @@ function netlistParts(cir: string): Map<string, number> {
 }
 
 describe('the netlist builds the parts of the parts list', () => {
-  for (const sample of SAMPLE_DESIGNS) {
+  // The mode samples add a gm stage, whose Rb is in the loop (4444.44 Ω entered, 4.42 kΩ built).
+  for (const sample of [...SAMPLE_DESIGNS, ...MODE_SAMPLES]) {
     it(`${sample.key}: every R and C in the netlist equals the parts list's standard value`, () => {
       const result = analyze(sample.request);
       const cir = exportCir(sample.request, sample.name).body;
@@ -84,6 +85,10 @@ describe('the netlist builds the parts of the parts list', () => {
         expect(inNetlist.get(name)).toBeCloseTo(r.standard, 12);
         expect(inNetlist.get(name)! / csv[i]).toBeCloseTo(1, 5);
       });
+      // The built circuit is the one whose margins the engine reports for the standard parts.
+      const built = analyze(builtRequest(sample.request, result.parts)).margins;
+      expect(built.phaseMarginDeg).toBeCloseTo(result.parts.snappedMargins.phaseMarginDeg!, 9);
+      expect(built.crossoverHz).toBeCloseTo(result.parts.snappedMargins.crossoverHz!, 6);
       // The ideal values stay as comments, and the netlist says it uses the standard ones.
       expect(cir).toMatch(/^\* Parts at their standard values/m);
       for (const r of rows) expect(cir).toMatch(new RegExp(`^\\*   ${r.part === 'rb' ? 'Rb' : r.part.toUpperCase()} = \\S+  \\(ideal `, 'm'));

@@ -1,6 +1,7 @@
 import { NextResponse } from 'next/server';
 import { getDb } from '@/db/client';
-import { addRemark, getRevision, listRemarks, remarkRecipients } from '@/db/queries';
+import { addRemark, getRevision, listRemarksPage, remarkRecipients } from '@/db/queries';
+import { pageParam, PAGE_SIZE } from '@/lib/paging';
 import { can } from '@/lib/auth';
 import { HttpError, parseJson, withUser } from '@/lib/api';
 import { mailEach, notifyRemark } from '@/lib/notify';
@@ -10,9 +11,11 @@ import { remarkSchema } from '@/lib/validation/signoff';
 
 type P = { id: string; number: string };
 
-export const GET = withUser<P>(async (_req, { user, params }) => {
+/** A revision's remarks, newest first, 100 a page (`?page=N`, default 1): `{ remarks, total, page, lastPage, pageSize }`. */
+export const GET = withUser<P>(async (req, { user, params }) => {
   const { ref } = requireRevision(user, params);
-  return NextResponse.json({ remarks: listRemarks(getDb(), ref.revisionId) });
+  const page = listRemarksPage(getDb(), ref.revisionId, pageParam(new URL(req.url).searchParams.get('page') ?? undefined));
+  return NextResponse.json({ ...page, pageSize: PAGE_SIZE });
 });
 
 /**
