@@ -1,6 +1,7 @@
 'use client';
 
 import { zodResolver } from '@hookform/resolvers/zod';
+import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
 import { formatDateTime } from '@/lib/format';
@@ -30,15 +31,22 @@ const FIELDS = ['body', 'target'] as const;
  */
 export function CompareRemarks({ designId, a, b, remarks, canRemark }: { designId: number; a: number; b: number; remarks: CompareRemark[]; canRemark: boolean }) {
   const form = useForm<FormValues, unknown, z.output<typeof formSchema>>({ resolver: zodResolver(formSchema), defaultValues: { target: 'b', body: '' } });
+  // Remarks written here show at once; the page's refresh (which recomputes both worst cases,
+  // seconds on a busy server) brings the same rows from the server.
+  const [added, setAdded] = useState<CompareRemark[]>([]);
   const post = useReviewWrite(
     form,
     FIELDS,
-    (v: z.output<typeof formSchema>) => {
+    async (v: z.output<typeof formSchema>) => {
       const [number, other] = v.target === 'b' ? [b, a] : [a, b];
-      return addRemark(designId, number, { body: v.body, comparedWith: other });
+      return { number, row: await addRemark(designId, number, { body: v.body, comparedWith: other }) };
     },
-    () => form.reset({ target: form.getValues('target'), body: '' }),
+    ({ number, row }) => {
+      setAdded((list) => [...list, { id: row.id, number, authorName: row.authorName, body: row.body, comparedWith: row.comparedWith, at: row.createdAt }]);
+      form.reset({ target: form.getValues('target'), body: '' });
+    },
   );
+  const shown = [...remarks, ...added.filter((m) => !remarks.some((r) => r.id === m.id))];
   const error = form.formState.errors.body?.message;
 
   return (
@@ -47,8 +55,8 @@ export function CompareRemarks({ designId, a, b, remarks, canRemark }: { designI
         Remarks on r{a} and r{b}
       </h2>
       <ol className="mt-2 space-y-2" data-testid="compare-remark-list">
-        {remarks.length === 0 && <li className="text-sm text-slate-500">No remarks on either revision yet.</li>}
-        {remarks.map((m) => (
+        {shown.length === 0 && <li className="text-sm text-slate-500">No remarks on either revision yet.</li>}
+        {shown.map((m) => (
           <li key={m.id} className="rounded-md border border-slate-200 px-3 py-2 text-sm">
             <div className="flex flex-wrap items-baseline gap-x-2 text-xs text-slate-500">
               <span className="font-medium text-slate-800">{m.authorName}</span>

@@ -23,12 +23,15 @@ function newestMtime(p: string): number {
   return max;
 }
 
-/** Build unless .next-test holds a build newer than every source file. */
+/**
+ * Build unless .next-test holds a build newer than every source file. In CI (a clean clone)
+ * the API tests build once and the browser tests reuse that build.
+ */
 export function buildIfStale() {
   const buildId = path.join(ROOT, DIST, 'BUILD_ID');
   const built = fs.existsSync(buildId) ? fs.statSync(buildId).mtimeMs : 0;
   const newest = Math.max(...SOURCES.map(newestMtime));
-  if (built > newest && process.env.CI !== 'true') return precompressStatic();
+  if (built > newest) return precompressStatic();
   console.log('[app-server] building the app for tests (next build)…');
   const r = spawnSync('npx', ['next', 'build'], {
     cwd: ROOT,
