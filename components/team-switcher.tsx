@@ -2,6 +2,8 @@
 
 import { useRouter } from 'next/navigation';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { Jsonified } from '@/lib/json';
+import type { TeamSwitchedBody } from '@/lib/response-bodies';
 import { ApiError, sendJson } from '@/lib/queries/request';
 
 export function TeamSwitcher({
@@ -14,7 +16,7 @@ export function TeamSwitcher({
   const router = useRouter();
   const queryClient = useQueryClient();
   const switchTeam = useMutation({
-    mutationFn: (teamId: number) => sendJson<{ teamId: number; role: string }>('/api/session/team', 'POST', { teamId }),
+    mutationFn: (teamId: number) => sendJson<Jsonified<TeamSwitchedBody>>('/api/session/team', 'POST', { teamId }),
     onSuccess: () => {
       queryClient.clear(); // every cached read belongs to the old team
       router.push('/designs');

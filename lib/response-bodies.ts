@@ -30,6 +30,10 @@ export const importedDesignBody = (created: { designId: number; revision: number
 export const benchShiftedBody = (id: number, phaseShifted: boolean) => ({ id, phaseShifted });
 
 export type BenchShiftedBody = ReturnType<typeof benchShiftedBody>;
+/** POST /api/session/team: the team now current and the member's role in it. */
+export const teamSwitchedBody = (teamId: number, role: Role) => ({ teamId, role });
+
+export type TeamSwitchedBody = ReturnType<typeof teamSwitchedBody>;
 export type SignoffStepBody = ReturnType<typeof signoffStepBody>;
 export type RemarkBody = ReturnType<typeof remarkBody>;
 export type InvitationSentBody = ReturnType<typeof invitationSentBody>;

@@ -16,6 +16,7 @@ import {
   type BenchUploaded,
 } from '@/lib/queries/bench';
 import { ApiError } from '@/lib/queries/request';
+import { Button } from '@/components/ui/button';
 
 const UNITS = [
   { value: '', label: 'Unit from the header (else Hz)' },
@@ -112,9 +113,9 @@ export function BenchPanel({ designId, revision, canEdit }: { designId: number; 
                 ))}
               </select>
             </label>
-            <button type="submit" className="btn-primary" disabled={upload.isPending}>
+            <Button type="submit" variant="primary" disabled={upload.isPending}>
               {upload.isPending ? 'Reading…' : 'Upload'}
-            </button>
+            </Button>
           </form>
         )}
       </div>
@@ -217,9 +218,9 @@ function BenchDetailView({ detail, canEdit, shifting, onShift }: { detail: Bench
             or channels inverted).
           </span>
           {canEdit && (
-            <button type="button" className="btn-secondary" disabled={shifting} onClick={() => onShift(true)}>
+            <Button disabled={shifting} onClick={() => onShift(true)}>
               Shift phase by 180°
-            </button>
+            </Button>
           )}
         </div>
       )}
@@ -227,9 +228,9 @@ function BenchDetailView({ detail, canEdit, shifting, onShift }: { detail: Bench
         <p className="text-sm text-slate-600">
           Shown with 180° taken off the phase (measured as −T).{' '}
           {canEdit && (
-            <button type="button" className="text-indigo-700 underline" disabled={shifting} onClick={() => onShift(false)}>
+            <Button variant="link" disabled={shifting} onClick={() => onShift(false)}>
               Show as uploaded
-            </button>
+            </Button>
           )}
         </p>
       )}

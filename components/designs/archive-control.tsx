@@ -3,6 +3,7 @@
 import { useMutation } from '@tanstack/react-query';
 import { useRouter } from 'next/navigation';
 import { formatDay } from '@/lib/format';
+import { Button } from '@/components/ui/button';
 import { archiveDesignRequest, deleteDesignRequest } from '@/lib/queries/designs';
 
 interface Props {
@@ -36,9 +37,9 @@ export function ArchiveControl({ designId, name, archivedAt, canEdit, deletable 
       )}
       {canEdit &&
         (archivedAt ? (
-          <button type="button" className="btn-secondary" disabled={archive.isPending} onClick={() => archive.mutate(false)}>
+          <Button disabled={archive.isPending} onClick={() => archive.mutate(false)}>
             Restore to the list
-          </button>
+          </Button>
         ) : (
           <button
             type="button"

@@ -6,6 +6,7 @@ import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import type { AnalyzeRequest } from '@/lib/engine/types';
 import { ApiError } from '@/lib/queries/request';
+import { Button } from '@/components/ui/button';
 import { designKeys, saveRevision, type SavedRevision } from '@/lib/queries/revisions';
 
 interface Props {
@@ -76,9 +77,9 @@ export function SaveBar({ designId, input, baseRevision, dirty, blockedBy, onSav
           onChange={(e) => setNote(e.target.value)}
           data-testid="revision-note"
         />
-        <button type="submit" className="btn-primary" disabled={!(dirty || baseRevision === null) || mutation.isPending || blockedBy !== null} title={blockedBy ?? undefined} data-testid="save-revision">
+        <Button type="submit" variant="primary" disabled={!(dirty || baseRevision === null) || mutation.isPending || blockedBy !== null} title={blockedBy ?? undefined} data-testid="save-revision">
           {mutation.isPending ? 'Saving…' : baseRevision === null ? 'Save as r1' : `Save as r${baseRevision + 1}`}
-        </button>
+        </Button>
       </form>
       {(dirty || baseRevision === null) && blockedBy && <p className="text-xs text-red-700">{blockedBy}</p>}
       {conflict && (
@@ -88,9 +89,9 @@ export function SaveBar({ designId, input, baseRevision, dirty, blockedBy, onSav
             are still here, nothing was overwritten.
           </p>
           <div className="mt-2 flex flex-wrap items-center gap-3">
-            <button type="button" className="btn-primary" disabled={mutation.isPending} onClick={() => save(conflict.latestRevision ?? null)} data-testid="save-anyway">
+            <Button variant="primary" disabled={mutation.isPending} onClick={() => save(conflict.latestRevision ?? null)} data-testid="save-anyway">
               Save as r{(conflict.latestRevision ?? 0) + 1} anyway
-            </button>
+            </Button>
             {conflict.baseRevision !== null && conflict.baseRevision !== undefined && (
               <Link
                 className="text-indigo-700 underline"

@@ -2,6 +2,7 @@ import { NextResponse } from 'next/server';
 import { z } from 'zod';
 import { TEAM_COOKIE } from '@/lib/auth';
 import { HttpError, parseJson, withUser } from '@/lib/api';
+import { teamSwitchedBody } from '@/lib/response-bodies';
 
 const bodySchema = z.object({ teamId: z.number({ error: 'teamId must be a number' }).int().positive() });
 
@@ -10,7 +11,7 @@ export const POST = withUser(async (req, { user }) => {
   const { teamId } = await parseJson(req, bodySchema);
   const team = user.teams.find((t) => t.teamId === teamId);
   if (!team) throw new HttpError(403, 'You are not a member of that team');
-  const res = NextResponse.json({ teamId, role: team.role });
+  const res = NextResponse.json(teamSwitchedBody(teamId, team.role));
   res.cookies.set(TEAM_COOKIE, String(teamId), { httpOnly: true, sameSite: 'lax', path: '/' });
   return res;
 });
