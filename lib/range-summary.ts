@@ -2,6 +2,7 @@ import { analyzeCorners } from '@/lib/engine/corners';
 import { rangeOf, targetsOf, type MarginTargets, type OperatingRange, type RangeFields } from '@/lib/engine/range';
 import { runSpread, type Percentiles } from '@/lib/engine/spread';
 import { EngineInputError, type AnalyzeRequest } from '@/lib/engine/types';
+import { formatCount } from '@/lib/format';
 
 /**
  * A revision's worst case across its operating range, for Compare, the report and the review
@@ -83,5 +84,5 @@ export function worstCaseSentence(s: RangeSummary): string {
   const gmText = gm.value === null ? 'GM: no −180° crossing at any corner' : `GM ${fixed(gm.value)} dB at ${gm.corner}`;
   const share = (s.spread.meetsTargets.share * 100).toFixed(1);
   const risks = (s.risks ?? []).map((r) => ` Risk "${r.id}" at ${r.count} of ${s.corners} corners (first: ${r.corner}).`).join('');
-  return `Worst case over ${s.corners} corners: ${pmText}; ${gmText}.${risks} ${share} % of ${s.spread.samples.toLocaleString('en-US')} simulated builds (seed ${s.spread.seed}) meet PM ≥ ${s.targets.phaseMarginDeg}° and GM ≥ ${s.targets.gainMarginDb} dB.`;
+  return `Worst case over ${s.corners} corners: ${pmText}; ${gmText}.${risks} ${share} % of ${formatCount(s.spread.samples)} simulated builds (seed ${s.spread.seed}) meet PM ≥ ${s.targets.phaseMarginDeg}° and GM ≥ ${s.targets.gainMarginDb} dB.`;
 }

@@ -1,5 +1,6 @@
 import { formatSi } from '@/lib/units/si';
 import type { RangeSummary } from '@/lib/range-summary';
+import { formatCount } from '@/lib/format';
 
 type Side = { ok: true; value: RangeSummary } | { ok: false; message: string };
 
@@ -124,7 +125,7 @@ export function RangeCompare({ a, b, labelA, labelB }: { a: Side; b: Side; label
         </tbody>
       </table>
       <p className="mt-2 text-xs text-slate-500">
-        {A.corners} and {B.corners} corners (compensator at nominal); spreads of {A.spread.samples.toLocaleString('en-US')} builds each, {A.spread.distribution}, seed {A.spread.seed}, against
+        {A.corners} and {B.corners} corners (compensator at nominal); spreads of {formatCount(A.spread.samples)} builds each, {A.spread.distribution}, seed {A.spread.seed}, against
         each revision&apos;s own targets ({labelA}: PM ≥ {A.targets.phaseMarginDeg}°, GM ≥ {A.targets.gainMarginDb} dB; {labelB}: PM ≥ {B.targets.phaseMarginDeg}°, GM ≥ {B.targets.gainMarginDb} dB).
       </p>
     </section>

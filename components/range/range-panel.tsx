@@ -2,23 +2,12 @@
 
 import type { MarginTargets, OperatingRange } from '@/lib/engine/range';
 import { CornerTable } from './corner-table';
+import { Card } from '@/components/ui/card';
 import type { CornerView } from './corner-traces';
 import { RangeForm } from './range-form';
 import { SpreadPanel, type SpreadRequest } from './spread-panel';
 import type { CornersState } from './use-corners';
 import type { SpreadState } from './use-spread';
-
-function Card({ title, aside, children, className = '' }: { title: string; aside?: React.ReactNode; children: React.ReactNode; className?: string }) {
-  return (
-    <section className={`card p-4 ${className}`} aria-label={title}>
-      <div className="mb-3 flex items-baseline justify-between gap-2">
-        <h2 className="text-sm font-semibold text-slate-800">{title}</h2>
-        {aside}
-      </div>
-      {children}
-    </section>
-  );
-}
 
 /** The corner view toggle shown above the Bode plot. */
 export function CornerViewToggle({ view, onChange, count }: { view: CornerView; onChange: (v: CornerView) => void; count: number }) {

@@ -5,6 +5,7 @@ import type { SpreadDistribution, SpreadResult } from '@/lib/engine/spread';
 import type { MarginTargets } from '@/lib/engine/range';
 import { Histogram } from './histogram';
 import { useSpreadProgress, type SpreadState } from './use-spread';
+import { formatCount } from '@/lib/format';
 
 interface SpreadForm {
   samples: string;
@@ -55,7 +56,7 @@ export function SpreadPanel({
           <select id="spread-samples" className="input w-28" disabled={running} {...register('samples')}>
             {SAMPLE_CHOICES.map((n) => (
               <option key={n} value={n}>
-                {Number(n).toLocaleString('en-US')}
+                {formatCount(Number(n))}
               </option>
             ))}
           </select>
@@ -104,13 +105,13 @@ export function SpreadPanel({
             <div className="h-full bg-indigo-600 transition-[width]" style={{ width: `${(100 * done) / state.total}%` }} />
           </div>
           <p className="mt-1 text-xs text-slate-600">
-            {done.toLocaleString('en-US')} of {state.total.toLocaleString('en-US')} samples
+            {formatCount(done)} of {formatCount(state.total)} samples
           </p>
         </div>
       )}
       {state.status === 'cancelled' && (
         <p className="text-xs text-slate-600" data-testid="spread-cancelled">
-          Spread cancelled after {state.done.toLocaleString('en-US')} of {state.total.toLocaleString('en-US')} samples; nothing kept. Run it again to see the histograms.
+          Spread cancelled after {formatCount(state.done)} of {formatCount(state.total)} samples; nothing kept. Run it again to see the histograms.
         </p>
       )}
       {state.status === 'error' && (
@@ -121,7 +122,7 @@ export function SpreadPanel({
       {result && state.status === 'done' && (
         <div className="space-y-2" data-testid="spread-result">
           <p className="text-xs text-slate-600">
-            {result.samples.toLocaleString('en-US')} samples, {result.distribution} distribution, seed {result.seed}, at {result.conditions.vin} V and{' '}
+            {formatCount(result.samples)} samples, {result.distribution} distribution, seed {result.seed}, at {result.conditions.vin} V and{' '}
             {result.conditions.iout} A; L ±{(result.tolerances.l * 100).toFixed(1)} %, C ±{(result.tolerances.c * 100).toFixed(1)} %, ESR {result.tolerances.rc.min}–
             {result.tolerances.rc.max} Ω, resistors ±{(result.tolerances.resistorTol * 100).toFixed(1)} %, capacitors ±{(result.tolerances.capacitorTol * 100).toFixed(1)} %. Took{' '}
             {(state.elapsedMs / 1000).toFixed(2)} s.

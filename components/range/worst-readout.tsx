@@ -3,6 +3,7 @@ import type { CornersResult } from '@/lib/engine/corners';
 import type { MarginTargets } from '@/lib/engine/range';
 import type { SpreadResult } from '@/lib/engine/spread';
 import type { Margins } from '@/lib/engine/types';
+import { formatCount } from '@/lib/format';
 
 const fixed = (v: number) => v.toFixed(1).replace(/^-/, '−');
 const deg = (v: number | null) => (v === null ? 'none' : `${fixed(v)}°`);
@@ -65,7 +66,7 @@ export function WorstReadout({ nominal, corners, spread, targets }: { nominal: M
       )}
       {spread && (
         <p className="text-xs text-slate-600" data-testid="spread-share">
-          {(spread.meetsTargets.share * 100).toFixed(1)} % of {spread.samples.toLocaleString('en-US')} simulated builds meet PM ≥ {spread.targets.phaseMarginDeg}° and GM ≥ {spread.targets.gainMarginDb} dB.
+          {(spread.meetsTargets.share * 100).toFixed(1)} % of {formatCount(spread.samples)} simulated builds meet PM ≥ {spread.targets.phaseMarginDeg}° and GM ≥ {spread.targets.gainMarginDb} dB.
         </p>
       )}
     </div>

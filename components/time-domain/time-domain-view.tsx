@@ -12,6 +12,7 @@ import { ModelCheckPlot, ModelCheckTable } from './model-check-plot';
 import { StepForm } from './step-form';
 import { StepPlot, StepReadouts } from './step-panel';
 import { SwitchingJobError, useSwitchingJob } from './switching-job';
+import { Card } from '@/components/ui/card';
 
 
 const attempt = <T,>(f: () => T): { ok: true; value: T } | { ok: false; message: string } => {
@@ -21,18 +22,6 @@ const attempt = <T,>(f: () => T): { ok: true; value: T } | { ok: false; message:
     return { ok: false, message: err instanceof EngineInputError ? err.issues.map((i) => i.message).join('; ') : err instanceof Error ? err.message : String(err) };
   }
 };
-
-function Section({ title, children, aside }: { title: string; children: React.ReactNode; aside?: React.ReactNode }) {
-  return (
-    <section className="card p-4" aria-label={title}>
-      <div className="mb-3 flex items-baseline justify-between gap-2">
-        <h2 className="text-sm font-semibold text-slate-800">{title}</h2>
-        {aside}
-      </div>
-      {children}
-    </section>
-  );
-}
 
 /**
  * Tune's closed-loop view: output impedance and line rejection with the loop closed, the
@@ -52,10 +41,10 @@ export function TimeDomainView({ input, bode, readOnly, onStepChange }: { input:
 
   return (
     <div className="space-y-4" data-testid="time-domain-view">
-      <Section title="Closed loop">
+      <Card title="Closed loop">
         {closed?.ok ? <ClosedLoopPanel responses={closed.value} mainsHz={mainsHz} onMainsHz={setMainsHz} /> : <p className="text-sm text-slate-500">{closed && !closed.ok ? closed.message : prepared.ok ? '' : prepared.message}</p>}
-      </Section>
-      <Section title="Step response" aside={<span className="text-xs text-slate-500">averaged small-signal model, loop closed</span>}>
+      </Card>
+      <Card title="Step response" aside={<span className="text-xs text-slate-500">averaged small-signal model, loop closed</span>}>
         <div className="space-y-3">
           <StepForm value={step} readOnly={readOnly} onChange={onStepChange} />
           {response.ok ? (
@@ -69,8 +58,8 @@ export function TimeDomainView({ input, bode, readOnly, onStepChange }: { input:
             </p>
           )}
         </div>
-      </Section>
-      <Section title="Switching check" aside={<span className="text-xs text-slate-500">cycle by cycle, in your browser</span>}>
+      </Card>
+      <Card title="Switching check" aside={<span className="text-xs text-slate-500">cycle by cycle, in your browser</span>}>
         <div className="space-y-3">
           <p className="text-sm text-slate-600">
             Simulates the switching circuit itself (switch on, off and DCM intervals, the compensator and the {input.converter.topology} modulator) to show how far the averaged model holds: small sine waves injected into the loop read the loop gain the way a network analyzer would, and the step above runs cycle by cycle with its ripple.
@@ -118,7 +107,7 @@ export function TimeDomainView({ input, bode, readOnly, onStepChange }: { input:
             </p>
           )}
         </div>
-      </Section>
+      </Card>
     </div>
   );
 }

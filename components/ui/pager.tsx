@@ -1,4 +1,5 @@
 import Link from 'next/link';
+import { formatCount } from '@/lib/format';
 
 /**
  * "Newer · page x of y · Older" links for a server-paged list; the page lives in the URL (`href`
@@ -18,7 +19,7 @@ export function Pager({ page, lastPage, total, noun, href, testId }: { page: num
         <span className={off}>← Newer</span>
       )}
       <span className="num text-slate-600">
-        Page {page} of {lastPage} · {total.toLocaleString('en-US')} {noun}
+        Page {page} of {lastPage} · {formatCount(total)} {noun}
       </span>
       {page < lastPage ? (
         <Link href={href(page + 1)} className={link} rel="next" scroll={false}>

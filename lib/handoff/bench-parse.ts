@@ -26,6 +26,7 @@
  */
 
 import Papa from 'papaparse';
+import { formatCount } from '@/lib/format';
 import { wrapDeg } from '@/lib/engine/transfer';
 
 export const BENCH_MAX_BYTES = 10 * 1024 * 1024;
@@ -267,7 +268,7 @@ export function parseBenchData(input: string | Uint8Array, opts: BenchParseOptio
     bodyLines.push(trimmed);
     bodyLineNos.push(lineNo);
     if (bodyLines.length > BENCH_MAX_ROWS)
-      throw new BenchParseError(lineNo, `more than ${BENCH_MAX_ROWS.toLocaleString('en')} data rows; thin the sweep`, true);
+      throw new BenchParseError(lineNo, `more than ${formatCount(BENCH_MAX_ROWS)} data rows; thin the sweep`, true);
   }
 
   if (columns !== null && bodyLines.length > 0) {

@@ -5,7 +5,7 @@
  * the model, the parts, the Checks, the cautions, the
  * revision number, its sign-off state and the dates.
  */
-import { formatIsoDay, formatIsoMinute } from '@/lib/format';
+import { formatIsoDay, formatIsoMinute, formatCount } from '@/lib/format';
 import { CAUTIONS } from '@/lib/cautions';
 import { AMPLIFIER_INPUTS, AMPLIFIER_LABELS, amplifierInputLabel, compensatorTitle, inputApplies, MODULATOR_MODE_LABELS, inputLabel, readInput, signoffLabel, STAGE_INPUTS, topologyLabel, type SignoffState } from '@/lib/catalog';
 import type { AnalyzeRequest, AnalyzeResult, Margins } from '@/lib/engine/types';
@@ -118,7 +118,7 @@ function rangeSection(s: RangeSummary): string {
     ...(s.risks ?? []).map((r): [string, string] => [`Risk: ${r.id}`, `${r.count} of ${s.corners} corners, first at ${r.corner}`]),
     ['Spread PM p1 / p50 / p99', pr(p.phaseMarginDeg, '°')],
     ['Spread GM p1 / p50 / p99', pr(p.gainMarginDb, 'dB')],
-    ['Builds meeting the targets', `${pct(s.spread.meetsTargets.share)} of ${s.spread.samples.toLocaleString('en-US')} (${s.spread.distribution}, seed ${s.spread.seed})`],
+    ['Builds meeting the targets', `${pct(s.spread.meetsTargets.share)} of ${formatCount(s.spread.samples)} (${s.spread.distribution}, seed ${s.spread.seed})`],
   ]);
   return `<p><b>${esc(worstCaseSentence(s))}</b></p><div class="cols"><div>${rangeRows}</div><div>${worst}</div></div><p class="muted small">Corners: every combination of the range's extremes, compensator at nominal. Spread: every part drawn within its tolerance at nominal line and load.</p>`;
 }
