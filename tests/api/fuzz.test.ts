@@ -198,14 +198,26 @@ describe('fuzz', () => {
       const res = await handlers.get(k)!(new Request(new URL(t.url, LOCAL_ORIGIN), { method: t.method, headers, body }), { params: Promise.resolve(t.params) });
       return { status: res.status, text: await res.text() };
     };
+    // A fetch that fails before any answer (seen once in CI at 16 in parallel, most likely a
+    // kept-alive socket closed under it) is sent once more and counted; failing twice is a failure.
+    let resent = 0;
     const overHttp: Send = async (t, headers, body) => {
-      const res = await team.clients.admin.fetch(t.url, { method: t.method, headers, body, signal: AbortSignal.timeout(20_000) });
-      return { status: res.status, text: await res.text() };
+      const once = async () => {
+        const res = await team.clients.admin.fetch(t.url, { method: t.method, headers, body, signal: AbortSignal.timeout(20_000) });
+        return { status: res.status, text: await res.text() };
+      };
+      try {
+        return await once();
+      } catch (err) {
+        if (!(err instanceof TypeError)) throw err;
+        resent++;
+        return await once();
+      }
     };
     const local_ = await fuzz(TOTAL - HTTP_SHARE, 20261202, 4, targetsFor(local.designId), LOCAL_ORIGIN, inProcess);
     console.log(`[fuzz] in process: ${TOTAL - HTTP_SHARE} bodies in ${local_.seconds.toFixed(1)} s over ${local_.byRoute.size} routes; by status: ${statuses(local_)}; 5xx: ${local_.fivexx.length}; 4xx without a named field: ${local_.unnamed.length}`);
     const http = await fuzz(HTTP_SHARE, 20261203, 16, targetsFor(designId), baseUrl, overHttp);
-    console.log(`[fuzz] over HTTP: ${HTTP_SHARE} bodies in ${http.seconds.toFixed(1)} s over ${http.byRoute.size} routes; by status: ${statuses(http)}; 5xx: ${http.fivexx.length}; 4xx without a named field: ${http.unnamed.length}`);
+    console.log(`[fuzz] over HTTP: ${HTTP_SHARE} bodies in ${http.seconds.toFixed(1)} s over ${http.byRoute.size} routes; by status: ${statuses(http)}; 5xx: ${http.fivexx.length}; 4xx without a named field: ${http.unnamed.length}; sent again after a closed socket: ${resent}`);
     const perRoute = new Map(local_.byRoute);
     for (const [k, c] of http.byRoute) perRoute.set(k, (perRoute.get(k) ?? 0) + c);
     console.log(`[fuzz] ${TOTAL} bodies in all; per route: ${[...perRoute].map(([k, c]) => `${k} ${c}`).join('; ')}`);

@@ -23,7 +23,9 @@ afterAll(() => app?.stop());
 
 describe('switching simulation in a worker thread', () => {
   it('a GET during a run answers before the run ends; a second run is 503 with Retry-After', async () => {
-    const heavy = { ...buck, injection: { frequencies: [fsw / 60, fsw / 40, fsw / 20, fsw / 10] } };
+    // Long enough (about 1,700 cycles) that the GET is answered well before it ends even when
+    // other test files keep both cores busy.
+    const heavy = { ...buck, injection: { frequencies: [fsw / 150, fsw / 100, fsw / 60, fsw / 40, fsw / 20, fsw / 10] } };
     let runEnded = 0;
     const run = viewer.json('/api/analyze/switching', 'POST', heavy).then((res) => {
       runEnded = performance.now();
