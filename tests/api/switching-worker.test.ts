@@ -23,15 +23,15 @@ afterAll(() => app?.stop());
 
 describe('switching simulation in a worker thread', () => {
   it('a GET during a run answers before the run ends; a second run is 503 with Retry-After', async () => {
-    // Long enough (about 1,700 cycles) that the GET is answered well before it ends even when
-    // other test files keep both cores busy.
-    const heavy = { ...buck, injection: { frequencies: [fsw / 150, fsw / 100, fsw / 60, fsw / 40, fsw / 20, fsw / 10] } };
+    // About 8,200 switching cycles (the limit is 10,000): over a second of work, so the GET and
+    // the second run arrive while it computes, even on a fast machine.
+    const heavy = { ...buck, injection: { frequencies: [1000, 500, 250, 120, 60, 30, 15, 10].map((n) => fsw / n) } };
     let runEnded = 0;
     const run = viewer.json('/api/analyze/switching', 'POST', heavy).then((res) => {
       runEnded = performance.now();
       return res;
     });
-    await new Promise((r) => setTimeout(r, 400)); // the run is parsed and computing by now
+    await new Promise((r) => setTimeout(r, 150)); // the run is parsed and computing by now
     const t0 = performance.now();
     const get = await viewer.fetch('/api/auth/csrf');
     const getMs = performance.now() - t0;
