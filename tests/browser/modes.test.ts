@@ -43,7 +43,7 @@ describe.runIf(run)('Tune: control modes and amplifiers', () => {
   beforeAll(async () => {
     browser = await chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_ARGS });
     designer = await signedInAs(baseUrl, 'designer');
-    const created = await designer.json('/api/designs', 'POST', { name: 'Browser current-mode boost', topology: 'boost' });
+    const created = await designer.json('/api/designs', 'POST', { name: 'Browser current-mode rail', topology: 'boost' });
     designId = (await created.json()).id;
     const saved = await designer.json(`/api/designs/${designId}/revisions`, 'POST', { baseRevision: null, note: 'voltage mode', input: boost });
     expect(saved.status).toBe(201);
