@@ -1,21 +1,17 @@
 'use client';
 
-import { zodResolver } from '@hookform/resolvers/zod';
 import { signIn } from 'next-auth/react';
 import { useForm } from 'react-hook-form';
-import type { z } from 'zod';
-import { signInSchema } from '@/lib/validation/account';
+import { signInFormRules, type SignInFields } from '@/lib/validation/sign-in-rules';
 import { Button } from '@/components/ui/button';
 import { Field, FormError, inputClass } from '@/components/ui/field';
 
-type Fields = z.input<typeof signInSchema>;
-
 /**
- * Email and password through next-auth's credentials provider, which checks the same schema.
- * A wrong pair never says which of the two was wrong.
+ * Email and password through next-auth's credentials provider, which checks the same rules with
+ * zod on the server. A wrong pair never says which of the two was wrong.
  */
 export function SignInForm({ callbackUrl }: { callbackUrl: string }) {
-  const form = useForm<Fields, unknown, z.output<typeof signInSchema>>({ resolver: zodResolver(signInSchema), defaultValues: { email: '', password: '' } });
+  const form = useForm<SignInFields>({ defaultValues: { email: '', password: '' } });
   const { errors, isSubmitting } = form.formState;
 
   const onSubmit = form.handleSubmit(async ({ email, password }) => {
@@ -30,10 +26,10 @@ export function SignInForm({ callbackUrl }: { callbackUrl: string }) {
   return (
     <form onSubmit={onSubmit} className="space-y-4" noValidate>
       <Field label="Email" htmlFor="email" error={errors.email?.message}>
-        <input id="email" type="email" autoComplete="username" className={inputClass(errors.email?.message)} aria-invalid={!!errors.email} {...form.register('email')} />
+        <input id="email" type="email" autoComplete="username" className={inputClass(errors.email?.message)} aria-invalid={!!errors.email} {...form.register('email', signInFormRules.email)} />
       </Field>
       <Field label="Password" htmlFor="password" error={errors.password?.message}>
-        <input id="password" type="password" autoComplete="current-password" className={inputClass(errors.password?.message)} aria-invalid={!!errors.password} {...form.register('password')} />
+        <input id="password" type="password" autoComplete="current-password" className={inputClass(errors.password?.message)} aria-invalid={!!errors.password} {...form.register('password', signInFormRules.password)} />
       </Field>
       <FormError message={errors.root?.message} testId="signin-error" />
       <Button type="submit" variant="primary" className="w-full justify-center" disabled={isSubmitting}>

@@ -10,7 +10,7 @@ import type { Role } from '@/db/schema';
 import { getAuthSecret } from './auth-secret';
 import { comparePassword } from './password-hash';
 import { safeCallbackUrl } from './safe-redirect';
-import { signInSchema } from './validation/account';
+import { signInSchema } from './validation/sign-in';
 
 export const TEAM_COOKIE = 'pw-team';
 

@@ -6,12 +6,6 @@ const password = z
   .min(8, 'a password has at least 8 characters')
   .max(200, 'a password has at most 200 characters');
 
-/** The sign-in form; next-auth's credentials provider checks the same (lib/auth.ts). */
-export const signInSchema = z.object({
-  email: z.email({ error: 'enter a valid email address' }).trim(),
-  password: z.string({ error: 'password must be text' }).min(1, 'enter your password').max(200, 'a password has at most 200 characters'),
-});
-
 export const passwordChangeSchema = z.object({
   currentPassword: z.string({ error: 'currentPassword must be text' }).min(1, 'enter your current password').max(200),
   newPassword: password,
