@@ -1,39 +1,54 @@
 'use client';
 
-import { formatDateTime } from '@/lib/format';
-import { useQuery } from '@tanstack/react-query';
 import Link from 'next/link';
-import { revisionsQueryOptions, type RevisionListItem } from '@/lib/queries/revisions';
+import { formatCount, formatDateTime } from '@/lib/format';
+import type { RevisionBriefPage } from '@/lib/queries/revisions';
+import { useRevisionPage } from '@/components/revisions/use-revision-page';
 
-type Brief = Pick<RevisionListItem, 'number' | 'note' | 'authorName' | 'createdAt'>;
-
-/** Links to each saved revision of the design; the latest opens for editing, earlier ones read-only. */
-export function RevisionPicker({ designId, shown, initial }: { designId: number; shown: number | null; initial: Brief[] }) {
-  const { data, isError } = useQuery({
-    ...revisionsQueryOptions(designId),
-    select: (d) => d.revisions as Brief[],
-    initialData: { revisions: initial as RevisionListItem[] },
-  });
-  const list = data ?? initial;
-  if (list.length === 0) return <span className="text-sm text-slate-500">No revision saved yet</span>;
-  const latest = list[list.length - 1].number;
+/**
+ * Links to the design's saved revisions, 100 at a time (the page holding the one shown, oldest to
+ * newest left to right; Older/Newer page through the API): the latest opens for editing, earlier
+ * ones read-only. A design with thousands of revisions opens Tune with one page of them.
+ */
+export function RevisionPicker({ designId, shown, initial }: { designId: number; shown: number | null; initial: RevisionBriefPage }) {
+  const { data, range, newer, older, loading, isError } = useRevisionPage(designId, initial);
+  if (data.total === 0) return <span className="text-sm text-slate-500">No revision saved yet</span>;
+  // Numbers run 1…latest without gaps, so the count is the latest number.
+  const latest = data.total;
+  const paged = data.lastPage > 1;
+  const step = 'rounded px-1.5 py-0.5 text-xs text-indigo-700 hover:bg-indigo-50 disabled:text-slate-300 disabled:hover:bg-transparent';
   return (
-    <nav className="flex flex-wrap items-center gap-1 text-sm" aria-label="Revisions" data-testid="revision-picker">
+    <nav className="flex flex-wrap items-center gap-1 text-sm" aria-label="Revisions" data-testid="revision-picker" aria-busy={loading || undefined}>
       <span className="mr-1 text-xs font-medium uppercase tracking-wide text-slate-500">Revisions</span>
-      {list.map((r) => (
-        <Link
-          key={r.number}
-          href={r.number === latest ? `/designs/${designId}` : `/designs/${designId}?r=${r.number}`}
-          aria-current={r.number === shown ? 'page' : undefined}
-          title={`${r.note || 'no note'} — ${r.authorName}, ${formatDateTime(r.createdAt)}`}
-          className={`rounded px-2 py-0.5 font-mono text-xs ${
-            r.number === shown ? 'bg-indigo-600 text-white' : 'bg-slate-100 text-slate-700 hover:bg-slate-200'
-          }`}
-        >
-          r{r.number}
-        </Link>
-      ))}
-      {isError && <span className="text-xs text-red-700">(could not refresh the list)</span>}
+      {paged && (
+        <button type="button" className={step} onClick={older ?? undefined} disabled={!older} data-testid="revisions-older" aria-label="Older revisions">
+          ‹ Older
+        </button>
+      )}
+      <div className={`flex flex-wrap items-center gap-1 ${paged ? 'max-h-[4.5rem] max-w-full overflow-y-auto' : ''} ${loading ? 'opacity-60' : ''}`} data-testid="revision-chips">
+        {[...data.revisions].reverse().map((r) => (
+          <Link
+            key={r.number}
+            href={r.number === latest ? `/designs/${designId}` : `/designs/${designId}?r=${r.number}`}
+            aria-current={r.number === shown ? 'page' : undefined}
+            title={`${r.note || 'no note'} — ${r.authorName}, ${formatDateTime(r.createdAt)}`}
+            className={`rounded px-2 py-0.5 font-mono text-xs ${r.number === shown ? 'bg-indigo-600 text-white' : 'bg-slate-100 text-slate-700 hover:bg-slate-200'}`}
+          >
+            r{r.number}
+          </Link>
+        ))}
+      </div>
+      {paged && (
+        <>
+          <button type="button" className={step} onClick={newer ?? undefined} disabled={!newer} data-testid="revisions-newer" aria-label="Newer revisions">
+            Newer ›
+          </button>
+          <span className="num text-xs text-slate-500" data-testid="revisions-range">
+            {range ? `r${range.oldest}–r${range.newest}` : ''} of {formatCount(data.total)}
+          </span>
+        </>
+      )}
+      {isError && <span className="text-xs text-red-700">(could not load the list)</span>}
     </nav>
   );
 }

@@ -9,7 +9,7 @@ import { defaultSweep } from '@/lib/engine/sweep';
 import type { AnalyzeRequest, CompensatorShape, CompensatorType, FieldIssue, PartsOptions, SweepOptions } from '@/lib/engine/types';
 import { MODULATOR_MODE_LABELS } from '@/lib/catalog';
 import { useBenchOverlay } from '@/lib/queries/bench';
-import type { RevisionListItem, SavedRevision } from '@/lib/queries/revisions';
+import type { RevisionBriefPage, SavedRevision } from '@/lib/queries/revisions';
 import { cornerTraces } from '@/components/range/corner-traces';
 import { CornerViewToggle, RangePanel } from '@/components/range/range-panel';
 import { useRangeAnalysis } from '@/components/range/use-range-analysis';
@@ -65,7 +65,8 @@ export interface TuneScreenProps {
   latestRevision: number | null;
   mode: TuneMode;
   role: string;
-  revisions: Pick<RevisionListItem, 'number' | 'note' | 'authorName' | 'createdAt'>[];
+  /** The page of revisions (100, newest first) that holds the one shown. */
+  revisions: RevisionBriefPage;
 }
 
 const NO_ISSUES: FieldIssue[] = [];
@@ -207,7 +208,7 @@ export function TuneScreen({ designId, initialInput, savedInput, editFrom = null
   return (
     <div className={`space-y-4 ${scratch ? 'rounded-lg outline-dashed outline-2 outline-offset-4 outline-amber-500' : ''}`} data-testid="tune" data-mode={mode} data-scratch={scratch || undefined}>
       <div className="card flex flex-wrap items-center gap-x-6 gap-y-2 px-4 py-3">
-        <RevisionPicker designId={designId} shown={shownRevision} initial={revisions} />
+        <RevisionPicker key={shownRevision ?? 0} designId={designId} shown={shownRevision} initial={revisions} />
         {!readOnly && (
           <div className="flex items-center gap-1" role="group" aria-label="Undo and redo">
             <Button size="sm" onClick={doUndo} disabled={!canUndo(state)} title="Undo the last edit (Ctrl+Z)" data-testid="undo">

@@ -1,7 +1,7 @@
-import { and, asc, count, desc, eq, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, gt, lte, sql } from 'drizzle-orm';
 import { PAGE_SIZE, pageWindow } from '../../lib/paging';
 import type { Db } from '../connection';
-import type { AnalyzeRequest } from '../../lib/engine/types';
+import type { AnalyzeRequest, Margins } from '../../lib/engine/types';
 import type { RevisionSummary } from '../../lib/revision-summary';
 import { revisions, users } from '../schema';
 import { writeAudit } from './audit';
@@ -111,33 +111,39 @@ export function getRevision(db: Db, designId: number, number: number) {
 }
 
 /**
- * One page of a design's revisions, newest first, without their stored input (the history table
- * shows number, author, note, margins): 100 a page on the unique index (design, number).
- * Numbers run 1…latest without gaps (revisions are never deleted), so revision n is on page
- * floor((latest − n) / 100) + 1 (revisionPageOf).
+ * One page of a design's revisions, newest first, with their margins but not their input or full
+ * summary (the history table, Tune's and Compare's pickers and GET /api/designs/:id/revisions show
+ * number, author, note, margins): 100 a page. Numbers run 1…latest without gaps (revisions are never deleted), so the
+ * total is the latest number and page p is the number range (latest − 100p, latest − 100(p − 1)]:
+ * both are seeks on the unique index (design, number), whatever the page and the design's size
+ * (no OFFSET walk, no count). Revision n is on page floor((latest − n) / 100) + 1 (revisionPageOf).
  */
 export function listRevisionPage(db: Db, designId: number, page: number) {
-  const total = db.select({ n: count() }).from(revisions).where(eq(revisions.designId, designId)).get()?.n ?? 0;
+  const total = latestRevisionNumber(db, designId) ?? 0;
   const w = pageWindow(total, page);
+  const newest = total - w.offset;
   const rows = db
     .select({
       id: revisions.id,
       number: revisions.number,
       baseNumber: revisions.baseNumber,
-      summary: revisions.summary,
+      // Only the margins of the stored summary (a few hundred bytes of its ~2 kB), read by SQLite.
+      margins: sql<string | null>`json_extract(${revisions.summary}, '$.margins')`.mapWith((v: string | null): Margins | null => (v == null ? null : JSON.parse(v))),
+      authorId: revisions.authorId,
       authorName: users.name,
       note: revisions.note,
       createdAt: revisions.createdAt,
     })
     .from(revisions)
     .innerJoin(users, eq(users.id, revisions.authorId))
-    .where(eq(revisions.designId, designId))
+    .where(and(eq(revisions.designId, designId), lte(revisions.number, newest), gt(revisions.number, newest - w.pageSize)))
     .orderBy(desc(revisions.number))
-    .limit(w.pageSize)
-    .offset(w.offset)
     .all();
   return { revisions: rows, total, page: w.page, lastPage: w.lastPage, pageSize: w.pageSize };
 }
+
+/** What GET /api/designs/:id/revisions answers: one page, `{ revisions, total, page, lastPage, pageSize }`. */
+export type RevisionPage = ReturnType<typeof listRevisionPage>;
 
 /** The history page (newest first, PAGE_SIZE a page) that holds revision `number` of `latest`. */
 export const revisionPageOf = (latest: number, number: number) => Math.floor(Math.max(0, latest - number) / PAGE_SIZE) + 1;

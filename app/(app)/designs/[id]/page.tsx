@@ -1,12 +1,13 @@
 import { notFound } from 'next/navigation';
 import { getDb } from '@/db/client';
-import { getDesign, getLatestRevision, getRevision, listRevisions } from '@/db/queries';
+import { getDesign, getLatestRevision, getRevision, listRevisionPage, revisionPageOf } from '@/db/queries';
 import { can, requireUser } from '@/lib/auth';
 import { SAMPLE_DESIGNS } from '@/lib/engine/samples';
 import type { AnalyzeRequest, Topology } from '@/lib/engine/types';
 import { CautionsPanel } from '@/components/cautions-panel';
 import { preloadPlotly } from '@/components/plot/preload-plotly';
 import { TuneScreen, type TuneMode } from '@/components/tune/tune-screen';
+import { briefPage } from '@/lib/queries/revisions';
 
 /** A new design starts from the engine's sample of its topology. */
 function startingInput(topology: Topology): AnalyzeRequest {
@@ -35,12 +36,8 @@ export default async function TunePage({ params, searchParams }: { params: Promi
   const fromNumber = r === null && mode === 'edit' && latest ? revisionParam(q.from) : null;
   const from = fromNumber !== null ? (Number.isNaN(fromNumber) ? undefined : getRevision(db, design.id, fromNumber)) : null;
   if (from === undefined) notFound();
-  const revisions = listRevisions(db, design.id).map((x) => ({
-    number: x.number,
-    note: x.note,
-    authorName: x.authorName,
-    createdAt: new Date(x.createdAt).toISOString(),
-  }));
+  // Only the page of revisions holding the one shown (100, newest first); the picker pages through the rest.
+  const revisions = briefPage(listRevisionPage(db, design.id, latest && shown ? revisionPageOf(latest.number, shown.number) : 1));
   const shownInput = shown ? shown.input : startingInput(design.topology);
   return (
     <div className="space-y-4">

@@ -48,7 +48,7 @@ export default async function HistoryPage({ params, searchParams }: Props) {
   const shown = list.revisions.map((x) => x.number);
   const states = listSignoffStates(db, design.id, { from: Math.min(...shown), to: Math.max(...shown) });
   const rows: RevisionRow[] = list.revisions.map((rev) => {
-      const margins = rev.summary.margins;
+      const margins = rev.margins;
       return {
         number: rev.number,
         baseNumber: rev.baseNumber,

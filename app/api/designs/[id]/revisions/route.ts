@@ -1,18 +1,25 @@
 import { NextResponse } from 'next/server';
 import { getDb } from '@/db/client';
-import { createRevision, listRevisions } from '@/db/queries';
+import { createRevision, listRevisionPage } from '@/db/queries';
 import { analyze } from '@/lib/engine/analyze';
 import { can } from '@/lib/auth';
 import { HttpError, parseJson, withUser } from '@/lib/api';
 import { requireActiveDesign, requireDesign } from '@/lib/design-access';
 import { savedRevisionBody, summarizeAnalysis } from '@/lib/revision-summary';
-import { revisionCreateSchema } from '@/lib/validation/revision';
+import { revisionCreateSchema, revisionListQuerySchema } from '@/lib/validation/revision';
+import { zodIssues } from '@/lib/validation/analyze';
 
 type P = { id: string };
 
-export const GET = withUser<P>(async (_req, { user, params }) => {
+/**
+ * A design's revisions, newest first, 100 a page (`?page=N`, default 1; past the end serves the last page):
+ * `{ revisions, total, page, lastPage, pageSize }`, each row without its input (GET …/revisions/:n has it).
+ */
+export const GET = withUser<P>(async (req, { user, params }) => {
   const design = requireDesign(user, params.id);
-  return NextResponse.json({ revisions: listRevisions(getDb(), design.id) });
+  const query = revisionListQuerySchema.safeParse({ page: new URL(req.url).searchParams.get('page') ?? undefined });
+  if (!query.success) throw new HttpError(422, 'The page asked for does not exist', zodIssues(query.error));
+  return NextResponse.json(listRevisionPage(getDb(), design.id, query.data.page));
 });
 
 /** Save a new immutable revision; the server re-runs the analysis it stores. */
