@@ -1,30 +1,29 @@
 'use client';
 
 import { useRouter } from 'next/navigation';
+import type { RevisionBriefPage } from '@/lib/queries/revisions';
+import { RevisionSelect } from '@/components/revisions/revision-select';
 
-/** Choose the two revisions to compare; A is drawn dashed, B solid. */
-export function ComparePicker({ designId, numbers, a, b }: { designId: number; numbers: number[]; a: number; b: number }) {
+/**
+ * Choose the two revisions to compare; A is drawn dashed, B solid. Each list holds one page of
+ * revisions (the one holding its choice) and pages through the rest on demand.
+ */
+export function ComparePicker({ designId, a, b, pageA, pageB }: { designId: number; a: number; b: number; pageA: RevisionBriefPage; pageB: RevisionBriefPage }) {
   const router = useRouter();
   const go = (na: number, nb: number) => router.push(`/designs/${designId}/compare?a=${na}&b=${nb}`);
-  const select = (label: string, value: number, onChange: (n: number) => void, testId: string) => (
-    <label className="flex items-center gap-2 text-sm">
-      <span className="font-medium text-slate-600">{label}</span>
-      <select className="input w-24 py-1" value={value} onChange={(e) => onChange(Number(e.target.value))} data-testid={testId} aria-label={`Revision ${label}`}>
-        {numbers.map((n) => (
-          <option key={n} value={n}>
-            r{n}
-          </option>
-        ))}
-      </select>
-    </label>
-  );
   return (
     <div className="flex flex-wrap items-center gap-3">
-      {select('A', a, (n) => go(n, b), 'compare-a')}
+      <label className="flex items-center gap-2 text-sm">
+        <span className="font-medium text-slate-600">A</span>
+        <RevisionSelect key={`a${a}`} designId={designId} initial={pageA} value={a} onPick={(n) => go(n, b)} label="A" testId="compare-a" />
+      </label>
       <button type="button" className="btn-secondary px-2 py-1" onClick={() => go(b, a)} title="Swap A and B" aria-label="Swap A and B">
         ⇄
       </button>
-      {select('B', b, (n) => go(a, n), 'compare-b')}
+      <label className="flex items-center gap-2 text-sm">
+        <span className="font-medium text-slate-600">B</span>
+        <RevisionSelect key={`b${b}`} designId={designId} initial={pageB} value={b} onPick={(n) => go(a, n)} label="B" testId="compare-b" />
+      </label>
     </div>
   );
 }

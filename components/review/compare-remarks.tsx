@@ -1,52 +1,108 @@
 'use client';
 
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useState } from 'react';
+import { keepPreviousData, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useSearchParams } from 'next/navigation';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
 import { formatDateTime } from '@/lib/format';
-import { addRemark } from '@/lib/queries/review';
+import { pageParam } from '@/lib/paging';
+import { addRemark, remarkKeys, remarkPageQueryOptions, type RemarkListPage } from '@/lib/queries/review';
 import { remarkSchema } from '@/lib/validation/signoff';
 import { Button } from '@/components/ui/button';
 import { Field, FormError, inputClass } from '@/components/ui/field';
+import { Pager } from '@/components/ui/pager';
 import { useReviewWrite } from './use-review-write';
 
-export interface CompareRemark {
-  id: number;
-  number: number;
-  authorName: string;
-  body: string;
-  comparedWith: number | null;
-  at: string;
-}
+/** The URL parameter holding each side's page of remarks (so Back and a shared link keep it). */
+export const REMARK_PAGE_PARAM = { a: 'remarksA', b: 'remarksB' } as const;
+type Side = keyof typeof REMARK_PAGE_PARAM;
 
 /** The shared remark schema plus which of the two revisions the remark is on. */
 const formSchema = remarkSchema.pick({ body: true }).extend({ target: z.enum(['a', 'b']) });
 type FormValues = z.input<typeof formSchema>;
 const FIELDS = ['body', 'target'] as const;
 
+/** Put a side's remark page in the address without asking the server for the page again (Next keeps its router in step). */
+function showPage(side: Side, page: number) {
+  const url = new URL(window.location.href);
+  if (page > 1) url.searchParams.set(REMARK_PAGE_PARAM[side], String(page));
+  else url.searchParams.delete(REMARK_PAGE_PARAM[side]);
+  window.history.pushState(null, '', url);
+}
+
+/** One revision's remarks, newest first, 100 a page through the remarks API. */
+function RemarkList({ designId, side, number, initial }: { designId: number; side: Side; number: number; initial: RemarkListPage }) {
+  const page = pageParam(useSearchParams().get(REMARK_PAGE_PARAM[side]) ?? undefined);
+  const query = useQuery({
+    ...remarkPageQueryOptions(designId, number, page),
+    initialData: page === initial.page ? initial : undefined,
+    placeholderData: keepPreviousData,
+  });
+  const data = query.data ?? initial;
+  return (
+    <div data-testid={`compare-remarks-${side}`} aria-busy={(query.isFetching && query.isPlaceholderData) || undefined}>
+      <h3 className="text-sm font-medium text-slate-600">
+        On r{number} ({side.toUpperCase()})
+      </h3>
+      <ol className="mt-1 space-y-2">
+        {data.total === 0 && <li className="text-sm text-slate-500">No remarks on r{number} yet.</li>}
+        {data.remarks.map((m) => (
+          <li key={m.id} className="rounded-md border border-slate-200 px-3 py-2 text-sm">
+            <div className="flex flex-wrap items-baseline gap-x-2 text-xs text-slate-500">
+              <span className="font-medium text-slate-800">{m.authorName}</span>
+              <span>
+                on r{number}
+                {m.comparedWith ? ` (comparing with r${m.comparedWith})` : ''}
+              </span>
+              <span className="num ml-auto">{formatDateTime(m.createdAt)}</span>
+            </div>
+            <p className="mt-1 whitespace-pre-wrap text-slate-800">{m.body}</p>
+          </li>
+        ))}
+      </ol>
+      <Pager page={data.page} lastPage={data.lastPage} total={data.total} noun={`remarks on r${number}`} onPage={(p) => showPage(side, p)} testId={`compare-remarks-pager-${side}`} />
+      {query.isError && <p className="text-xs text-red-700">Could not load that page of remarks; try again.</p>}
+    </div>
+  );
+}
+
 /**
  * Remarks written while comparing two revisions: on either side (B by default), kept with
- * that revision and mailed to its author and reviewer. Earlier remarks of both are listed.
+ * that revision and mailed to its author and reviewer. Each revision's remarks are listed
+ * beside the other's, newest first, 100 a page (the page in the address).
  */
-export function CompareRemarks({ designId, a, b, remarks, canRemark }: { designId: number; a: number; b: number; remarks: CompareRemark[]; canRemark: boolean }) {
+export function CompareRemarks({
+  designId,
+  a,
+  b,
+  remarksA,
+  remarksB,
+  canRemark,
+}: {
+  designId: number;
+  a: number;
+  b: number;
+  remarksA: RemarkListPage;
+  remarksB: RemarkListPage;
+  canRemark: boolean;
+}) {
   const form = useForm<FormValues, unknown, z.output<typeof formSchema>>({ resolver: zodResolver(formSchema), defaultValues: { target: 'b', body: '' } });
-  // Remarks written here show at once; the page's refresh (which recomputes both worst cases,
-  // seconds on a busy server) brings the same rows from the server.
-  const [added, setAdded] = useState<CompareRemark[]>([]);
+  const queryClient = useQueryClient();
   const post = useReviewWrite(
     form,
     FIELDS,
     async (v: z.output<typeof formSchema>) => {
       const [number, other] = v.target === 'b' ? [b, a] : [a, b];
-      return { number, row: await addRemark(designId, number, { body: v.body, comparedWith: other }) };
+      return { side: v.target, number, row: await addRemark(designId, number, { body: v.body, comparedWith: other }) };
     },
-    ({ number, row }) => {
-      setAdded((list) => [...list, { id: row.id, number, authorName: row.authorName, body: row.body, comparedWith: row.comparedWith, at: row.createdAt }]);
+    ({ side, number }) => {
+      // The new remark is the newest: show that side's first page, read again.
+      showPage(side, 1);
+      void queryClient.invalidateQueries({ queryKey: remarkKeys.revision(designId, number) });
       form.reset({ target: form.getValues('target'), body: '' });
     },
   );
-  const shown = [...remarks, ...added.filter((m) => !remarks.some((r) => r.id === m.id))];
   const error = form.formState.errors.body?.message;
 
   return (
@@ -54,22 +110,10 @@ export function CompareRemarks({ designId, a, b, remarks, canRemark }: { designI
       <h2 id="compare-remarks-heading" className="font-semibold">
         Remarks on r{a} and r{b}
       </h2>
-      <ol className="mt-2 space-y-2" data-testid="compare-remark-list">
-        {shown.length === 0 && <li className="text-sm text-slate-500">No remarks on either revision yet.</li>}
-        {shown.map((m) => (
-          <li key={m.id} className="rounded-md border border-slate-200 px-3 py-2 text-sm">
-            <div className="flex flex-wrap items-baseline gap-x-2 text-xs text-slate-500">
-              <span className="font-medium text-slate-800">{m.authorName}</span>
-              <span>
-                on r{m.number}
-                {m.comparedWith ? ` (comparing with r${m.comparedWith})` : ''}
-              </span>
-              <span className="num ml-auto">{formatDateTime(m.at)}</span>
-            </div>
-            <p className="mt-1 whitespace-pre-wrap text-slate-800">{m.body}</p>
-          </li>
-        ))}
-      </ol>
+      <div className={`mt-2 grid gap-4 ${a !== b ? 'md:grid-cols-2' : ''}`} data-testid="compare-remark-list">
+        <RemarkList designId={designId} side="a" number={a} initial={remarksA} />
+        {a !== b && <RemarkList designId={designId} side="b" number={b} initial={remarksB} />}
+      </div>
       {canRemark && a !== b && (
         <form className="mt-3 space-y-2" aria-label="Remark on this comparison" onSubmit={form.handleSubmit((v) => post.mutate(v))} noValidate>
           <div className="flex flex-wrap items-center gap-3 text-sm">

@@ -41,6 +41,8 @@ export function listRemarksPage(db: Db, revisionId: number, page: number) {
   return { remarks: rows, total, page: w.page, lastPage: w.lastPage };
 }
 
+export type RemarkPage = ReturnType<typeof listRemarksPage>;
+
 /** Attach a remark to a revision (the revision itself stays untouched). */
 export function addRemark(
   db: Db,

@@ -121,8 +121,13 @@ export function getRevision(db: Db, designId: number, number: number) {
 export function listRevisionPage(db: Db, designId: number, page: number) {
   const total = latestRevisionNumber(db, designId) ?? 0;
   const w = pageWindow(total, page);
-  const newest = total - w.offset;
-  const rows = db
+  const rows = revisionPageQuery(db, designId, total - w.offset, w.pageSize).all();
+  return { revisions: rows, total, page: w.page, lastPage: w.lastPage, pageSize: w.pageSize };
+}
+
+/** The rows of one page: numbers (newest − size, newest], newest first (a test reads its query plan). */
+export function revisionPageQuery(db: Db, designId: number, newest: number, size: number) {
+  return db
     .select({
       id: revisions.id,
       number: revisions.number,
@@ -136,10 +141,8 @@ export function listRevisionPage(db: Db, designId: number, page: number) {
     })
     .from(revisions)
     .innerJoin(users, eq(users.id, revisions.authorId))
-    .where(and(eq(revisions.designId, designId), lte(revisions.number, newest), gt(revisions.number, newest - w.pageSize)))
-    .orderBy(desc(revisions.number))
-    .all();
-  return { revisions: rows, total, page: w.page, lastPage: w.lastPage, pageSize: w.pageSize };
+    .where(and(eq(revisions.designId, designId), lte(revisions.number, newest), gt(revisions.number, newest - size)))
+    .orderBy(desc(revisions.number));
 }
 
 /** What GET /api/designs/:id/revisions answers: one page, `{ revisions, total, page, lastPage, pageSize }`. */

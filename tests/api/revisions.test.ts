@@ -2,12 +2,13 @@
  * Issue 5: revisions are immutable and never lost. Every revision route ×
  * role, without a session and from another team; the save conflict (two
  * saves from one base → 201 + 409, then "save anyway"); the database refusing
- * an UPDATE of a revision row.
+ * an UPDATE of a revision row; the list 100 a page (a design with 250 revisions).
  */
 import Database from 'better-sqlite3';
 import { beforeAll, describe, expect, inject, it } from 'vitest';
 import { Client, signedInAs } from '../support/http';
 import { otherTeam } from '../support/other-team';
+import { addRevisions } from '../support/many-revisions';
 import { savedDesign, tweak, type AnalyzeInput } from '../support/saved-design';
 
 const baseUrl = inject('baseUrl');
@@ -30,9 +31,12 @@ describe('GET /api/designs/[id]/revisions', () => {
   it.each(ROLES)('%s lists the revisions with author and margins', async (role) => {
     const res = await clients[role].fetch(`/api/designs/${designId}/revisions`);
     expect(res.status).toBe(200);
-    const { revisions } = await res.json();
-    expect(revisions[0]).toMatchObject({ number: 1, authorName: 'Dara Designer', note: 'first' });
-    expect(revisions[0].summary.margins).toHaveProperty('phaseMarginDeg');
+    const { revisions, total } = await res.json();
+    const r1 = revisions.find((r: { number: number }) => r.number === 1);
+    expect(r1).toMatchObject({ number: 1, authorName: 'Dara Designer', note: 'first' });
+    expect(r1.margins).toHaveProperty('phaseMarginDeg');
+    expect(r1).not.toHaveProperty('input');
+    expect(revisions).toHaveLength(total);
   });
 
   it('401 without a session', async () => {
@@ -42,6 +46,47 @@ describe('GET /api/designs/[id]/revisions', () => {
   it("404 for another team's user, and for us on their design", async () => {
     expect((await outsider.client.fetch(`/api/designs/${designId}/revisions`)).status).toBe(404);
     expect((await clients.admin.fetch(`/api/designs/${outsider.designId}/revisions`)).status).toBe(404);
+  });
+});
+
+describe('GET /api/designs/[id]/revisions?page=N (a design with 250 revisions)', () => {
+  let long: number;
+  const page = async (q: string, role: (typeof ROLES)[number] = 'viewer') => clients[role].fetch(`/api/designs/${long}/revisions${q}`);
+  beforeAll(async () => {
+    long = (await savedDesign(clients.designer, 'Revision paging test rail')).designId;
+    expect(addRevisions(dbPath, long, 249)).toBe(250);
+  });
+
+  it('serves 100 a page, newest first, with total and lastPage; a viewer may read every page', async () => {
+    const p1 = await (await page('')).json();
+    expect(p1).toMatchObject({ total: 250, page: 1, lastPage: 3, pageSize: 100 });
+    expect(p1.revisions.map((r: { number: number }) => r.number)).toEqual(Array.from({ length: 100 }, (_, i) => 250 - i));
+    expect(p1.revisions[0]).toMatchObject({ note: 'bulk r250', authorName: 'Dara Designer' });
+    const p2 = await (await page('?page=2')).json();
+    expect(p2).toMatchObject({ total: 250, page: 2, lastPage: 3 });
+    expect(p2.revisions.map((r: { number: number }) => r.number)).toEqual(Array.from({ length: 100 }, (_, i) => 150 - i));
+    const p3 = await (await page('?page=3')).json();
+    expect(p3.revisions.map((r: { number: number }) => r.number)).toEqual(Array.from({ length: 50 }, (_, i) => 50 - i));
+  });
+
+  it('a page past the end serves the last page and says so', async () => {
+    const res = await page('?page=40');
+    expect(res.status).toBe(200);
+    const body = await res.json();
+    expect(body).toMatchObject({ page: 3, lastPage: 3 });
+    expect(body.revisions.at(-1).number).toBe(1);
+  });
+
+  it.each(['0', '-1', '1.5', 'two', ''])('page=%j → 422 naming page', async (value) => {
+    const res = await page(`?page=${value}`);
+    expect(res.status).toBe(422);
+    const body = await res.json();
+    expect(body.error).toEqual(expect.any(String));
+    expect(body.issues).toEqual([expect.objectContaining({ path: 'page', message: expect.stringMatching(/page/) })]);
+  });
+
+  it("404 for another team's user on any page", async () => {
+    expect((await outsider.client.fetch(`/api/designs/${long}/revisions?page=2`)).status).toBe(404);
   });
 });
 

@@ -36,7 +36,7 @@ const url = (n: number, what: string) => `/api/designs/${designId}/revisions/${n
 /** Save the next revision as `role`; returns its number. */
 async function saveNext(role: 'admin' | 'designer' = 'designer') {
   const { revisions } = await (await clients.viewer.fetch(`/api/designs/${designId}/revisions`)).json();
-  const base = revisions.at(-1).number;
+  const base = revisions[0].number; // newest first
   const res = await clients[role].json(`/api/designs/${designId}/revisions`, 'POST', { baseRevision: base, note: `by ${role}`, input: tweak(input, 'r1', 1 + base / 10) });
   expect(res.status).toBe(201);
   return (await res.json()).number as number;

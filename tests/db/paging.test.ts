@@ -3,9 +3,11 @@
  * a design's revisions (History), a revision's remarks and a member's mailbox.
  */
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { addRemark, createDesign, createRevision, createTeam, createUser, listMailPageForMember, listRemarksPage, listRevisionPage, listSignoffStates, revisionPageOf, storeMail } from '@/db/queries';
+import { addRemark, createDesign, createRevision, createTeam, createUser, listMailPageForMember, listRemarksPage, listRevisionPage, listSignoffStates, revisionPageOf, revisionPageQuery, storeMail } from '@/db/queries';
+import { latestRevisionNumber } from '@/db/queries/revisions';
 import type { OpenDb } from '@/db/connection';
-import { memberships } from '@/db/schema';
+import { eq, sql } from 'drizzle-orm';
+import { memberships, revisions } from '@/db/schema';
 import { pageParam, pageWindow } from '@/lib/paging';
 import { sampleRevisionBody } from '../support/sample-revision';
 import { tempDb } from '../support/temp-db';
@@ -49,6 +51,30 @@ describe('paging', () => {
       expect(page.revisions.some((r) => r.number === n), `r${n}`).toBe(true);
     }
     expect([...listSignoffStates(db, designId, { from: 101, to: 200 }).keys()].sort((a, b) => a - b)).toEqual(Array.from({ length: 100 }, (_, i) => 101 + i));
+  });
+
+  it('reads a page of revisions and the total by seeks on the unique index (design, number): no scan, no temporary B-tree for the order', () => {
+    const body = sampleRevisionBody();
+    const other = createDesign(db, designer, team, { name: 'Other', topology: 'buck' }).id;
+    db.transaction((tx) => {
+      for (let n = 1; n <= 300; n++) createRevision(tx, { teamId: team, designId, baseNumber: n === 1 ? null : n - 1, ...body, authorId: designer, note: '' });
+      for (let n = 1; n <= 50; n++) createRevision(tx, { teamId: team, designId: other, baseNumber: n === 1 ? null : n - 1, ...body, authorId: designer, note: '' });
+    });
+    db.$client.exec('ANALYZE');
+    const plan = (q: { toSQL(): { sql: string; params: unknown[] } }) => {
+      const { sql, params } = q.toSQL();
+      return (db.$client.prepare(`EXPLAIN QUERY PLAN ${sql}`).all(...params) as { detail: string }[]).map((r) => r.detail).join('\n');
+    };
+    for (const page of [1, 2, 3]) {
+      const p = plan(revisionPageQuery(db, designId, 300 - (page - 1) * 100, 100));
+      expect(p, p).toMatch(/SEARCH revisions USING INDEX revisions_design_number \(design_id=\? AND number>\? AND number<\?\)/);
+      expect(p, p).not.toMatch(/TEMP B-TREE|SCAN revisions/);
+    }
+    const latest = plan(db.select({ n: sql`max(${revisions.number})` }).from(revisions).where(eq(revisions.designId, designId)));
+    expect(latest, latest).toMatch(/revisions_design_number/);
+    expect(latest).not.toMatch(/SCAN revisions/);
+    expect(latestRevisionNumber(db, designId)).toBe(300);
+    expect(listRevisionPage(db, other, 1)).toMatchObject({ total: 50, lastPage: 1 });
   });
 
   it('serves a revision\'s remarks 100 a page, newest first', () => {

@@ -1,6 +1,8 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { listRemarks, listRevisions, listSignoffStates } from '@/db/queries';
+import { getLatestRevision, getRevision, getSignoffState, listRemarksPage, listRevisionPage, revisionPageOf } from '@/db/queries';
+import { PAGE_SIZE, pageParam } from '@/lib/paging';
+import { briefPage } from '@/lib/queries/revisions';
 import { can } from '@/lib/auth';
 import { loadDesignPage } from '@/lib/design-page';
 import { analyze } from '@/lib/engine/analyze';
@@ -9,7 +11,7 @@ import { diffRevisions, marginDeltas, type RevisionSide } from '@/lib/revision-d
 import type { RevisionSummary } from '@/lib/revision-summary';
 import { SignoffBadge } from '@/components/designs/signoff-badge';
 import { ComparePicker } from '@/components/review/compare-picker';
-import { CompareRemarks, type CompareRemark } from '@/components/review/compare-remarks';
+import { CompareRemarks } from '@/components/review/compare-remarks';
 import { ComparePlot, type CompareLoop } from '@/components/review/compare-plot';
 import { DiffTable } from '@/components/review/diff-table';
 import { formatDateTime } from '@/lib/format';
@@ -22,7 +24,7 @@ import { summarizeRange } from '@/lib/range-summary';
 
 export const metadata: Metadata = { title: 'Compare' };
 
-type Props = { params: Promise<{ id: string }>; searchParams: Promise<{ a?: string; b?: string }> };
+type Props = { params: Promise<{ id: string }>; searchParams: Promise<{ a?: string; b?: string; remarksA?: string; remarksB?: string }> };
 
 /** The loop of a stored revision, recomputed from its saved input (the stored summary keeps no Bode arrays). */
 function loopOf(label: string, input: AnalyzeRequest, summary: RevisionSummary): CompareLoop | null {
@@ -38,11 +40,12 @@ export default async function ComparePage({ params, searchParams }: Props) {
   const [{ id }, q] = await Promise.all([params, searchParams]);
   const { user, db, design } = await loadDesignPage(id);
 
-  const revisions = listRevisions(db, design.id);
-  if (revisions.length < 2)
+  // Only the two revisions compared and a page of numbers for each picker are read, whatever the design's length.
+  const latest = getLatestRevision(db, design.id);
+  if (!latest || latest.number < 2)
     return (
       <div className="card p-8 text-center text-slate-600">
-        Compare needs two revisions; this design has {revisions.length === 0 ? 'none' : 'one'} so far. Each save on{' '}
+        Compare needs two revisions; this design has {latest ? 'one' : 'none'} so far. Each save on{' '}
         <Link href={`/designs/${design.id}`} className="text-indigo-700 underline">
           Tune
         </Link>{' '}
@@ -50,12 +53,16 @@ export default async function ComparePage({ params, searchParams }: Props) {
       </div>
     );
 
-  const byNumber = new Map(revisions.map((r) => [r.number, r]));
-  const latest = revisions[revisions.length - 1];
-  const b = byNumber.get(Number(q.b)) ?? latest;
-  const fallbackA = b.baseNumber ?? (b.number > 1 ? b.number - 1 : revisions[revisions.length - 1].number);
-  const a = byNumber.get(Number(q.a)) ?? byNumber.get(fallbackA) ?? revisions[0];
-  const missing = [q.a && !byNumber.has(Number(q.a)) ? `r${q.a}` : null, q.b && !byNumber.has(Number(q.b)) ? `r${q.b}` : null].filter(Boolean);
+  const revisionOf = (v: string | undefined) => (v !== undefined && /^\d{1,9}$/.test(v) ? getRevision(db, design.id, Number(v)) : undefined);
+  const askedA = revisionOf(q.a);
+  const askedB = revisionOf(q.b);
+  const b = askedB ?? latest;
+  const fallbackA = b.baseNumber ?? (b.number > 1 ? b.number - 1 : latest.number);
+  const a = askedA ?? getRevision(db, design.id, fallbackA) ?? latest;
+  const missing = [q.a && !askedA ? `r${q.a}` : null, q.b && !askedB ? `r${q.b}` : null].filter(Boolean);
+  const pickerPage = (n: number) => briefPage(listRevisionPage(db, design.id, revisionPageOf(latest.number, n)));
+  const pageA = pickerPage(a.number);
+  const pageB = revisionPageOf(latest.number, a.number) === revisionPageOf(latest.number, b.number) ? pageA : pickerPage(b.number);
 
   const side = (r: typeof a): RevisionSide => ({ input: r.input, summary: r.summary });
   const labelA = `r${a.number}`;
@@ -64,14 +71,18 @@ export default async function ComparePage({ params, searchParams }: Props) {
   const deltas = marginDeltas(side(a), side(b));
   const loopA = loopOf(labelA, side(a).input, side(a).summary);
   const loopB = loopOf(labelB, side(b).input, side(b).summary);
-  const states = listSignoffStates(db, design.id);
+  const states = new Map([a, b].map((r) => [r.number, getSignoffState(db, r.id)]));
   // Both revisions answer the same step: B's own (or A's, or half to full load).
   const step = side(b).input.step ?? stepOf(side(a).input);
   const stepA = stepResponseOf(labelA, side(a).input, step);
   const stepB = stepResponseOf(labelB, side(b).input, step);
-  const remarks: CompareRemark[] = [a, ...(a.number === b.number ? [] : [b])]
-    .flatMap((r) => listRemarks(db, r.id).map((m) => ({ id: m.id, number: r.number, authorName: m.authorName, body: m.body, comparedWith: m.comparedWith, at: m.createdAt.toISOString() })))
-    .sort((x, y) => x.at.localeCompare(y.at) || x.id - y.id);
+  // Each side's remarks, newest first, 100 a page (the page in ?remarksA= / ?remarksB=); the list pages on through the API.
+  const remarkPage = (r: typeof a, page: string | undefined) => {
+    const p = listRemarksPage(db, r.id, pageParam(page));
+    return { ...p, pageSize: PAGE_SIZE, remarks: p.remarks.map((m) => ({ ...m, createdAt: m.createdAt.toISOString() })) };
+  };
+  const remarksA = remarkPage(a, q.remarksA);
+  const remarksB = a.number === b.number ? remarksA : remarkPage(b, q.remarksB);
   // Worst case across each revision's own operating range (corners and a fixed-seed spread).
   const rangeA = summarizeRange(side(a).input);
   const rangeB = summarizeRange(side(b).input);
@@ -79,7 +90,7 @@ export default async function ComparePage({ params, searchParams }: Props) {
   return (
     <div className="space-y-4" data-testid="compare">
       <div className="flex flex-wrap items-center gap-4">
-        <ComparePicker designId={design.id} numbers={revisions.map((r) => r.number).reverse()} a={a.number} b={b.number} />
+        <ComparePicker designId={design.id} a={a.number} b={b.number} pageA={pageA} pageB={pageB} />
         <Link href={`/designs/${design.id}/history?r=${b.number}`} className="ml-auto text-sm text-indigo-700 hover:underline">
           Sign-off of {labelB} →
         </Link>
@@ -126,7 +137,7 @@ export default async function ComparePage({ params, searchParams }: Props) {
       )}
 
       {stepA && stepB && <StepCompare a={stepA} b={stepB} title={describeStep(step)} />}
-      <CompareRemarks designId={design.id} a={a.number} b={b.number} remarks={remarks} canRemark={can.remark(user.role)} />
+      <CompareRemarks designId={design.id} a={a.number} b={b.number} remarksA={remarksA} remarksB={remarksB} canRemark={can.remark(user.role)} />
 
       <DiffTable rows={rows} labelA={labelA} labelB={labelB} />
     </div>
