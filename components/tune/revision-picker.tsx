@@ -7,10 +7,24 @@ import { useRevisionPage } from '@/components/revisions/use-revision-page';
 
 /**
  * Links to the design's saved revisions, 100 at a time (the page holding the one shown, oldest to
- * newest left to right; Older/Newer page through the API): the latest opens for editing, earlier
- * ones read-only. A design with thousands of revisions opens Tune with one page of them.
+ * newest left to right; Older/Newer page through the API). On Tune the latest opens for editing,
+ * earlier ones read-only; Handoff uses the same picker. A design with thousands of revisions opens
+ * with one page of them.
  */
-export function RevisionPicker({ designId, shown, initial }: { designId: number; shown: number | null; initial: RevisionBriefPage }) {
+export function RevisionPicker({
+  designId,
+  shown,
+  initial,
+  path = `/designs/${designId}`,
+  label = 'Revisions',
+}: {
+  designId: number;
+  shown: number | null;
+  initial: RevisionBriefPage;
+  /** The screen each link opens (`?r=N` added for all but the latest): Tune by default, or Handoff. */
+  path?: string;
+  label?: string;
+}) {
   const { data, range, newer, older, loading, isError } = useRevisionPage(designId, initial);
   if (data.total === 0) return <span className="text-sm text-slate-500">No revision saved yet</span>;
   // Numbers run 1…latest without gaps, so the count is the latest number.
@@ -18,8 +32,8 @@ export function RevisionPicker({ designId, shown, initial }: { designId: number;
   const paged = data.lastPage > 1;
   const step = 'rounded px-1.5 py-0.5 text-xs text-indigo-700 hover:bg-indigo-50 disabled:text-slate-300 disabled:hover:bg-transparent';
   return (
-    <nav className="flex flex-wrap items-center gap-1 text-sm" aria-label="Revisions" data-testid="revision-picker" aria-busy={loading || undefined}>
-      <span className="mr-1 text-xs font-medium uppercase tracking-wide text-slate-500">Revisions</span>
+    <nav className="flex flex-wrap items-center gap-1 text-sm" aria-label={label} data-testid="revision-picker" aria-busy={loading || undefined}>
+      <span className="mr-1 text-xs font-medium uppercase tracking-wide text-slate-500">{label}</span>
       {paged && (
         <button type="button" className={step} onClick={older ?? undefined} disabled={!older} data-testid="revisions-older" aria-label="Older revisions">
           ‹ Older
@@ -29,7 +43,7 @@ export function RevisionPicker({ designId, shown, initial }: { designId: number;
         {[...data.revisions].reverse().map((r) => (
           <Link
             key={r.number}
-            href={r.number === latest ? `/designs/${designId}` : `/designs/${designId}?r=${r.number}`}
+            href={r.number === latest ? path : `${path}?r=${r.number}`}
             aria-current={r.number === shown ? 'page' : undefined}
             title={`${r.note || 'no note'} — ${r.authorName}, ${formatDateTime(r.createdAt)}`}
             className={`rounded px-2 py-0.5 font-mono text-xs ${r.number === shown ? 'bg-indigo-600 text-white' : 'bg-slate-100 text-slate-700 hover:bg-slate-200'}`}

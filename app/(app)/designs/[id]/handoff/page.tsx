@@ -1,7 +1,9 @@
 import { formatIsoDay } from '@/lib/format';
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { getSignoffState, listRevisions } from '@/db/queries';
+import { getLatestRevision, getRevision, getSignoffState, listRevisionPage, revisionPageOf } from '@/db/queries';
+import { briefPage } from '@/lib/queries/revisions';
+import { RevisionPicker } from '@/components/tune/revision-picker';
 import { can } from '@/lib/auth';
 import { loadDesignPage } from '@/lib/design-page';
 import { analyze } from '@/lib/engine/analyze';
@@ -25,9 +27,9 @@ export default async function HandoffPage({ params, searchParams }: Props) {
   const [{ id }, { r }] = await Promise.all([params, searchParams]);
   const { user, db, design } = await loadDesignPage(id);
   const canEdit = can.editDesigns(user.role);
-  const revisions = listRevisions(db, design.id);
+  const latest = getLatestRevision(db, design.id);
 
-  if (revisions.length === 0)
+  if (!latest)
     return (
       <div className="space-y-4">
         <div className="card p-8 text-center text-slate-600">
@@ -41,8 +43,9 @@ export default async function HandoffPage({ params, searchParams }: Props) {
       </div>
     );
 
-  const latest = revisions[revisions.length - 1];
-  const revision = revisions.find((x) => String(x.number) === r) ?? latest;
+  const revision = (r && /^\d{1,9}$/.test(r) ? getRevision(db, design.id, Number(r)) : undefined) ?? latest;
+  // One page of revision links (the one holding the revision shown); the picker pages through the rest.
+  const revisionPage = briefPage(listRevisionPage(db, design.id, revisionPageOf(latest.number, revision.number)));
   const input = revision.input;
   const result = analyze(input);
   const rows = buildPartsList(result.parts, input.compensator.type, design.designatorMap, input.compensator.amplifier);
@@ -54,24 +57,7 @@ export default async function HandoffPage({ params, searchParams }: Props) {
       <CautionsPanel />
 
       <section className="card flex flex-wrap items-center gap-x-6 gap-y-3 p-4">
-        <div>
-          <span className="label">Revision</span>
-          <nav className="flex flex-wrap gap-1" aria-label="Revision to hand off">
-            {revisions
-              .slice()
-              .reverse()
-              .map((x) => (
-                <Link
-                  key={x.number}
-                  href={`/designs/${design.id}/handoff?r=${x.number}`}
-                  aria-current={x.number === revision.number ? 'page' : undefined}
-                  className={`rounded px-2 py-0.5 text-sm ${x.number === revision.number ? 'bg-indigo-600 font-semibold text-white' : 'bg-slate-100 text-slate-700 hover:bg-slate-200'}`}
-                >
-                  r{x.number}
-                </Link>
-              ))}
-          </nav>
-        </div>
+        <RevisionPicker key={revision.number} designId={design.id} shown={revision.number} initial={revisionPage} path={`/designs/${design.id}/handoff`} label="Revision to hand off" />
         <div className="text-sm text-slate-600">
           <SignoffBadge state={state} /> <span className="ml-2">saved {formatIsoDay(revision.createdAt)} by {revision.authorName}</span>
           {revision.note && <span className="ml-2 italic">“{revision.note}”</span>}
