@@ -1,7 +1,8 @@
 /**
  * `npm run bench`: printed timings with their targets, in sections —
  *   engine   median wall time of named engine cases (add one by pushing to BENCH_CASES);
- *   list     the designs list's query on 10 / 100 / 10,000 designs (scripts/bench/list.ts);
+ *   list     the designs list's query on 10 / 100 / 10,000 designs, and a design's revisions page on
+ *            10 / 100 / 10,000 revisions (scripts/bench/list.ts);
  *   load     autocannon against the production build (scripts/bench/load.ts);
  *   browser  Chromium, cold cache: first drawn loop on Tune, JavaScript per page (scripts/bench/browser.ts).
  * `npm run bench -- --only load` (or engine, list, browser; comma-separated) runs some sections.
@@ -17,7 +18,7 @@ import type { AnalyzeRequest, CompensatorShape } from '@/lib/engine/types';
 import { tuneDragCase } from '@/components/tune/drag-bench';
 import { loadSection, printLoad } from './bench/load';
 import { browserSection, printBrowser } from './bench/browser';
-import { listSection, printList } from './bench/list';
+import { listSection, printList, printRevisions, revisionsSection } from './bench/list';
 import { defaultRange } from '@/lib/engine/range';
 import { runSpread } from '@/lib/engine/spread';
 import { analyzeCorners } from '@/lib/engine/corners';
@@ -203,7 +204,10 @@ const main = async () => {
   if (load > os.cpus().length) console.log('  (the machine is busy: medians include other processes; "best" is closer to the engine alone)');
   const t0 = Date.now();
   if (sections.includes('engine')) engineSection();
-  if (sections.includes('list')) printList(listSection());
+  if (sections.includes('list')) {
+    printList(listSection());
+    printRevisions(revisionsSection());
+  }
   if (sections.includes('load')) printLoad(await loadSection());
   if (sections.includes('browser')) printBrowser(await browserSection());
   console.log(`\nBench took ${((Date.now() - t0) / 1000).toFixed(0)} s.`);

@@ -5,13 +5,18 @@
  * practice for "flat" on a noisy machine). A team of 100 serves the same full page of 100 rows as
  * the large team; the team of 10 serves 10 rows, so its time (printed) is less work, not a baseline.
  * The text filter reads every row of the team and is shown, not held to it.
+ * Also a design's revisions (listRevisionPage, the API's and the pickers' page): 10, 100 and
+ * 10,000 revisions, the first (newest) and the last page, held to the same 3×.
  */
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { openDatabase } from '@/db/connection';
-import { createTeam, createUser, listDesignsPage } from '@/db/queries';
-import { designs, memberships } from '@/db/schema';
+import { createTeam, createUser, listDesignsPage, listRevisionPage } from '@/db/queries';
+import { analyze } from '@/lib/engine/analyze';
+import { SAMPLE_DESIGNS } from '@/lib/engine/samples';
+import { summarizeAnalysis } from '@/lib/revision-summary';
+import { designs, memberships, revisions } from '@/db/schema';
 import { readDesignListQuery, type DesignListQuery } from '@/lib/designs-list-query';
 
 export interface ListRow {
@@ -80,6 +85,49 @@ export function printList(rows: ListRow[]) {
     const verdict = r.held ? `target 10,000 vs 100 ≤ 3×: ${ratio <= 3 ? 'within target' : 'ABOVE target'}` : 'shown, no target (reads every row of the team)';
     console.log(
       `- ${r.name}: ${r.smallUs.toFixed(0)} / ${r.pageUs.toFixed(0)} / ${r.largeUs.toFixed(0)} µs (10,000 vs 100: ${ratio.toFixed(1)}×; vs 10, which serves 10 rows: ${(r.largeUs / r.smallUs).toFixed(1)}×); ${verdict}`,
+    );
+  }
+}
+
+/** A design with `size` revisions (rows written directly, as the seed's copies would be). */
+function designWith(size: number) {
+  const { db, team, cleanup } = teamOf(1);
+  const design = db.select({ id: designs.id, ownerId: designs.ownerId }).from(designs).get()!;
+  const input = SAMPLE_DESIGNS[0].request;
+  const summary = summarizeAnalysis(analyze(input));
+  db.transaction((tx) => {
+    for (let n = 1; n <= size; n++)
+      tx.insert(revisions)
+        .values({ designId: design.id, number: n, baseNumber: n === 1 ? null : n - 1, input, summary, authorId: design.ownerId, note: `r${n}`, createdAt: new Date(1e12 + n * 1000) })
+        .run();
+  });
+  return { db, team, designId: design.id, cleanup };
+}
+
+export function revisionsSection(): ListRow[] {
+  const sizes = [10, 100, 10_000].map(designWith);
+  const [small, full, large] = sizes;
+  const lastPage = (d: (typeof sizes)[number]) => listRevisionPage(d.db, d.designId, 1).lastPage;
+  const rows = [
+    { name: 'page 1 (newest 100)', page: () => 1 },
+    { name: 'last page (oldest)', page: lastPage },
+  ].map((c) => {
+    const time = (d: (typeof sizes)[number]) => {
+      const page = c.page(d);
+      return timeUs(() => listRevisionPage(d.db, d.designId, page));
+    };
+    return { name: c.name, smallUs: time(small), pageUs: time(full), largeUs: time(large), held: true };
+  });
+  for (const d of sizes) d.cleanup();
+  return rows;
+}
+
+export function printRevisions(rows: ListRow[]) {
+  console.log('\nRevisions page (listRevisionPage: up to 100 rows with margins, and the total): median of 200 calls, a design with 10 / 100 / 10,000 revisions');
+  for (const r of rows) {
+    const ratio = r.largeUs / r.pageUs;
+    console.log(
+      `- ${r.name}: ${r.smallUs.toFixed(0)} / ${r.pageUs.toFixed(0)} / ${r.largeUs.toFixed(0)} µs (10,000 vs 100: ${ratio.toFixed(1)}×); target ≤ 3×: ${ratio <= 3 ? 'within target' : 'ABOVE target'}`,
     );
   }
 }
