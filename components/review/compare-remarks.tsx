@@ -42,10 +42,14 @@ function RemarkList({ designId, side, number, initial }: { designId: number; sid
   const data = query.data ?? initial;
   return (
     <div data-testid={`compare-remarks-${side}`} aria-busy={(query.isFetching && query.isPlaceholderData) || undefined}>
-      <h3 className="text-sm font-medium text-slate-600">
-        On r{number} ({side.toUpperCase()})
-      </h3>
-      <ol className="mt-1 space-y-2">
+      <div className="flex flex-wrap items-center justify-between gap-2">
+        <h3 className="text-sm font-medium text-slate-600">
+          On r{number} ({side.toUpperCase()})
+        </h3>
+        <Pager page={data.page} lastPage={data.lastPage} total={data.total} noun={`remarks on r${number}`} onPage={(p) => showPage(side, p)} testId={`compare-remarks-pager-${side}`} />
+      </div>
+      {/* A page is up to 100 remarks: the list scrolls in its box so the plot, the form and the diff stay near. */}
+      <ol className="mt-1 max-h-[28rem] space-y-2 overflow-y-auto pr-1">
         {data.total === 0 && <li className="text-sm text-slate-500">No remarks on r{number} yet.</li>}
         {data.remarks.map((m) => (
           <li key={m.id} className="rounded-md border border-slate-200 px-3 py-2 text-sm">
@@ -61,7 +65,6 @@ function RemarkList({ designId, side, number, initial }: { designId: number; sid
           </li>
         ))}
       </ol>
-      <Pager page={data.page} lastPage={data.lastPage} total={data.total} noun={`remarks on r${number}`} onPage={(p) => showPage(side, p)} testId={`compare-remarks-pager-${side}`} />
       {query.isError && <p className="text-xs text-red-700">Could not load that page of remarks; try again.</p>}
     </div>
   );

@@ -31,38 +31,48 @@ export function RevisionPicker({
   const latest = data.total;
   const paged = data.lastPage > 1;
   const step = 'rounded px-1.5 py-0.5 text-xs text-indigo-700 hover:bg-indigo-50 disabled:text-slate-300 disabled:hover:bg-transparent';
+  const links = [...data.revisions].reverse().map((r) => (
+    <Link
+      key={r.number}
+      href={r.number === latest ? path : `${path}?r=${r.number}`}
+      aria-current={r.number === shown ? 'page' : undefined}
+      title={`${r.note || 'no note'} — ${r.authorName}, ${formatDateTime(r.createdAt)}`}
+      className={`rounded px-2 py-0.5 font-mono text-xs ${r.number === shown ? 'bg-indigo-600 text-white' : 'bg-slate-100 text-slate-700 hover:bg-slate-200'}`}
+    >
+      r{r.number}
+    </Link>
+  ));
+  const heading = <span className="mr-1 text-xs font-medium uppercase tracking-wide text-slate-500">{label}</span>;
+  const failed = isError && <span className="text-xs text-red-700">(could not load the list)</span>;
+  if (!paged)
+    return (
+      <nav className="flex flex-wrap items-center gap-1 text-sm" aria-label={label} data-testid="revision-picker">
+        {heading}
+        <div className="contents" data-testid="revision-chips">
+          {links}
+        </div>
+        {failed}
+      </nav>
+    );
+  // More than a page: a line to page with, the page's links below it.
   return (
-    <nav className="flex flex-wrap items-center gap-1 text-sm" aria-label={label} data-testid="revision-picker" aria-busy={loading || undefined}>
-      <span className="mr-1 text-xs font-medium uppercase tracking-wide text-slate-500">{label}</span>
-      {paged && (
+    <nav className="w-full space-y-1 text-sm" aria-label={label} data-testid="revision-picker" aria-busy={loading || undefined}>
+      <div className="flex flex-wrap items-center gap-2">
+        {heading}
         <button type="button" className={step} onClick={older ?? undefined} disabled={!older} data-testid="revisions-older" aria-label="Older revisions">
           ‹ Older
         </button>
-      )}
-      <div className={`flex flex-wrap items-center gap-1 ${paged ? 'max-h-[4.5rem] max-w-full overflow-y-auto' : ''} ${loading ? 'opacity-60' : ''}`} data-testid="revision-chips">
-        {[...data.revisions].reverse().map((r) => (
-          <Link
-            key={r.number}
-            href={r.number === latest ? path : `${path}?r=${r.number}`}
-            aria-current={r.number === shown ? 'page' : undefined}
-            title={`${r.note || 'no note'} — ${r.authorName}, ${formatDateTime(r.createdAt)}`}
-            className={`rounded px-2 py-0.5 font-mono text-xs ${r.number === shown ? 'bg-indigo-600 text-white' : 'bg-slate-100 text-slate-700 hover:bg-slate-200'}`}
-          >
-            r{r.number}
-          </Link>
-        ))}
+        <span className="num text-xs text-slate-600" data-testid="revisions-range">
+          {range ? `r${range.oldest}–r${range.newest}` : ''} of {formatCount(data.total)}
+        </span>
+        <button type="button" className={step} onClick={newer ?? undefined} disabled={!newer} data-testid="revisions-newer" aria-label="Newer revisions">
+          Newer ›
+        </button>
+        {failed}
       </div>
-      {paged && (
-        <>
-          <button type="button" className={step} onClick={newer ?? undefined} disabled={!newer} data-testid="revisions-newer" aria-label="Newer revisions">
-            Newer ›
-          </button>
-          <span className="num text-xs text-slate-500" data-testid="revisions-range">
-            {range ? `r${range.oldest}–r${range.newest}` : ''} of {formatCount(data.total)}
-          </span>
-        </>
-      )}
-      {isError && <span className="text-xs text-red-700">(could not load the list)</span>}
+      <div className={`flex flex-wrap gap-1 ${loading ? 'opacity-60' : ''}`} data-testid="revision-chips">
+        {links}
+      </div>
     </nav>
   );
 }
