@@ -42,7 +42,7 @@ function RemarkList({ designId, side, number, initial }: { designId: number; sid
   const data = query.data ?? initial;
   return (
     <div data-testid={`compare-remarks-${side}`} aria-busy={(query.isFetching && query.isPlaceholderData) || undefined}>
-      <div className="flex flex-wrap items-center justify-between gap-2">
+      <div className="flex min-h-[2.5rem] flex-wrap items-center justify-between gap-2">
         <h3 className="text-sm font-medium text-slate-600">
           On r{number} ({side.toUpperCase()})
         </h3>
