@@ -225,7 +225,8 @@ export const analyzeLoop = (prepared: PreparedPlant, comp: CompensatorInput): Lo
 };
 
 const analyzeValidLoop = (prepared: PreparedPlant, comp: CompensatorInput): LoopResult => {
-  const gc = loopCompensatorTransfer(prepared, comp);
+  const loaded = withLoopDivider(prepared, comp);
+  const gc = compensatorTransfer(loaded);
   const { compTrace, loop, evaluate } = sweepLoop(prepared, gc);
   const margins = computeMargins(loop, evaluate);
   const rb = divider(prepared, comp);
@@ -235,7 +236,6 @@ const analyzeValidLoop = (prepared: PreparedPlant, comp: CompensatorInput): Loop
   if (comp.opamp && comp.amplifier !== 'transconductance') {
     const placed = shapeFromParts(comp).polesHz.filter((f) => f < fsw / 2);
     const freqs = margins.crossoverHz !== null ? [margins.crossoverHz, ...placed] : placed;
-    const loaded = comp.rb === undefined ? { ...comp, rb } : comp;
     shapeError = opAmpShapeError(loaded, freqs);
     if (shapeError.worstDb > 1 || shapeError.worstDeg > 5) gbwEnoughHz = gbwEnough(loaded, freqs);
   }
