@@ -1,0 +1,13 @@
+import * as A from '@/lib/engine/analyze';
+import { opAmpShapeError, gbwEnough, shapeFromParts } from '@/lib/engine/compensator';
+import { MODE_SAMPLES } from '@/lib/engine/samples';
+let sink: unknown;
+const best = (name: string, f: () => unknown) => { for (let i = 0; i < 3000; i++) sink = f(); let b = 1e9; for (let k = 0; k < 300; k++) { const t0 = process.hrtime.bigint(); for (let i = 0; i < 10; i++) sink = f(); b = Math.min(b, Number(process.hrtime.bigint() - t0) / 1e4); } console.log(name, b.toFixed(2)); };
+const r = MODE_SAMPLES[2].request; const p = A.preparePlant(r);
+const loaded = A.withLoopDivider(p, r.compensator);
+const lr = A.analyzeLoop(p, r.compensator);
+const freqs = [lr.margins.crossoverHz!, ...shapeFromParts(r.compensator).polesHz.filter((f) => f < r.converter.fsw / 2)];
+console.log(freqs, opAmpShapeError(loaded, freqs));
+best('shapeError', () => opAmpShapeError(loaded, freqs));
+best('gbwEnough', () => gbwEnough(loaded, freqs));
+best('analyzeLoop', () => A.analyzeLoop(p, r.compensator));

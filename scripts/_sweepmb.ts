@@ -1,0 +1,14 @@
+import { sweepTransfer, makeGrid, logSweep } from '@/lib/engine/sweep';
+import { SAMPLE_DESIGNS } from '@/lib/engine/samples';
+import { preparePlant } from '@/lib/engine/analyze';
+const p = preparePlant(SAMPLE_DESIGNS[0].request);
+const h = p.plantTransfer; const grid = p.grid;
+let sink: unknown;
+const best = (name: string, f: () => unknown) => { for (let i = 0; i < 5000; i++) sink = f(); let b = 1e9; for (let k = 0; k < 300; k++) { const t0 = process.hrtime.bigint(); for (let i = 0; i < 10; i++) sink = f(); b = Math.min(b, Number(process.hrtime.bigint() - t0) / 1e4); } console.log(name, b.toFixed(2)); };
+const w = grid.w as number[];
+const a1 = h.num[0][1], b1 = h.den[0][1], b2 = h.den[0][2], g2 = h.gain * h.gain;
+best('sweepTransfer', () => sweepTransfer(h, grid));
+best('bare: atan+log per point into new Array', () => { const n = 400; const m = new Array<number>(n); const ph = new Array<number>(n); for (let i = 0; i < n; i++) { const wi = w[i], wi2 = wi * wi; const nre = 1, nim = a1 * wi, dre = 1 - b2 * wi2, dim = b1 * wi; const num = g2 * (nre * nre + nim * nim), den = dre * dre + dim * dim; m[i] = 4.342944819032518 * Math.log(num / den); const y = nim * dre - nre * dim, x = nre * dre + nim * dim; ph[i] = 57.29577951308232 * (x > 0 ? Math.atan(y / x) : Math.atan(y / x) + (y >= 0 ? Math.PI : -Math.PI)); } return [m, ph]; });
+best('bare: into Float64Array', () => { const n = 400; const m = new Float64Array(n); const ph = new Float64Array(n); for (let i = 0; i < n; i++) { const wi = w[i], wi2 = wi * wi; const nre = 1, nim = a1 * wi, dre = 1 - b2 * wi2, dim = b1 * wi; const num = g2 * (nre * nre + nim * nim), den = dre * dre + dim * dim; m[i] = 4.342944819032518 * Math.log(num / den); const y = nim * dre - nre * dim, x = nre * dre + nim * dim; ph[i] = 57.29577951308232 * (x > 0 ? Math.atan(y / x) : Math.atan(y / x) + (y >= 0 ? Math.PI : -Math.PI)); } return [m, ph]; });
+best('only log', () => { let s = 0; for (let i = 0; i < 400; i++) { const wi = w[i]; s += Math.log(1 + wi * 1e-3); } return s; });
+best('only atan', () => { let s = 0; for (let i = 0; i < 400; i++) { const wi = w[i]; s += Math.atan(wi * 1e-5 - 1); } return s; });
