@@ -59,8 +59,13 @@ function serveStatic(req, res) {
 const app = next({ dev: false, dir, hostname: host ?? 'localhost', port });
 const handle = app.getRequestHandler();
 await app.prepare();
-http
+const server = http
   .createServer((req, res) => {
     if (!serveStatic(req, res)) void handle(req, res);
   })
   .listen(port, host, () => console.log(`› Phasewright on http://${host ?? 'localhost'}:${port}`));
+// Node's 5 s keep-alive closes idle sockets just as a client reuses them ("other side closed"
+// on a POST, which no client may resend). Longer than a proxy's usual 60 s idle timeout
+// (common practice), so the proxy, not the app, ends idle connections; headers time out after.
+server.keepAliveTimeout = 65_000;
+server.headersTimeout = 66_000;

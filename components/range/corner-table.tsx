@@ -2,6 +2,7 @@
 
 import type { CornersResult } from '@/lib/engine/corners';
 import type { MarginTargets } from '@/lib/engine/range';
+import { checkLabel } from '@/lib/catalog';
 import { formatSi } from '@/lib/units/si';
 
 const fixed = (v: number | null, unit: string) => (v === null ? '—' : `${v.toFixed(1).replace(/^-/, '−')}${unit}`);
@@ -55,7 +56,7 @@ export function CornerTable({ result, targets }: { result: CornersResult; target
                 <td className={`px-2 py-0.5 text-right ${pmLow ? 'text-red-700' : ''}`}>{fixed(k.margins.phaseMarginDeg, '°')}</td>
                 <td className={`px-2 py-0.5 text-right ${gmLow ? 'text-red-700' : ''}`}>{k.margins.gainMarginDb === null ? 'none' : fixed(k.margins.gainMarginDb, ' dB')}</td>
                 <td className="px-2 py-0.5 font-sans text-red-700" title={k.risks.map((r) => r.message).join('\n') || undefined}>
-                  {k.risks.map((r) => r.id).join(', ')}
+                  {k.risks.map((r) => checkLabel(r.id)).join(', ')}
                 </td>
               </tr>
             );

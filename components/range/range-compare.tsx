@@ -1,3 +1,4 @@
+import { checkLabel } from '@/lib/catalog';
 import { formatSi } from '@/lib/units/si';
 import type { RangeSummary } from '@/lib/range-summary';
 import { formatCount } from '@/lib/format';
@@ -38,7 +39,7 @@ const riskText = (s: RangeSummary) =>
     <ul className="text-red-700">
       {s.risks.map((r) => (
         <li key={r.id} title={r.message}>
-          {r.id}: {r.count} of {s.corners}, first at {r.corner}
+          {checkLabel(r.id)}: {r.count} of {s.corners}, first at {r.corner}
         </li>
       ))}
     </ul>

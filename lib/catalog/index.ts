@@ -9,6 +9,7 @@
  *   traces.ts        Bode trace colours
  *   topologies.ts    topology, modulator-mode and amplifier labels
  *   roles.ts         team roles
+ *   checks.ts        short labels of the engine's checks
  */
 export * from './stage-inputs';
 export * from './compensators';
@@ -19,3 +20,4 @@ export * from './topologies';
 export * from './modes';
 export * from './roles';
 export * from './range-inputs';
+export * from './checks';

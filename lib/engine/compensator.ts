@@ -174,16 +174,24 @@ const fixedOf = (comp: CompensatorInput): CompensatorShape['fixed'] => {
  */
 export const shapeFromParts = (comp: CompensatorInput): CompensatorShape => {
   const p = partsOf(comp);
+  // Built field by field (no spreads): this runs on every analysis and every drag frame.
+  const shape: CompensatorShape = { type: comp.type, r1: p.r1, integratorHz: integratorHz(comp), zerosHz: [], polesHz: [] };
   const fixed = fixedOf(comp);
-  const base = { type: comp.type, r1: p.r1, integratorHz: integratorHz(comp), ...(fixed ? { fixed } : {}) };
-  if (comp.type === 'type1') return { ...base, zerosHz: [], polesHz: [] };
+  if (fixed) shape.fixed = fixed;
+  if (comp.type === 'type1') return shape;
   const fz1 = 1 / (TWO_PI * p.r2 * p.c1);
   const fp1 = p.c2 > 0 ? (p.c1 + p.c2) / (TWO_PI * p.r2 * p.c1 * p.c2) : null;
-  if (comp.type === 'type2') return { ...base, zerosHz: [fz1], polesHz: fp1 === null ? [] : [fp1] };
+  if (comp.type === 'type2') {
+    shape.zerosHz = [fz1];
+    shape.polesHz = fp1 === null ? [] : [fp1];
+    return shape;
+  }
   const fz2 = 1 / (TWO_PI * (p.r1 + p.r3) * p.c3);
   const r3Pole = comp.amplifier === 'transconductance' ? p.r3 + dividerOf(comp).rp : p.r3;
   const fp2 = 1 / (TWO_PI * r3Pole * p.c3);
-  return { ...base, zerosHz: [fz1, fz2], polesHz: fp1 === null ? [fp2] : [fp1, fp2] };
+  shape.zerosHz = [fz1, fz2];
+  shape.polesHz = fp1 === null ? [fp2] : [fp1, fp2];
+  return shape;
 };
 
 const positive = (v: number | undefined, path: string, what: string) => {
@@ -293,30 +301,51 @@ export const summarizeCompensator = (comp: CompensatorInput): CompensatorSummary
 export const dividerRb = (r1: number, vref: number, vout: number): number => (r1 * vref) / (Math.abs(vout) - vref);
 
 /**
- * Largest departure of a finite op-amp stage from its ideal shape over the given frequencies:
- * |Δ magnitude| in dB and |Δ phase| in degrees, and where each occurs.
+ * The finite op-amp's noise gain NG = 1 + Zf/(Zi ∥ Rb) at each frequency, as [re, im]: the
+ * realised stage is the ideal one times 1/(1 + NG/A) (Sedra & Smith, ch. 2; with the divider's
+ * Rb at the inverting input, Gc = A·Zf/((1 + A)·Zi + Zf + Zi·Zf/Rb) divides to the same form).
  */
-export const opAmpShapeError = (
-  comp: CompensatorInput,
-  freqsHz: readonly number[],
-  realTransfer?: SectionedTransfer,
-): { worstDb: number; worstDeg: number; atHz: number | null } => {
+const noiseGains = (comp: CompensatorInput, freqsHz: readonly number[]): [number, number][] =>
+  freqsHz.map((f) => {
+    const { zi, zf } = compensatorImpedances(comp, new Complex(0, TWO_PI * f));
+    const zin = comp.rb !== undefined && comp.rb > 0 ? zi.mul(comp.rb).div(zi.add(comp.rb)) : zi;
+    const ng = zf.div(zin).add(1);
+    return [ng.re, ng.im];
+  });
+
+/**
+ * The departure 1/(1 + NG/A) of the realised stage from the ideal one at each frequency, with
+ * A(jω) = a0/(1 + jω·a0/(2π·GBW)): the largest |Δ magnitude| in dB and |Δ phase| in degrees.
+ */
+const shapeErrorOf = (ng: readonly [number, number][], freqsHz: readonly number[], a0: number, gbw: number) => {
   let worstDb = 0;
   let worstDeg = 0;
   let atHz: number | null = null;
-  if (!comp.opamp || comp.amplifier === 'transconductance' || freqsHz.length === 0) return { worstDb, worstDeg, atHz };
-  const real = transferEvaluator(realTransfer ?? compensatorTransfer(comp), freqsHz[0]);
-  const ideal = transferEvaluator(idealCompensatorTransfer(comp), freqsHz[0]);
-  for (const f of freqsHz) {
-    const a = real(f);
-    const b = ideal(f);
-    const dDb = Math.abs(a.magDb - b.magDb);
-    const dDeg = Math.abs(wrapDeg(a.phaseDeg - b.phaseDeg));
-    if (dDb > worstDb || dDeg > worstDeg) atHz = f;
+  const tau = a0 / (TWO_PI * gbw);
+  for (let i = 0; i < freqsHz.length; i++) {
+    const wt = TWO_PI * freqsHz[i] * tau;
+    const [gr, gi] = ng[i];
+    // 1 + NG·(1 + jωτ)/a0
+    const er = 1 + (gr - gi * wt) / a0;
+    const ei = (gi + gr * wt) / a0;
+    const dDb = Math.abs(dbFromMag(Math.hypot(er, ei)));
+    const dDeg = Math.abs((Math.atan2(ei, er) * 180) / Math.PI);
+    if (dDb > worstDb || dDeg > worstDeg) atHz = freqsHz[i];
     worstDb = Math.max(worstDb, dDb);
     worstDeg = Math.max(worstDeg, dDeg);
   }
   return { worstDb, worstDeg, atHz };
+};
+
+/**
+ * Largest departure of a finite op-amp stage from its ideal shape over the given frequencies:
+ * |Δ magnitude| in dB and |Δ phase| in degrees, and where each occurs. Evaluated as the factor
+ * 1/(1 + NG/A) by which the realised stage differs from the ideal one (see noiseGains): a few
+ * complex products per frequency, no transfer to build.
+ */
+export const opAmpShapeError = (comp: CompensatorInput, freqsHz: readonly number[]): { worstDb: number; worstDeg: number; atHz: number | null } => {
+  if (!comp.opamp || comp.amplifier === 'transconductance' || freqsHz.length === 0) return { worstDb: 0, worstDeg: 0, atHz: null };
+  return shapeErrorOf(noiseGains(comp, freqsHz), freqsHz, comp.opamp.a0, comp.opamp.gbw);
 };
 
 /**
@@ -328,15 +357,11 @@ export const opAmpShapeError = (
  */
 export const gbwEnough = (comp: CompensatorInput, freqsHz: readonly number[]): number | null => {
   if (!comp.opamp) return null;
+  const ng = noiseGains(comp, freqsHz);
   let gbw = comp.opamp.gbw;
-  for (const f of freqsHz) {
-    const s = new Complex(0, TWO_PI * f);
-    const { zi, zf } = compensatorImpedances(comp, s);
-    const zin = comp.rb !== undefined && comp.rb > 0 ? zi.mul(comp.rb).div(zi.add(comp.rb)) : zi;
-    gbw = Math.max(gbw, (f * zf.div(zin).add(1).abs()) / 0.08);
-  }
+  for (let i = 0; i < freqsHz.length; i++) gbw = Math.max(gbw, (freqsHz[i] * Math.hypot(ng[i][0], ng[i][1])) / 0.08);
   for (let k = 0; k < 6; k++, gbw *= 2) {
-    const e = opAmpShapeError({ ...comp, opamp: { ...comp.opamp, gbw } }, freqsHz);
+    const e = shapeErrorOf(ng, freqsHz, comp.opamp.a0, gbw);
     if (e.worstDb <= 1 && e.worstDeg <= 5) return gbw;
   }
   return null;

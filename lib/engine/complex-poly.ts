@@ -195,22 +195,27 @@ const classifyRoots = (roots: [number, number][]): { real: number[]; pairs: [num
 };
 
 /**
- * All roots of a real polynomial (ascending coefficients), as complex.js values. Zero roots
- * from vanishing low-order coefficients are returned exactly as 0.
+ * All roots of a real polynomial (ascending coefficients) as plain { re, im }: real roots,
+ * then each complex pair (im > 0 first). Zero roots from vanishing low-order coefficients are
+ * returned exactly as 0. Plain numbers because landmarks are read from every section of every
+ * analysis; polyRoots gives the same roots as complex.js values.
  */
-export const polyRoots = (p: Poly): Complex[] => {
+export const polyRootsPlain = (p: Poly): { re: number; im: number }[] => {
   const t = polyTrim(p);
-  const roots: Complex[] = [];
+  const roots: { re: number; im: number }[] = [];
   let lo = 0;
   while (lo < t.length - 1 && t[lo] === 0) {
-    roots.push(new Complex(0, 0));
+    roots.push({ re: 0, im: 0 });
     lo++;
   }
-  const { real, pairs } = classifyRoots(rootPairs(t.slice(lo)));
-  for (const r of real) roots.push(new Complex(r, 0));
-  for (const [r, i] of pairs) roots.push(new Complex(r, i), new Complex(r, -i));
+  const { real, pairs } = classifyRoots(rootPairs(lo === 0 ? t : t.slice(lo)));
+  for (const r of real) roots.push({ re: r, im: 0 });
+  for (const [r, i] of pairs) roots.push({ re: r, im: i }, { re: r, im: -i });
   return roots;
 };
+
+/** All roots of a real polynomial (ascending coefficients), as complex.js values (see polyRootsPlain). */
+export const polyRoots = (p: Poly): Complex[] => polyRootsPlain(p).map((r) => new Complex(r.re, r.im));
 
 /** Polynomial with the given real roots and p(0) = 1: Π (1 − s/r). Roots must be non-zero. */
 export const polyFromRealRoots = (roots: readonly number[]): number[] =>

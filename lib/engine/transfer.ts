@@ -11,7 +11,7 @@
  * crossings).
  */
 import Complex from 'complex.js';
-import { evalPoly, polyMul, polyRoots, polySections, polyTrim, type Poly } from './complex-poly';
+import { evalPoly, polyMul, polyRootsPlain, polySections, polyTrim, type Poly } from './complex-poly';
 import type { TransferSummary } from './types';
 
 const TWO_PI = 2 * Math.PI;
@@ -112,7 +112,7 @@ export const dbFromMagSq = (magSq: number): number => DB_PER_LN_MAGSQ * Math.log
 export const dbFromMag = (mag: number): number => 20 * Math.log10(mag);
 
 /** Roots of one section [1, a1] or [1, a1, a2] (rad/s), by the engine's one root finder. */
-const sectionRoots = (p: Poly): { re: number; im: number }[] => polyRoots(p);
+const sectionRoots = (p: Poly): { re: number; im: number }[] => polyRootsPlain(p);
 
 /** Poles and zeros of a sectioned transfer (rad/s), origin roots included as 0. */
 export const transferRoots = (h: SectionedTransfer): { zeros: { re: number; im: number }[]; poles: { re: number; im: number }[] } => {

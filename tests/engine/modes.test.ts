@@ -14,7 +14,7 @@ import Complex from 'complex.js';
 import { describe, expect, it } from 'vitest';
 import { analyze, preparePlant } from '@/lib/engine/analyze';
 import { proposeForPlant } from '@/lib/engine/starting-point';
-import { compensatorImpedances, compensatorTransfer, partsFromShape, shapeFromParts, summarizeCompensator } from '@/lib/engine/compensator';
+import { compensatorImpedances, compensatorTransfer, idealCompensatorTransfer, opAmpShapeError, partsFromShape, shapeFromParts, summarizeCompensator } from '@/lib/engine/compensator';
 import { peakCurrentParameters } from '@/lib/engine/control';
 import { sampleByKey } from '@/lib/engine/samples';
 import { computeOperatingPoint } from '@/lib/engine/steady-state';
@@ -231,6 +231,23 @@ describe('finite op-amp (Sedra & Smith, ch. 2)', () => {
       const b = evaluateTransfer(ideal, s);
       expect(a.sub(b).abs() / b.abs()).toBeLessThan(1e-3);
     }
+  });
+
+  it('the shape error 1/(1 + NG/A) equals the realised stage over the ideal one, Rb loading included (Sedra & Smith, ch. 2)', () => {
+    const loaded: CompensatorInput = { ...comp, rb: 3.2e3, opamp: { a0: 2e4, gbw: 2e6 } };
+    const freqs = [300, 5e3, 4e4, 2e5];
+    const e = opAmpShapeError(loaded, freqs);
+    let worstDb = 0;
+    let worstDeg = 0;
+    for (const hz of freqs) {
+      const s = new Complex(0, TWO_PI * hz);
+      const ratio = evaluateTransfer(compensatorTransfer(loaded), s).div(evaluateTransfer(idealCompensatorTransfer(loaded), s));
+      worstDb = Math.max(worstDb, Math.abs(20 * Math.log10(ratio.abs())));
+      worstDeg = Math.max(worstDeg, Math.abs((ratio.arg() * 180) / Math.PI));
+    }
+    expect(worstDb).toBeGreaterThan(0.1);
+    expectRel(e.worstDb, worstDb, 1e-9);
+    expectRel(e.worstDeg, worstDeg, 1e-9);
   });
 
   it('a slow op-amp is a caution naming a GBW that is enough; a fast one is not', () => {
