@@ -13,3 +13,7 @@ export type RevisionCreate = z.infer<typeof revisionCreateSchema>;
 export const revisionListQuerySchema = z.object({
   page: z.coerce.number({ error: 'page must be a number' }).int('page must be a whole number').min(1, 'page starts at 1').default(1),
 });
+
+export function parseRevisionListQuery(params: URLSearchParams) {
+  return revisionListQuerySchema.safeParse({ page: params.get('page') ?? undefined });
+}
