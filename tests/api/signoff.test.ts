@@ -8,6 +8,7 @@ import { beforeAll, describe, expect, inject, it } from 'vitest';
 import { openDatabase } from '@/db/connection';
 import { listAudit, listMailTo } from '@/db/queries';
 import { Client, signedInAs } from '../support/http';
+import { addRemarks } from '../support/many-revisions';
 import { otherTeam } from '../support/other-team';
 import { savedDesign, tweak, type AnalyzeInput } from '../support/saved-design';
 
@@ -61,6 +62,19 @@ describe('GET …/signoff and …/remarks', () => {
     expect(res.status).toBe(200);
     expect(await res.json()).toMatchObject({ number: 1, state: expect.any(String), events: expect.any(Array), remarks: expect.any(Array) });
     expect((await clients[role].fetch(url(1, 'remarks'))).status).toBe(200);
+  });
+
+  it('…/signoff carries the newest 100 remarks and their count; …/remarks pages the rest', async () => {
+    const { designId: long } = await savedDesign(clients.designer, 'Sign-off remarks paging rail');
+    addRemarks(dbPath, long, 1, 130);
+    const at = (what: string) => `/api/designs/${long}/revisions/1/${what}`;
+    const signoff = await (await clients.viewer.fetch(at('signoff'))).json();
+    expect(signoff.remarkTotal).toBe(130);
+    expect(signoff.remarks).toHaveLength(100);
+    expect(signoff.remarks[0].body).toBe('remark 130');
+    const older = await (await clients.viewer.fetch(at('remarks?page=2'))).json();
+    expect(older).toMatchObject({ total: 130, page: 2, lastPage: 2, pageSize: 100 });
+    expect(older.remarks.map((r: { body: string }) => r.body)).toEqual(Array.from({ length: 30 }, (_, i) => `remark ${30 - i}`));
   });
 
   it("401 without a session, 404 from another team or for a missing revision", async () => {
