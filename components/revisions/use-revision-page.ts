@@ -24,6 +24,8 @@ export function useRevisionPage(designId: number, initial: RevisionBriefPage) {
     range: data.revisions.length > 0 ? { newest: data.revisions[0].number, oldest: data.revisions[data.revisions.length - 1].number } : null,
     newer: page > 1 ? () => setPage(page - 1) : null,
     older: page < data.lastPage ? () => setPage(page + 1) : null,
+    /** Show the page holding revision n (numbers run 1…latest without gaps, so it is known without asking). */
+    goTo: (n: number) => setPage(Math.floor(Math.max(0, data.total - n) / data.pageSize) + 1),
     loading: query.isFetching && query.isPlaceholderData,
     isError: query.isError,
   };

@@ -1,8 +1,10 @@
 'use client';
 
 import Link from 'next/link';
+import { useState } from 'react';
 import { formatCount, formatDateTime } from '@/lib/format';
 import type { RevisionBriefPage } from '@/lib/queries/revisions';
+import { RevisionFind } from '@/components/revisions/revision-find';
 import { useRevisionPage } from '@/components/revisions/use-revision-page';
 
 /**
@@ -25,7 +27,8 @@ export function RevisionPicker({
   path?: string;
   label?: string;
 }) {
-  const { data, range, newer, older, loading, isError } = useRevisionPage(designId, initial);
+  const { data, range, newer, older, goTo, loading, isError } = useRevisionPage(designId, initial);
+  const [found, setFound] = useState<number | null>(null);
   if (data.total === 0) return <span className="text-sm text-slate-500">No revision saved yet</span>;
   // Numbers run 1…latest without gaps, so the count is the latest number.
   const latest = data.total;
@@ -37,7 +40,8 @@ export function RevisionPicker({
       href={r.number === latest ? path : `${path}?r=${r.number}`}
       aria-current={r.number === shown ? 'page' : undefined}
       title={`${r.note || 'no note'} — ${r.authorName}, ${formatDateTime(r.createdAt)}`}
-      className={`rounded px-2 py-0.5 font-mono text-xs ${r.number === shown ? 'bg-indigo-600 text-white' : 'bg-slate-100 text-slate-700 hover:bg-slate-200'}`}
+      data-found={r.number === found || undefined}
+      className={`rounded px-2 py-0.5 font-mono text-xs ${r.number === shown ? 'bg-indigo-600 text-white' : 'bg-slate-100 text-slate-700 hover:bg-slate-200'} ${r.number === found ? 'ring-2 ring-amber-400' : ''}`}
     >
       r{r.number}
     </Link>
@@ -68,6 +72,14 @@ export function RevisionPicker({
         <button type="button" className={step} onClick={newer ?? undefined} disabled={!newer} data-testid="revisions-newer" aria-label="Newer revisions">
           Newer ›
         </button>
+        <RevisionFind
+          latest={latest}
+          idPrefix={`revisions-${designId}`}
+          onFind={(n) => {
+            setFound(n);
+            goTo(n);
+          }}
+        />
         {failed}
       </div>
       <div className={`flex flex-wrap gap-1 ${loading ? 'opacity-60' : ''}`} data-testid="revision-chips">

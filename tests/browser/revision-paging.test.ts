@@ -58,6 +58,16 @@ describe.runIf(run)('revision pickers and remarks with more than a page', () => 
     await page.goto(`${baseUrl}/designs/${designId}?r=120`);
     await page.getByTestId('revision-picker').waitFor();
     expect(await chips(page)).toEqual(range(51, 150));
+
+    // Find by number: a number past the end is refused beside the box; r200 shows its page, marked.
+    await page.getByTestId('revision-find').fill('r999');
+    await page.getByRole('button', { name: 'Show' }).click();
+    await expect.poll(() => page.getByRole('alert').filter({ hasText: 'Revisions run r1–r250' }).count()).toBe(1);
+    await page.getByTestId('revision-find').fill('200');
+    await page.getByRole('button', { name: 'Show' }).click();
+    await expect.poll(() => chips(page)).toEqual(range(151, 250));
+    expect(await page.locator('[data-found="true"]').textContent()).toBe('r200');
+    await screenshot(page, 'paging-tune-find');
     await page.context().close();
   });
 
@@ -80,6 +90,17 @@ describe.runIf(run)('revision pickers and remarks with more than a page', () => 
     await page.getByTestId('compare-a').selectOption('120');
     await page.waitForURL(/a=120&b=250/);
     await expect.poll(() => page.getByTestId('side-a').textContent()).toContain('A · r120');
+
+    // Both numbers typed.
+    await page.getByTestId('compare-type-a').fill('r33');
+    await page.getByTestId('compare-type-b').fill('0');
+    await page.getByRole('button', { name: 'Compare', exact: true }).click();
+    await expect.poll(() => page.getByTestId('compare-type-error').textContent()).toBe('Revisions run r1–r250');
+    await page.getByTestId('compare-type-b').fill('34');
+    await page.getByRole('button', { name: 'Compare', exact: true }).click();
+    await page.waitForURL(/a=33&b=34/);
+    await expect.poll(() => page.getByTestId('side-b').textContent()).toContain('B · r34');
+    await page.goto(`${baseUrl}/designs/${designId}/compare?a=120&b=250`);
 
     // B's remarks: 130, newest first, 100 a page.
     const listB = page.getByTestId('compare-remarks-b');
