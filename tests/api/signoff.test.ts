@@ -75,6 +75,11 @@ describe('GET …/signoff and …/remarks', () => {
     const older = await (await clients.viewer.fetch(at('remarks?page=2'))).json();
     expect(older).toMatchObject({ total: 130, page: 2, lastPage: 2, pageSize: 100 });
     expect(older.remarks.map((r: { body: string }) => r.body)).toEqual(Array.from({ length: 30 }, (_, i) => `remark ${30 - i}`));
+    for (const bad of ['0', 'x', '2.5']) {
+      const res = await clients.viewer.fetch(at(`remarks?page=${bad}`));
+      expect(res.status, bad).toBe(422);
+      expect((await res.json()).issues).toEqual([expect.objectContaining({ path: 'page' })]);
+    }
   });
 
   it("401 without a session, 404 from another team or for a missing revision", async () => {

@@ -6,7 +6,8 @@ import { can } from '@/lib/auth';
 import { HttpError, parseJson, withUser } from '@/lib/api';
 import { requireActiveDesign, requireDesign } from '@/lib/design-access';
 import { savedRevisionBody, summarizeAnalysis } from '@/lib/revision-summary';
-import { parseRevisionListQuery, revisionCreateSchema } from '@/lib/validation/revision';
+import { parsePageQuery } from '@/lib/validation/paging';
+import { revisionCreateSchema } from '@/lib/validation/revision';
 import { zodIssues } from '@/lib/validation/analyze';
 
 type P = { id: string };
@@ -17,7 +18,7 @@ type P = { id: string };
  */
 export const GET = withUser<P>(async (req, { user, params }) => {
   const design = requireDesign(user, params.id);
-  const query = parseRevisionListQuery(new URL(req.url).searchParams);
+  const query = parsePageQuery(new URL(req.url).searchParams);
   if (!query.success) throw new HttpError(422, 'The page asked for does not exist', zodIssues(query.error));
   return NextResponse.json(listRevisionPage(getDb(), design.id, query.data.page));
 });

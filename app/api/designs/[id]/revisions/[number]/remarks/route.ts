@@ -1,7 +1,9 @@
 import { NextResponse } from 'next/server';
 import { getDb } from '@/db/client';
 import { addRemark, getRevision, listRemarksPage, remarkRecipients } from '@/db/queries';
-import { pageParam, PAGE_SIZE } from '@/lib/paging';
+import { PAGE_SIZE } from '@/lib/paging';
+import { parsePageQuery } from '@/lib/validation/paging';
+import { zodIssues } from '@/lib/validation/analyze';
 import { can } from '@/lib/auth';
 import { HttpError, parseJson, withUser } from '@/lib/api';
 import { mailEach, notifyRemark } from '@/lib/notify';
@@ -11,10 +13,15 @@ import { remarkSchema } from '@/lib/validation/signoff';
 
 type P = { id: string; number: string };
 
-/** A revision's remarks, newest first, 100 a page (`?page=N`, default 1): `{ remarks, total, page, lastPage, pageSize }`. */
+/**
+ * A revision's remarks, newest first, 100 a page (`?page=N`, default 1; past the end serves the last page;
+ * not a whole number from 1 → 422 naming `page`): `{ remarks, total, page, lastPage, pageSize }`.
+ */
 export const GET = withUser<P>(async (req, { user, params }) => {
   const { ref } = requireRevision(user, params);
-  const page = listRemarksPage(getDb(), ref.revisionId, pageParam(new URL(req.url).searchParams.get('page') ?? undefined));
+  const query = parsePageQuery(new URL(req.url).searchParams);
+  if (!query.success) throw new HttpError(422, 'The page asked for does not exist', zodIssues(query.error));
+  const page = listRemarksPage(getDb(), ref.revisionId, query.data.page);
   return NextResponse.json({ ...page, pageSize: PAGE_SIZE });
 });
 
