@@ -13,7 +13,7 @@ function get(agent: http.Agent, path: string): Promise<{ status: number; keepAli
   return new Promise((resolve, reject) => {
     const req = http.get(new URL(path, baseUrl), { agent }, (res) => {
       res.resume();
-      res.on('end', () => resolve({ status: res.statusCode ?? 0, keepAlive: res.headers['keep-alive'], reused: req.reusedSocket }));
+      res.on('end', () => resolve({ status: res.statusCode ?? 0, keepAlive: String(res.headers['keep-alive'] ?? ''), reused: req.reusedSocket }));
     });
     req.on('error', reject);
   });
