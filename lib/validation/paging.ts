@@ -2,7 +2,7 @@ import { z } from 'zod';
 
 /**
  * `?page=N` of the paged list routes (a design's revisions, a revision's remarks): a whole number
- * from 1, else 422 naming `page`; past the last page the last one is served. Pages (History,
+ * from 1, else 400 naming `page` (as GET /api/designs); past the last page the last one is served. Pages (History,
  * Compare) read their own `page` parameters leniently with `pageParam` (lib/paging.ts).
  */
 export const pageQuerySchema = z.object({

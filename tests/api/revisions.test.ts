@@ -77,9 +77,9 @@ describe('GET /api/designs/[id]/revisions?page=N (a design with 250 revisions)',
     expect(body.revisions.at(-1).number).toBe(1);
   });
 
-  it.each(['0', '-1', '1.5', 'two', ''])('page=%j → 422 naming page', async (value) => {
+  it.each(['0', '-1', '1.5', 'two', ''])('page=%j → 400 naming page (as GET /api/designs)', async (value) => {
     const res = await page(`?page=${value}`);
-    expect(res.status).toBe(422);
+    expect(res.status).toBe(400);
     const body = await res.json();
     expect(body.error).toEqual(expect.any(String));
     expect(body.issues).toEqual([expect.objectContaining({ path: 'page', message: expect.stringMatching(/page/) })]);

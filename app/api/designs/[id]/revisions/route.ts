@@ -19,7 +19,7 @@ type P = { id: string };
 export const GET = withUser<P>(async (req, { user, params }) => {
   const design = requireDesign(user, params.id);
   const query = parsePageQuery(new URL(req.url).searchParams);
-  if (!query.success) throw new HttpError(422, 'The page asked for does not exist', zodIssues(query.error));
+  if (!query.success) throw new HttpError(400, 'The page asked for does not fit', zodIssues(query.error));
   return NextResponse.json(listRevisionPage(getDb(), design.id, query.data.page));
 });
 

@@ -15,12 +15,12 @@ type P = { id: string; number: string };
 
 /**
  * A revision's remarks, newest first, 100 a page (`?page=N`, default 1; past the end serves the last page;
- * not a whole number from 1 → 422 naming `page`): `{ remarks, total, page, lastPage, pageSize }`.
+ * not a whole number from 1 → 400 naming `page`): `{ remarks, total, page, lastPage, pageSize }`.
  */
 export const GET = withUser<P>(async (req, { user, params }) => {
   const { ref } = requireRevision(user, params);
   const query = parsePageQuery(new URL(req.url).searchParams);
-  if (!query.success) throw new HttpError(422, 'The page asked for does not exist', zodIssues(query.error));
+  if (!query.success) throw new HttpError(400, 'The page asked for does not fit', zodIssues(query.error));
   const page = listRemarksPage(getDb(), ref.revisionId, query.data.page);
   return NextResponse.json({ ...page, pageSize: PAGE_SIZE });
 });
