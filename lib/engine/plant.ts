@@ -26,13 +26,15 @@ import type { ConverterInput, OperatingPoint, Topology, TransferSummary } from '
 type Vec2 = [number, number];
 type Mat2 = [[number, number], [number, number]];
 
-interface Interval {
+/** How each switching interval connects the inductor (the table in the module header). */
+export interface Interval {
   ag: number;
   ad: number;
   b: number;
 }
 
-const INTERVALS: Record<Topology, { on: Interval; off: Interval }> = {
+/** The on and off intervals of each topology; the switching simulation uses the same table. */
+export const INTERVALS: Readonly<Record<Topology, { on: Interval; off: Interval }>> = {
   buck: { on: { ag: 1, ad: 0, b: 1 }, off: { ag: 0, ad: 1, b: 1 } },
   boost: { on: { ag: 1, ad: 0, b: 0 }, off: { ag: 1, ad: 1, b: 1 } },
   'buck-boost': { on: { ag: 1, ad: 0, b: 0 }, off: { ag: 0, ad: 1, b: 1 } },

@@ -20,21 +20,11 @@
  * C·dvC/dt = kR·(b·iL − i_s) − vC/(R + rc), kR = R/(R + rc), Rp = R·rc/(R + rc).
  */
 import { expm, matVec } from './matrix-exp';
+import { INTERVALS } from './plant';
 import { balanceRealization, integratorEquilibrium, realizeTransfer } from './state-space';
 import type { SectionedTransfer } from './transfer';
-import type { ConverterInput, Topology } from './types';
+import type { ConverterInput } from './types';
 
-interface Interval {
-  ag: number;
-  ad: number;
-  b: number;
-}
-
-const INTERVALS: Record<Topology, { on: Interval; off: Interval }> = {
-  buck: { on: { ag: 1, ad: 0, b: 1 }, off: { ag: 0, ad: 1, b: 1 } },
-  boost: { on: { ag: 1, ad: 0, b: 0 }, off: { ag: 1, ad: 1, b: 1 } },
-  'buck-boost': { on: { ag: 1, ad: 0, b: 0 }, off: { ag: 0, ad: 1, b: 1 } },
-};
 
 /** How the switch is turned off in each cycle (it is turned on by the clock). */
 export type SwitchControl =
