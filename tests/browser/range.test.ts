@@ -6,32 +6,18 @@
  * an edited range is saved with the revision; Compare states both revisions' worst cases.
  * Screenshots go to $SCREENSHOT_DIR.
  */
-import { chromium, type Browser, type Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { CHROMIUM, CHROMIUM_ARGS, chromiumAvailable } from '../support/chromium';
-import { screenshot, signedInPage } from '../support/browser';
-import { signedInAs, type Client } from '../support/http';
-import { savedDesign } from '../support/saved-design';
+import { describe, expect, inject, it } from 'vitest';
+import { chromiumAvailable } from '../support/chromium';
+import { browserWithSavedDesign, screenshot } from '../support/browser';
 
 const run = chromiumAvailable();
 const baseUrl = inject('baseUrl');
-let browser: Browser;
-let designer: Client;
-let designId: number;
-
-const pageAs = (email: string): Promise<Page> => signedInPage(browser, baseUrl, email);
-
 describe.runIf(run)('Tune across the operating range', () => {
-  beforeAll(async () => {
-    browser = await chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_ARGS });
-    designer = await signedInAs(baseUrl, 'designer');
-    ({ designId } = await savedDesign(designer, 'Browser range rail'));
-  });
-  afterAll(async () => browser?.close());
+  const suite = browserWithSavedDesign(baseUrl, 'Browser range rail');
 
   it('shows corners, worst case and a cancellable spread with histograms; saves the range', async () => {
-    const page = await pageAs('designer@demo.test');
-    await page.goto(`${baseUrl}/designs/${designId}`);
+    const page = await suite.pageAs('designer@demo.test');
+    await page.goto(`${baseUrl}/designs/${suite.designId}`);
     await page.locator('[data-plot-ready="true"]').waitFor({ timeout: 60_000 });
     await page.getByTestId('corner-table').waitFor({ timeout: 60_000 });
     await expect.poll(() => page.getByTestId('corner-table').locator('tbody tr').count()).toBe(32);
@@ -74,15 +60,15 @@ describe.runIf(run)('Tune across the operating range', () => {
     await page.getByRole('button', { name: 'Save as r2' }).click();
     await expect
       .poll(async () => {
-        const res = await designer.fetch(`/api/designs/${designId}/revisions`);
+        const res = await suite.designer.fetch(`/api/designs/${suite.designId}/revisions`);
         const list = (await res.json()).revisions as { number: number }[];
         return list.length;
       })
       .toBe(2);
-    const r2 = await (await designer.fetch(`/api/designs/${designId}/revisions/2`)).json();
+    const r2 = await (await suite.designer.fetch(`/api/designs/${suite.designId}/revisions/2`)).json();
     expect(r2.input.range.l.tol).toBe(0.3);
 
-    await page.goto(`${baseUrl}/designs/${designId}/compare?a=1&b=2`);
+    await page.goto(`${baseUrl}/designs/${suite.designId}/compare?a=1&b=2`);
     await page.getByTestId('range-compare').waitFor();
     expect(await page.getByTestId('range-compare').textContent()).toContain('Worst phase margin');
     await screenshot(page, 'range-compare');

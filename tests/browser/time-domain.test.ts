@@ -5,34 +5,20 @@
  * with the revision, and Compare overlays both revisions' step responses. Screenshots go to
  * $SCREENSHOT_DIR.
  */
-import { chromium, type Browser, type Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { CHROMIUM, CHROMIUM_ARGS, chromiumAvailable } from '../support/chromium';
-import { screenshot, signedInPage } from '../support/browser';
-import { signedInAs, type Client } from '../support/http';
-import { savedDesign } from '../support/saved-design';
+import { describe, expect, inject, it } from 'vitest';
+import { chromiumAvailable } from '../support/chromium';
+import { browserWithSavedDesign, screenshot } from '../support/browser';
 
 const run = chromiumAvailable();
 const baseUrl = inject('baseUrl');
-let browser: Browser;
-let designer: Client;
-let designId: number;
-
-const pageAs = (email: string): Promise<Page> => signedInPage(browser, baseUrl, email);
-
 describe.runIf(run)('Tune: closed loop and step', () => {
-  beforeAll(async () => {
-    browser = await chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_ARGS });
-    designer = await signedInAs(baseUrl, 'designer');
-    ({ designId } = await savedDesign(designer, 'Browser step rail'));
-  });
-  afterAll(async () => browser?.close());
+  const suite = browserWithSavedDesign(baseUrl, 'Browser step rail');
 
   it('shows the closed loop, the step, the switching check, and keeps the step with the revision', async () => {
-    const page = await pageAs('designer@demo.test');
+    const page = await suite.pageAs('designer@demo.test');
     page.on('console', (m) => (m.type() === 'error' ? console.log('[browser]', m.text()) : undefined));
     page.on('pageerror', (e) => console.log('[page error]', e.message));
-    await page.goto(`${baseUrl}/designs/${designId}`);
+    await page.goto(`${baseUrl}/designs/${suite.designId}`);
     await page.locator('[data-plot-ready="true"]').first().waitFor({ timeout: 60_000 });
     await page.getByTestId('tune-view-time').click();
     await page.getByTestId('time-domain-view').waitFor();
@@ -57,9 +43,9 @@ describe.runIf(run)('Tune: closed loop and step', () => {
 
     await page.getByLabel('Revision note').fill('step to 2.5 A').catch(() => undefined);
     await page.getByRole('button', { name: /^Save/ }).first().click();
-    await expect.poll(async () => (await (await designer.fetch(`/api/designs/${designId}/revisions/2`)).json()).input?.step?.to ?? null, { timeout: 30_000 }).toBe(2.5);
+    await expect.poll(async () => (await (await suite.designer.fetch(`/api/designs/${suite.designId}/revisions/2`)).json()).input?.step?.to ?? null, { timeout: 30_000 }).toBe(2.5);
 
-    await page.goto(`${baseUrl}/designs/${designId}/compare?a=1&b=2`);
+    await page.goto(`${baseUrl}/designs/${suite.designId}/compare?a=1&b=2`);
     await page.getByTestId('step-compare').waitFor({ timeout: 60_000 });
     await screenshot(page, 'time-domain-compare');
   }, 400_000);

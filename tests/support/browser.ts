@@ -1,7 +1,10 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import type { Browser, BrowserContextOptions, Page } from 'playwright-core';
-import { DEMO_PASSWORD } from './http';
+import { chromium, type Browser, type BrowserContextOptions, type Page } from 'playwright-core';
+import { afterAll, beforeAll } from 'vitest';
+import { CHROMIUM, CHROMIUM_ARGS } from './chromium';
+import { DEMO_PASSWORD, signedInAs, type Client } from './http';
+import { savedDesign } from './saved-design';
 
 /** Screenshots for people to look at: $SCREENSHOT_DIR or /tmp/phasewright-shots. */
 export const SHOT_DIR = process.env.SCREENSHOT_DIR ?? '/tmp/phasewright-shots';
@@ -36,4 +39,34 @@ export async function signedInPage(
   await page.goto(`${baseUrl}/signin`, { waitUntil: 'networkidle' });
   await signInThroughForm(page, baseUrl, email);
   return page;
+}
+
+/**
+ * A suite's Chromium and a design saved by the designer through the API, set up in beforeAll
+ * and closed in afterAll (call inside describe). Fields are filled when the suite's tests run.
+ */
+export function browserWithSavedDesign(baseUrl: string, designName: string) {
+  let browser: Browser | undefined;
+  let designer: Client | undefined;
+  let designId = 0;
+  const ready = <T>(v: T | undefined): T => {
+    if (v === undefined) throw new Error('browserWithSavedDesign: read before beforeAll ran');
+    return v;
+  };
+  beforeAll(async () => {
+    browser = await chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_ARGS });
+    designer = await signedInAs(baseUrl, 'designer');
+    designId = (await savedDesign(designer, designName)).designId;
+  });
+  afterAll(async () => browser?.close());
+  return {
+    get designer() {
+      return ready(designer);
+    },
+    get designId() {
+      return designId;
+    },
+    /** A fresh context signed in through the form as `email`. */
+    pageAs: (email: string): Promise<Page> => signedInPage(ready(browser), baseUrl, email),
+  };
 }
