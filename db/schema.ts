@@ -37,6 +37,12 @@ export const teams = sqliteTable('teams', {
   slug: text('slug').notNull().unique(),
   /** Whether the team's admins may also review and decide sign-offs (lib/signoff-policy.ts). */
   adminsMayReview: integer('admins_may_review', { mode: 'boolean' }).notNull().default(false),
+  /**
+   * Bumped by triggers whenever anything the designs list shows changes (a design row, an
+   * owner's name, a sign-off event): the list API's cached pages are keyed by it
+   * (migration team_list_version_triggers).
+   */
+  listVersion: integer('list_version').notNull().default(0),
   createdAt: createdAt(),
 });
 

@@ -1,6 +1,6 @@
 import { and, eq, sql } from 'drizzle-orm';
 import type { Db } from '../connection';
-import { designs, type SignoffState } from '../schema';
+import { designs, teams, type SignoffState } from '../schema';
 import { writeAudit } from './audit';
 import { DESIGN_PAGE_SIZE, defaultSortDir, type DesignListQuery, type DesignSort } from '@/lib/designs-list-query';
 
@@ -146,6 +146,15 @@ export function listDesignsPage(
       ORDER BY ${sql.raw(ORDER_COLUMN[query.sort])} ${dir}, d.id ${dir}
       LIMIT ${pageSize} OFFSET ${(page - 1) * pageSize}`);
   return { designs: rows.map(toListItem), total, page, pageSize };
+}
+
+/**
+ * What the designs list depends on beyond its rows: the team's list version (bumped by triggers
+ * on any change the list shows) and its sign-off setting (whether admins review), in one lookup.
+ */
+export function teamListState(db: Db, teamId: number): { listVersion: number; adminsMayReview: boolean } {
+  const row = db.select({ listVersion: teams.listVersion, adminsMayReview: teams.adminsMayReview }).from(teams).where(eq(teams.id, teamId)).get();
+  return { listVersion: row?.listVersion ?? 0, adminsMayReview: row?.adminsMayReview ?? false };
 }
 
 /** The designs matching the list's bucket filters (archived, topology, status), from design_counts. */

@@ -5,9 +5,10 @@
  */
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { eq, sql } from 'drizzle-orm';
-import { createDesign, createRevision, createTeam, deleteDesign, listDesignsPage, setDesignArchived, submitForReview, updateDesign } from '@/db/queries';
+import { createDesign, createRevision, createTeam, deleteDesign, listDesignsPage, setDesignArchived, submitForReview, teamListState, updateDesign } from '@/db/queries';
+import { designsListJson } from '@/lib/designs-list-cache';
 import type { Db } from '@/db/connection';
-import { designs, memberships } from '@/db/schema';
+import { designs, memberships, users } from '@/db/schema';
 import { DESIGN_SORTS, designListQuerySchema, type DesignListQuery } from '@/lib/validation/design';
 import { sampleRevisionBody } from '../support/sample-revision';
 import { tempDb } from '../support/temp-db';
@@ -127,5 +128,51 @@ describe('listDesignsPage', () => {
       .join('\n');
     expect(plan).toMatch(/USING INDEX designs_team_/);
     expect(plan).not.toMatch(/TEMP B-TREE/);
+  });
+
+  it("bumps the team's list version on every change the list shows, and only that team's", () => {
+    const ids = listDesignsPage(db, team, q({ sort: 'name', dir: 'asc' })).designs.map((d) => d.id);
+    const version = () => teamListState(db, team).listVersion;
+    const changes: [string, () => unknown][] = [
+      ['new design', () => createDesign(db, designer, team, { name: 'Fresh', topology: 'buck' })],
+      ['rename', () => updateDesign(db, designer, team, ids[0], { name: 'Renamed' })],
+      ['first save', () => createRevision(db, { teamId: team, designId: ids[1], baseNumber: null, ...sampleRevisionBody(), authorId: designer, note: '' })],
+      ['archive', () => setDesignArchived(db, designer, team, ids[2], true)],
+      ['owner renamed', () => db.update(users).set({ name: 'Dana D. Designer' }).where(eq(users.id, designer)).run()],
+      ['delete', () => deleteDesign(db, designer, team, ids[3])],
+    ];
+    for (const [what, change] of changes) {
+      const before = version();
+      change();
+      expect(version(), what).toBeGreaterThan(before);
+    }
+    const r = createRevision(db, { teamId: team, designId: ids[4], baseNumber: null, ...sampleRevisionBody(), authorId: designer, note: '' });
+    const before = version();
+    submitForReview(db, { teamId: team, designId: ids[4], revisionId: r.id, number: 1 }, { actorId: designer, reviewerId: reviewer, message: '' });
+    expect(version(), 'sign-off event').toBeGreaterThan(before);
+    // Another team's version moves only for what it shows (the designer owns designs there too).
+    const otherVersion = teamListState(db, other).listVersion;
+    updateDesign(db, designer, team, ids[5], { name: 'Only here' });
+    expect(teamListState(db, other).listVersion).toBe(otherVersion);
+    db.update(users).set({ name: 'Dana Again' }).where(eq(users.id, designer)).run();
+    expect(teamListState(db, other).listVersion).toBeGreaterThan(otherVersion);
+  });
+
+  it('the cached list page is never stale: a rename, an owner rename and a submission show at once', () => {
+    const viewer = { teamId: team, userId: reviewer, role: 'reviewer' as const };
+    const page = (over: Partial<DesignListQuery> = {}) => JSON.parse(designsListJson(db, viewer, q({ sort: 'name', dir: 'asc', ...over })));
+    const first = page();
+    expect(page()).toEqual(first);
+    const id = first.designs[0].id;
+    updateDesign(db, designer, team, id, { name: 'Aardvark rail' });
+    expect(page().designs[0].name).toBe('Aardvark rail');
+    db.update(users).set({ name: 'Dana Renamed' }).where(eq(users.id, designer)).run();
+    expect(page().designs[0].ownerName).toBe('Dana Renamed');
+    expect(page({ waiting: 'me' }).total).toBe(0);
+    const r = createRevision(db, { teamId: team, designId: id, baseNumber: null, ...sampleRevisionBody(), authorId: designer, note: '' });
+    submitForReview(db, { teamId: team, designId: id, revisionId: r.id, number: 1 }, { actorId: designer, reviewerId: reviewer, message: '' });
+    expect(page({ waiting: 'me' }).total).toBe(1);
+    // Another viewer's "waiting for me" is theirs, not the reviewer's cached page.
+    expect(JSON.parse(designsListJson(db, { teamId: team, userId: designer, role: 'designer' }, q({ waiting: 'me' }))).total).toBe(0);
   });
 });

@@ -1,7 +1,7 @@
 import { NextResponse } from 'next/server';
 import { getDb } from '@/db/client';
-import { createDesign, getTeamSignoffSettings, listDesignsPage } from '@/db/queries';
-import { mayReview } from '@/lib/signoff-policy';
+import { createDesign } from '@/db/queries';
+import { designsListJson } from '@/lib/designs-list-cache';
 import { can } from '@/lib/auth';
 import { HttpError, parseJson, withUser } from '@/lib/api';
 import { designCreateSchema, parseDesignListQuery } from '@/lib/validation/design';
@@ -14,9 +14,8 @@ import { zodIssues } from '@/lib/validation/analyze';
 export const GET = withUser(async (req, { user }) => {
   const query = parseDesignListQuery(new URL(req.url).searchParams);
   if (!query.success) throw new HttpError(400, 'The list parameters do not fit', zodIssues(query.error));
-  const db = getDb();
-  const reviewsUnnamed = mayReview(user.role, getTeamSignoffSettings(db, user.teamId));
-  return NextResponse.json(listDesignsPage(db, user.teamId, query.data, { userId: user.id, reviewsUnnamed }));
+  const body = designsListJson(getDb(), { teamId: user.teamId, userId: user.id, role: user.role }, query.data);
+  return new NextResponse(body, { headers: { 'content-type': 'application/json' } });
 });
 
 export const POST = withUser(

@@ -1,0 +1,1 @@
+ALTER TABLE `teams` ADD `list_version` integer DEFAULT 0 NOT NULL;
