@@ -1,29 +1,57 @@
 import { LRUCache } from 'lru-cache';
 import type { Db } from '@/db/connection';
-import { listDesignsPage, teamListState } from '@/db/queries';
+import { countDesigns, countDesignsWaitingFor, listDesignsPage, teamListState, type DesignPage } from '@/db/queries';
 import type { DesignListQuery } from '@/lib/designs-list-query';
 import { mayReview } from '@/lib/signoff-policy';
 import type { Role } from '@/lib/catalog';
 
 /**
- * Serialized pages of the designs list, keyed by the team's list version: triggers bump it on
- * every change the list shows (migration team_list_version_triggers), so a cached page is never
- * stale, and a team that reloads its list (the page, refetch on focus, scripts) reads one row
- * instead of a page of designs. Per process; bounded by count and size.
+ * The designs list as a team sees it, cached by the team's list version: triggers bump it on
+ * every change the list shows (migration team_list_version_triggers), so a cached answer is
+ * never stale, and a team that reloads its list (the page, refetch on focus, scripts) reads one
+ * row instead of a page of designs and its counts. Per process; bounded by count and size.
+ * Cached pages are shared between requests: read them, never change them.
  */
-const pages = new LRUCache<string, string>({ max: 500, maxSize: 32 * 1024 * 1024, sizeCalculation: (body) => body.length });
+const pages = new LRUCache<string, { page: DesignPage; json: string }>({ max: 500, maxSize: 32 * 1024 * 1024, sizeCalculation: (e) => e.json.length });
+const counts = new LRUCache<string, { count: number; waitingCount: number }>({ max: 2000 });
 
-/** The list page as JSON text, from the cache when the team's list has not changed since. */
-export function designsListJson(db: Db, viewer: { teamId: number; userId: number; role: Role }, query: DesignListQuery): string {
+export interface ListViewer {
+  teamId: number;
+  userId: number;
+  role: Role;
+}
+
+const teamState = (db: Db, viewer: ListViewer) => {
   const team = teamListState(db, viewer.teamId);
-  const reviewsUnnamed = mayReview(viewer.role, team);
+  return { version: team.listVersion, reviewsUnnamed: mayReview(viewer.role, team) };
+};
+
+/** One page of the list, as the object and as the JSON text the API sends. */
+export function designsListPage(db: Db, viewer: ListViewer, query: DesignListQuery): { page: DesignPage; json: string; reviewsUnnamed: boolean } {
+  const { version, reviewsUnnamed } = teamState(db, viewer);
   // Only "waiting for me" depends on who asks; every other page is the same for the whole team.
   const who = query.waiting === 'me' ? `${viewer.userId}:${reviewsUnnamed}` : '';
-  const key = `${viewer.teamId}:${team.listVersion}:${who}:${JSON.stringify(query)}`;
-  let body = pages.get(key);
-  if (body === undefined) {
-    body = JSON.stringify(listDesignsPage(db, viewer.teamId, query, { userId: viewer.userId, reviewsUnnamed }));
-    pages.set(key, body);
+  const key = `${viewer.teamId}:${version}:${who}:${JSON.stringify(query)}`;
+  let entry = pages.get(key);
+  if (entry === undefined) {
+    const page = listDesignsPage(db, viewer.teamId, query, { userId: viewer.userId, reviewsUnnamed });
+    entry = { page, json: JSON.stringify(page) };
+    pages.set(key, entry);
   }
-  return body;
+  return { ...entry, reviewsUnnamed };
+}
+
+/** The list page as JSON text (GET /api/designs). */
+export const designsListJson = (db: Db, viewer: ListViewer, query: DesignListQuery): string => designsListPage(db, viewer, query).json;
+
+/** The team's number of designs and how many wait for this viewer's review (the list's header and tabs). */
+export function designListCounts(db: Db, viewer: ListViewer): { count: number; waitingCount: number; reviewsUnnamed: boolean } {
+  const { version, reviewsUnnamed } = teamState(db, viewer);
+  const key = `${viewer.teamId}:${version}:${viewer.userId}:${reviewsUnnamed}`;
+  let entry = counts.get(key);
+  if (entry === undefined) {
+    entry = { count: countDesigns(db, viewer.teamId), waitingCount: countDesignsWaitingFor(db, viewer.teamId, viewer.userId, reviewsUnnamed) };
+    counts.set(key, entry);
+  }
+  return { ...entry, reviewsUnnamed };
 }

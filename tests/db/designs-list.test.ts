@@ -6,7 +6,7 @@
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { eq, sql } from 'drizzle-orm';
 import { createDesign, createRevision, createTeam, deleteDesign, listDesignsPage, setDesignArchived, submitForReview, teamListState, updateDesign } from '@/db/queries';
-import { designsListJson } from '@/lib/designs-list-cache';
+import { designListCounts, designsListJson } from '@/lib/designs-list-cache';
 import type { Db } from '@/db/connection';
 import { designs, memberships, users } from '@/db/schema';
 import { DESIGN_SORTS, designListQuerySchema, type DesignListQuery } from '@/lib/validation/design';
@@ -158,7 +158,7 @@ describe('listDesignsPage', () => {
     expect(teamListState(db, other).listVersion).toBeGreaterThan(otherVersion);
   });
 
-  it('the cached list page is never stale: a rename, an owner rename and a submission show at once', () => {
+  it('the cached list page and counts are never stale: a rename, an owner rename, a submission and a new design show at once', () => {
     const viewer = { teamId: team, userId: reviewer, role: 'reviewer' as const };
     const page = (over: Partial<DesignListQuery> = {}) => JSON.parse(designsListJson(db, viewer, q({ sort: 'name', dir: 'asc', ...over })));
     const first = page();
@@ -169,9 +169,12 @@ describe('listDesignsPage', () => {
     db.update(users).set({ name: 'Dana Renamed' }).where(eq(users.id, designer)).run();
     expect(page().designs[0].ownerName).toBe('Dana Renamed');
     expect(page({ waiting: 'me' }).total).toBe(0);
+    expect(designListCounts(db, viewer)).toMatchObject({ count: 250, waitingCount: 0 });
     const r = createRevision(db, { teamId: team, designId: id, baseNumber: null, ...sampleRevisionBody(), authorId: designer, note: '' });
     submitForReview(db, { teamId: team, designId: id, revisionId: r.id, number: 1 }, { actorId: designer, reviewerId: reviewer, message: '' });
     expect(page({ waiting: 'me' }).total).toBe(1);
+    createDesign(db, designer, team, { name: 'One more', topology: 'boost' });
+    expect(designListCounts(db, viewer)).toMatchObject({ count: 251, waitingCount: 1, reviewsUnnamed: true });
     // Another viewer's "waiting for me" is theirs, not the reviewer's cached page.
     expect(JSON.parse(designsListJson(db, { teamId: team, userId: designer, role: 'designer' }, q({ waiting: 'me' }))).total).toBe(0);
   });

@@ -1,7 +1,6 @@
 import type { Metadata } from 'next';
 import { getDb } from '@/db/client';
-import { countDesigns, countDesignsWaitingFor, getTeamSignoffSettings, listDesignsPage } from '@/db/queries';
-import { mayReview } from '@/lib/signoff-policy';
+import { designListCounts, designsListPage } from '@/lib/designs-list-cache';
 import { can, requireUser } from '@/lib/auth';
 import { designListSearch, readDesignListQuery } from '@/lib/designs-list-query';
 import { DesignsTable } from '@/components/designs/designs-table';
@@ -21,10 +20,9 @@ export default async function DesignsPage({ searchParams }: { searchParams: Prom
   const query = readDesignListQuery(await searchParams);
   const view: DesignListView = query.waiting === 'me' ? 'waiting' : query.archived === 'archived' ? 'archived' : 'active';
   const db = getDb();
-  const reviewsUnnamed = mayReview(user.role, getTeamSignoffSettings(db, user.teamId));
-  const first = listDesignsPage(db, user.teamId, query, { userId: user.id, reviewsUnnamed });
-  const count = countDesigns(db, user.teamId);
-  const waitingCount = countDesignsWaitingFor(db, user.teamId, user.id, reviewsUnnamed);
+  const viewer = { teamId: user.teamId, userId: user.id, role: user.role };
+  const first = designsListPage(db, viewer, query).page;
+  const { count, waitingCount, reviewsUnnamed } = designListCounts(db, viewer);
   return (
     <div className="space-y-4">
       <div className="flex flex-wrap items-end justify-between gap-3">
