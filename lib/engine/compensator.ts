@@ -26,8 +26,7 @@
 import Complex from 'complex.js';
 import { polyMul } from './complex-poly';
 import { multiplyTransfers, polyAdd, transferFromAnyPolys, transferFromPolys, type SectionedTransfer } from './transfer';
-import { dbFromMag, wrapDeg } from './transfer';
-import { transferEvaluator } from './sweep';
+import { dbFromMag } from './transfer';
 import {
   EngineInputError,
   type CompensatorInput,
@@ -142,10 +141,6 @@ export const compensatorTransfer = (comp: CompensatorInput): SectionedTransfer =
   if (comp.opamp) return realOpAmpTransfer(comp, comp.opamp.a0, comp.opamp.gbw);
   return idealOpAmpTransfer(comp);
 };
-
-/** The same compensator with an ideal amplifier (finite op-amp model dropped). */
-export const idealCompensatorTransfer = (comp: CompensatorInput): SectionedTransfer =>
-  comp.amplifier === 'transconductance' ? transconductanceTransfer(comp) : idealOpAmpTransfer(comp);
 
 /**
  * Integrator 0 dB frequency, Hz: op-amp 1/(2π·R1·(C1+C2)); transconductance
