@@ -27,8 +27,8 @@ const teamState = (db: Db, viewer: ListViewer) => {
 };
 
 /** One page of the list, as the object and as the JSON text the API sends. */
-export function designsListPage(db: Db, viewer: ListViewer, query: DesignListQuery): { page: DesignPage; json: string; reviewsUnnamed: boolean } {
-  const { version, reviewsUnnamed } = teamState(db, viewer);
+export function designsListPage(db: Db, viewer: ListViewer, query: DesignListQuery, state = teamState(db, viewer)): { page: DesignPage; json: string } {
+  const { version, reviewsUnnamed } = state;
   // Only "waiting for me" depends on who asks; every other page is the same for the whole team.
   const who = query.waiting === 'me' ? `${viewer.userId}:${reviewsUnnamed}` : '';
   const key = `${viewer.teamId}:${version}:${who}:${JSON.stringify(query)}`;
@@ -38,20 +38,23 @@ export function designsListPage(db: Db, viewer: ListViewer, query: DesignListQue
     entry = { page, json: JSON.stringify(page) };
     pages.set(key, entry);
   }
-  return { ...entry, reviewsUnnamed };
+  return entry;
 }
 
 /** The list page as JSON text (GET /api/designs). */
 export const designsListJson = (db: Db, viewer: ListViewer, query: DesignListQuery): string => designsListPage(db, viewer, query).json;
 
-/** The team's number of designs and how many wait for this viewer's review (the list's header and tabs). */
-export function designListCounts(db: Db, viewer: ListViewer): { count: number; waitingCount: number; reviewsUnnamed: boolean } {
-  const { version, reviewsUnnamed } = teamState(db, viewer);
-  const key = `${viewer.teamId}:${version}:${viewer.userId}:${reviewsUnnamed}`;
+/**
+ * What the designs page shows: one page of the list, the team's number of designs and how many
+ * wait for this viewer's review (header and tabs), from one read of the team's version.
+ */
+export function designsListView(db: Db, viewer: ListViewer, query: DesignListQuery): { page: DesignPage; count: number; waitingCount: number; reviewsUnnamed: boolean } {
+  const state = teamState(db, viewer);
+  const key = `${viewer.teamId}:${state.version}:${viewer.userId}:${state.reviewsUnnamed}`;
   let entry = counts.get(key);
   if (entry === undefined) {
-    entry = { count: countDesigns(db, viewer.teamId), waitingCount: countDesignsWaitingFor(db, viewer.teamId, viewer.userId, reviewsUnnamed) };
+    entry = { count: countDesigns(db, viewer.teamId), waitingCount: countDesignsWaitingFor(db, viewer.teamId, viewer.userId, state.reviewsUnnamed) };
     counts.set(key, entry);
   }
-  return { ...entry, reviewsUnnamed };
+  return { page: designsListPage(db, viewer, query, state).page, ...entry, reviewsUnnamed: state.reviewsUnnamed };
 }

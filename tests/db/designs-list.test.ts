@@ -6,7 +6,7 @@
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { eq, sql } from 'drizzle-orm';
 import { createDesign, createRevision, createTeam, deleteDesign, listDesignsPage, setDesignArchived, submitForReview, teamListState, updateDesign } from '@/db/queries';
-import { designListCounts, designsListJson } from '@/lib/designs-list-cache';
+import { designsListJson, designsListView } from '@/lib/designs-list-cache';
 import type { Db } from '@/db/connection';
 import { designs, memberships, users } from '@/db/schema';
 import { DESIGN_SORTS, designListQuerySchema, type DesignListQuery } from '@/lib/validation/design';
@@ -169,12 +169,12 @@ describe('listDesignsPage', () => {
     db.update(users).set({ name: 'Dana Renamed' }).where(eq(users.id, designer)).run();
     expect(page().designs[0].ownerName).toBe('Dana Renamed');
     expect(page({ waiting: 'me' }).total).toBe(0);
-    expect(designListCounts(db, viewer)).toMatchObject({ count: 250, waitingCount: 0 });
+    expect(designsListView(db, viewer, q())).toMatchObject({ count: 250, waitingCount: 0 });
     const r = createRevision(db, { teamId: team, designId: id, baseNumber: null, ...sampleRevisionBody(), authorId: designer, note: '' });
     submitForReview(db, { teamId: team, designId: id, revisionId: r.id, number: 1 }, { actorId: designer, reviewerId: reviewer, message: '' });
     expect(page({ waiting: 'me' }).total).toBe(1);
     createDesign(db, designer, team, { name: 'One more', topology: 'boost' });
-    expect(designListCounts(db, viewer)).toMatchObject({ count: 251, waitingCount: 1, reviewsUnnamed: true });
+    expect(designsListView(db, viewer, q())).toMatchObject({ count: 251, waitingCount: 1, reviewsUnnamed: true });
     // Another viewer's "waiting for me" is theirs, not the reviewer's cached page.
     expect(JSON.parse(designsListJson(db, { teamId: team, userId: designer, role: 'designer' }, q({ waiting: 'me' }))).total).toBe(0);
   });

@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import { getDb } from '@/db/client';
-import { designListCounts, designsListPage } from '@/lib/designs-list-cache';
+import { designsListView } from '@/lib/designs-list-cache';
 import { can, requireUser } from '@/lib/auth';
 import { designListSearch, readDesignListQuery } from '@/lib/designs-list-query';
 import { DesignsTable } from '@/components/designs/designs-table';
@@ -21,8 +21,7 @@ export default async function DesignsPage({ searchParams }: { searchParams: Prom
   const view: DesignListView = query.waiting === 'me' ? 'waiting' : query.archived === 'archived' ? 'archived' : 'active';
   const db = getDb();
   const viewer = { teamId: user.teamId, userId: user.id, role: user.role };
-  const first = designsListPage(db, viewer, query).page;
-  const { count, waitingCount, reviewsUnnamed } = designListCounts(db, viewer);
+  const { page: first, count, waitingCount, reviewsUnnamed } = designsListView(db, viewer, query);
   return (
     <div className="space-y-4">
       <div className="flex flex-wrap items-end justify-between gap-3">
