@@ -14,7 +14,7 @@ import { buildControlPlant } from './control';
 import { snapToSeries } from './eseries';
 import { computeMargins, computeMarginsFromComplex, type LoopPointEvaluator } from './margins';
 import { esrZeroHint, type PlantModel } from './plant';
-import { defaultSweep, logSweep, makeGrid, sweepComplex, sweepTransfer, transferEvaluator, type Grid } from './sweep';
+import { defaultSweep, sweepComplex, sweepGrid, sweepTransfer, transferEvaluator, type Grid } from './sweep';
 import { multiplyTransfers, phaseOffsetDeg, summarizeTransfer, type SectionedTransfer } from './transfer';
 import { withLossDefaults } from './steady-state';
 import { compensatorIssues, stageIssues, validateRequest } from './validate';
@@ -96,7 +96,7 @@ const prepareValidPlant = (req: StageRequest): PreparedPlant => {
   const control = buildControlPlant(converter, req.modulator);
   const plantTransfer = control.plantTransfer;
   const sweep = req.sweep ?? defaultSweep(converter.fsw);
-  const grid = makeGrid(logSweep(sweep.fStart, sweep.fStop, sweep.points));
+  const grid = sweepGrid(sweep.fStart, sweep.fStop, sweep.points);
   const hint = esrZeroHint(converter);
   const op = control.operatingPoint;
   return {
@@ -207,7 +207,7 @@ export const loopPlant = (req: StageRequest): { plantTransfer: SectionedTransfer
   const sweep = req.sweep ?? defaultSweep(converter.fsw);
   return {
     plantTransfer: buildControlPlant(converter, req.modulator).plantTransfer,
-    grid: makeGrid(logSweep(sweep.fStart, sweep.fStop, sweep.points)),
+    grid: sweepGrid(sweep.fStart, sweep.fStop, sweep.points),
   };
 };
 

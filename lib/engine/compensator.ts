@@ -24,7 +24,7 @@
  * shape with 1/R1 replaced by gm·H0. Here the divider is inside the loop (no virtual ground).
  */
 import Complex from 'complex.js';
-import { polyMul } from './complex-poly';
+import { evalPolyJw, polyMul } from './complex-poly';
 import { multiplyTransfers, polyAdd, transferFromAnyPolys, transferFromPolys, type SectionedTransfer } from './transfer';
 import { dbFromMag } from './transfer';
 import {
@@ -300,13 +300,28 @@ export const dividerRb = (r1: number, vref: number, vout: number): number => (r1
  * realised stage is the ideal one times 1/(1 + NG/A) (Sedra & Smith, ch. 2; with the divider's
  * Rb at the inverting input, Gc = A·Zf/((1 + A)·Zi + Zf + Zi·Zf/Rb) divides to the same form).
  */
-const noiseGains = (comp: CompensatorInput, freqsHz: readonly number[]): [number, number][] =>
-  freqsHz.map((f) => {
-    const { zi, zf } = compensatorImpedances(comp, new Complex(0, TWO_PI * f));
-    const zin = comp.rb !== undefined && comp.rb > 0 ? zi.mul(comp.rb).div(zi.add(comp.rb)) : zi;
-    const ng = zf.div(zin).add(1);
-    return [ng.re, ng.im];
-  });
+const noiseGains = (comp: CompensatorInput, freqsHz: readonly number[]): [number, number][] => {
+  // Plain numbers from the stage's polynomials (Zf/Zi = Nf·Di/(Df·Ni)): complex.js values
+  // here cost several microseconds per analysis of a finite op-amp.
+  const { zi, zf } = opAmpPolys(comp);
+  const rb = comp.rb !== undefined && comp.rb > 0 ? comp.rb : Infinity;
+  const out: [number, number][] = [];
+  for (let k = 0; k < freqsHz.length; k++) {
+    const w = TWO_PI * freqsHz[k];
+    const [nfr, nfi] = evalPolyJw(zf.n, w);
+    const [dir, dii] = evalPolyJw(zi.d, w);
+    const [dfr, dfi] = evalPolyJw(zf.d, w);
+    const [nir, nii] = evalPolyJw(zi.n, w);
+    // Zf·(1/Zi + 1/Rb) = (Nf·Di + Nf·Ni/Rb) / (Df·Ni)
+    const ar = nfr * dir - nfi * dii + (nfr * nir - nfi * nii) / rb;
+    const ai = nfr * dii + nfi * dir + (nfr * nii + nfi * nir) / rb;
+    const br = dfr * nir - dfi * nii;
+    const bi = dfr * nii + dfi * nir;
+    const bb = br * br + bi * bi;
+    out.push([1 + (ar * br + ai * bi) / bb, (ai * br - ar * bi) / bb]);
+  }
+  return out;
+};
 
 /**
  * The departure 1/(1 + NG/A) of the realised stage from the ideal one at each frequency, with

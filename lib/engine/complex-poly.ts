@@ -90,15 +90,39 @@ const rootPairs = (p: Poly): [number, number][] => {
   // In x = s/σ: q[k] = t[k]·σ^k / t[0], so q[0] = 1 and |q[n]| = 1.
   const q = new Array<number>(n + 1);
   for (let k = 0, sk = 1 / t[0]; k <= n; k++, sk *= sigma) q[k] = t[k] * sk;
-  // Start on the unit circle, turned off the real axis.
+  // Starting points from the Newton polygon (D. A. Bini, "Numerical computation of polynomial
+  // zeros by means of Aberth's method", Numer. Algorithms 13 (1996) 179–200, §3): the upper
+  // convex hull of (k, ln|q_k|); an edge from k_i to k_j carries k_j − k_i starts on the circle
+  // of radius (|q_{k_i}|/|q_{k_j}|)^(1/(k_j − k_i)). Roots that lie decades apart (a finite
+  // op-amp's poles) then start near their own size, and the iteration needs a few steps
+  // instead of a dozen from the unit circle.
   const re = new Array<number>(n);
   const im = new Array<number>(n);
-  const [cr, ci] = [Math.cos((2 * Math.PI) / n), Math.sin((2 * Math.PI) / n)];
-  re[0] = Math.cos(0.4);
-  im[0] = Math.sin(0.4);
-  for (let k = 1; k < n; k++) {
-    re[k] = re[k - 1] * cr - im[k - 1] * ci;
-    im[k] = re[k - 1] * ci + im[k - 1] * cr;
+  const hull: number[] = [];
+  for (let k = 0; k <= n; k++) {
+    if (q[k] === 0) continue;
+    const lk = Math.log(Math.abs(q[k]));
+    while (hull.length >= 2) {
+      const a = hull[hull.length - 2];
+      const b = hull[hull.length - 1];
+      const la = Math.log(Math.abs(q[a]));
+      const lb = Math.log(Math.abs(q[b]));
+      // Drop b when it lies on or below the chord from a to k.
+      if ((lb - la) * (k - a) <= (lk - la) * (b - a)) hull.pop();
+      else break;
+    }
+    hull.push(k);
+  }
+  for (let h = 0, j = 0; h + 1 < hull.length; h++) {
+    const a = hull[h];
+    const b = hull[h + 1];
+    const m = b - a;
+    const u = Math.pow(Math.abs(q[a] / q[b]), 1 / m);
+    for (let i = 0; i < m; i++, j++) {
+      const ang = (2 * Math.PI * i) / m + (2 * Math.PI * h) / n + 0.4;
+      re[j] = u * Math.cos(ang);
+      im[j] = u * Math.sin(ang);
+    }
   }
   const done = new Array<boolean>(n).fill(false);
   for (let iter = 0, active = n; iter < 100 && active > 0; iter++) {
@@ -153,7 +177,9 @@ const rootPairs = (p: Poly): [number, number][] => {
       else active++;
     }
   }
-    return re.map((r, k): [number, number] => [r * sigma, im[k] * sigma]);
+  const out: [number, number][] = [];
+  for (let k = 0; k < n; k++) out.push([re[k] * sigma, im[k] * sigma]);
+  return out;
 };
 
 /**
@@ -166,23 +192,41 @@ const classifyRoots = (roots: [number, number][]): { real: number[]; pairs: [num
   const real: number[] = [];
   const pairs: [number, number][] = [];
   const left: [number, number][] = [];
-  for (const x of roots) {
+  for (let k = 0; k < roots.length; k++) {
+    const x = roots[k];
     if (x[1] * x[1] > 1e-14 * (x[0] * x[0] + x[1] * x[1])) left.push(x);
     else real.push(x[0]);
   }
-  // Largest imaginary part first; each takes the nearest conjugate of what is left.
-  left.sort((a, b) => Math.abs(b[1]) - Math.abs(a[1]));
-  const used = new Array<boolean>(left.length).fill(false);
+  // Largest imaginary part first (insertion sort: at most a few roots; no comparator closure
+  // on this path, which runs for every factored polynomial of every analysis).
+  for (let a = 1; a < left.length; a++) {
+    const x = left[a];
+    let b = a - 1;
+    while (b >= 0 && Math.abs(left[b][1]) < Math.abs(x[1])) {
+      left[b + 1] = left[b];
+      b--;
+    }
+    left[b + 1] = x;
+  }
+  // Each takes the nearest conjugate of what is left.
+  const used: boolean[] = [];
+  for (let a = 0; a < left.length; a++) used.push(false);
   for (let a = 0; a < left.length; a++) {
     if (used[a]) continue;
     used[a] = true;
-    const [r, i] = left[a];
+    const r = left[a][0];
+    const i = left[a][1];
     let best = -1;
     let bestGap = Infinity;
     for (let b = a + 1; b < left.length; b++) {
       if (used[b]) continue;
-      const gap = (left[b][0] - r) ** 2 + (left[b][1] + i) ** 2;
-      if (gap < bestGap) [best, bestGap] = [b, gap];
+      const dr = left[b][0] - r;
+      const di = left[b][1] + i;
+      const gap = dr * dr + di * di;
+      if (gap < bestGap) {
+        best = b;
+        bestGap = gap;
+      }
     }
     if (best < 0) {
       real.push(r);

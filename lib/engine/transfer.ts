@@ -111,8 +111,34 @@ export const dbFromMagSq = (magSq: number): number => DB_PER_LN_MAGSQ * Math.log
 /** 20·log10(x) for a magnitude x. */
 export const dbFromMag = (mag: number): number => 20 * Math.log10(mag);
 
-/** Roots of one section [1, a1] or [1, a1, a2] (rad/s), by the engine's one root finder. */
-const sectionRoots = (p: Poly): { re: number; im: number }[] => polyRootsPlain(p);
+/**
+ * Roots of one section [1, a1] or [1, a1, a2] (rad/s), pushed onto `out`: the closed forms of
+ * the engine's root finder (polyRootsPlain: real roots first, then a pair with im > 0 first),
+ * inline because every summary of every analysis reads them.
+ */
+const pushSectionRoots = (p: Poly, out: { re: number; im: number }[]): void => {
+  const a1 = p.length > 1 ? p[1] : 0;
+  const a2 = p.length > 2 ? p[2] : 0;
+  if (a2 === 0) {
+    if (a1 !== 0) out.push({ re: -1 / a1, im: 0 });
+    else if (p.length > 3) for (const r of polyRootsPlain(p)) out.push(r);
+    return;
+  }
+  if (p.length > 3) {
+    for (const r of polyRootsPlain(p)) out.push(r);
+    return;
+  }
+  const disc = a1 * a1 - 4 * a2;
+  if (disc >= 0) {
+    const sq = Math.sqrt(disc);
+    const q = -0.5 * (a1 + (a1 >= 0 ? sq : -sq));
+    out.push({ re: q / a2, im: 0 }, { re: 1 / q, im: 0 });
+    return;
+  }
+  const re = -a1 / (2 * a2);
+  const im = Math.sqrt(-disc) / (2 * Math.abs(a2));
+  out.push({ re, im }, { re, im: -im });
+};
 
 /** Poles and zeros of a sectioned transfer (rad/s), origin roots included as 0. */
 export const transferRoots = (h: SectionedTransfer): { zeros: { re: number; im: number }[]; poles: { re: number; im: number }[] } => {
@@ -120,8 +146,8 @@ export const transferRoots = (h: SectionedTransfer): { zeros: { re: number; im: 
   const poles: { re: number; im: number }[] = [];
   for (let k = 0; k < h.originOrder; k++) zeros.push({ re: 0, im: 0 });
   for (let k = 0; k < -h.originOrder; k++) poles.push({ re: 0, im: 0 });
-  for (const p of h.num) zeros.push(...sectionRoots(p));
-  for (const p of h.den) poles.push(...sectionRoots(p));
+  for (const p of h.num) pushSectionRoots(p, zeros);
+  for (const p of h.den) pushSectionRoots(p, poles);
   return { zeros, poles };
 };
 
