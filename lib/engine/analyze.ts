@@ -12,9 +12,9 @@ import { compensatorTransfer, dividerRb, gbwEnough, opAmpShapeError, shapeFromPa
 import { amplifierChecks, loopChecks, modulatorChecks, partChecks, stageChecks } from './checks';
 import { buildControlPlant } from './control';
 import { snapToSeries } from './eseries';
-import { computeMargins, computeMarginsFromComplex, type LoopPointEvaluator } from './margins';
+import { computeMargins, marginsFromScan, type LoopPointEvaluator } from './margins';
 import { esrZeroHint, type PlantModel } from './plant';
-import { defaultSweep, sweepComplex, sweepGrid, sweepTransfer, transferEvaluator, type Grid } from './sweep';
+import { defaultSweep, scanTransfer, sweepGrid, sweepTransfer, transferEvaluator, type Grid } from './sweep';
 import { multiplyTransfers, phaseOffsetDeg, summarizeTransfer, type SectionedTransfer } from './transfer';
 import { withLossDefaults } from './steady-state';
 import { compensatorIssues, stageIssues, validateRequest } from './validate';
@@ -171,13 +171,10 @@ const checkCompensator = (comp: CompensatorInput) => {
   if (issues.length > 0) throw new EngineInputError(issues);
 };
 
-/** Work buffers for the loop samples of marginsForCompensator (synchronous use only). */
-const loopWork = { re: [] as number[], im: [] as number[] };
-
 /**
- * Loop margins only, no traces (snapped parts, corner sweeps): T = Gc·Gvd/Vramp on the grid
- * as complex samples (section products, no arctangent or logarithm per point); only the
- * crossings are then refined on the analytic loop, as in analyzeLoop, so the margins are
+ * Loop margins only, no traces (snapped parts, corner sweeps): T = Gc·Gvd/Vramp scanned on
+ * the grid for its crossings (section products, no arctangent or logarithm per point:
+ * scanTransfer); only the crossings are then refined on the analytic loop, as in analyzeLoop, so the margins are
  * those a full sweep would give.
  */
 export const marginsForCompensator = (prepared: PreparedPlant, comp: CompensatorInput): Margins => {
@@ -191,10 +188,8 @@ export const marginsForCompensator = (prepared: PreparedPlant, comp: Compensator
  * op-amp's Rb is read from comp.rb (see withLoopDivider).
  */
 export const loopMargins = (plantTransfer: SectionedTransfer, grid: Grid, comp: CompensatorInput): Margins => {
-  const loop = multiplyTransfers(plantTransfer, compensatorTransfer(comp));
-  const { f } = grid;
-  const t = sweepComplex(loop, grid, loopWork);
-  return computeMarginsFromComplex(f, t.re, t.im, transferEvaluator(loop, f[0]));
+  const { scan, evaluate } = scanTransfer(multiplyTransfers(plantTransfer, compensatorTransfer(comp)), grid);
+  return marginsFromScan(grid.f, scan, evaluate);
 };
 
 /**

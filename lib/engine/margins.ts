@@ -160,11 +160,45 @@ export const computeMargins = (sampled: SampledResponse, evaluate?: LoopPointEva
 };
 
 /**
+ * Where a loop's samples on a grid may cross the margins' levels: the intervals i (between
+ * f_i and f_{i+1}) where |T|² passes 1, with |T|² at both ends, and the intervals where
+ * Im T changes sign (T passes the real axis: the candidates for a −180° crossing).
+ */
+export interface LoopScan {
+  gainAt: number[];
+  /** |T|² at the two ends of each gainAt interval, flat: [m_i, m_{i+1}, …]. */
+  gainMagSq: number[];
+  phaseAt: number[];
+}
+
+/**
+ * Margins from a scan (see LoopScan): each gain interval is refined on `evaluate`; each
+ * phase candidate is kept when the continuous phase of `evaluate` passes −180° between its
+ * two samples, then refined. The same crossings {@link computeMargins} finds on the same grid.
+ */
+export const marginsFromScan = (f: ArrayLike<number>, scan: LoopScan, evaluate: LoopPointEvaluator): Margins => {
+  const gain: FoundCrossing[] = [];
+  const phase: FoundCrossing[] = [];
+  const magOf = (hz: number) => evaluate(hz).magDb;
+  const phaseOf = (hz: number) => evaluate(hz).phaseDeg;
+  for (let k = 0; k < scan.gainAt.length; k++) {
+    const i = scan.gainAt[k];
+    gain.push(crossingBetween(f[i], f[i + 1], dbFromMagSq(scan.gainMagSq[2 * k]), dbFromMagSq(scan.gainMagSq[2 * k + 1]), 0, magOf));
+  }
+  for (const i of scan.phaseAt) {
+    const pa = phaseOf(f[i]) + 180;
+    const pb = phaseOf(f[i + 1]) + 180;
+    if (pa >= 0 !== pb >= 0) phase.push(crossingBetween(f[i], f[i + 1], pa, pb, -180, phaseOf));
+  }
+  return assembleMargins(gain, phase, evaluate);
+};
+
+/**
  * The same margins from complex samples T(j2πf) = re + j·im, without a logarithm or an
  * arctangent per sample: gain crossings where |T|² passes 1, candidate phase crossings where
- * Im T changes sign (T passes the real axis); each candidate is kept when the continuous
- * phase of `evaluate` passes −180° between its two samples. Crossings are then refined on
- * `evaluate` as in {@link computeMargins}, so both give the same result on the same grid.
+ * Im T changes sign; then as {@link marginsFromScan}. The engine scans its loops without
+ * forming the samples (sweep.ts, scanTransfer); this form serves sampled complex data and
+ * checks that scan.
  */
 export const computeMarginsFromComplex = (
   f: ArrayLike<number>,
@@ -172,20 +206,13 @@ export const computeMarginsFromComplex = (
   im: ArrayLike<number>,
   evaluate: LoopPointEvaluator,
 ): Margins => {
-  const gain: FoundCrossing[] = [];
-  const phase: FoundCrossing[] = [];
-  const magOf = (hz: number) => evaluate(hz).magDb;
-  const phaseOf = (hz: number) => evaluate(hz).phaseDeg;
+  const scan: LoopScan = { gainAt: [], gainMagSq: [], phaseAt: [] };
   let m0 = re[0] * re[0] + im[0] * im[0];
   for (let i = 0; i + 1 < f.length; i++) {
     const m1 = re[i + 1] * re[i + 1] + im[i + 1] * im[i + 1];
-    if (m0 >= 1 !== m1 >= 1) gain.push(crossingBetween(f[i], f[i + 1], dbFromMagSq(m0), dbFromMagSq(m1), 0, magOf));
-    if (im[i] >= 0 !== im[i + 1] >= 0) {
-      const pa = phaseOf(f[i]) + 180;
-      const pb = phaseOf(f[i + 1]) + 180;
-      if (pa >= 0 !== pb >= 0) phase.push(crossingBetween(f[i], f[i + 1], pa, pb, -180, phaseOf));
-    }
+    if (m0 >= 1 !== m1 >= 1) scan.gainAt.push(i), scan.gainMagSq.push(m0, m1);
+    if (im[i] >= 0 !== im[i + 1] >= 0) scan.phaseAt.push(i);
     m0 = m1;
   }
-  return assembleMargins(gain, phase, evaluate);
+  return marginsFromScan(f, scan, evaluate);
 };

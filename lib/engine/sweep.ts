@@ -10,7 +10,7 @@
  * in CommonJS output (tsx, the benchmark) each use of an imported binding is an accessor call.
  */
 import { DB_PER_LN_MAGSQ, phaseOffsetDeg, type SectionedTransfer } from './transfer';
-import type { LoopPointEvaluator, SampledResponse } from './margins';
+import type { LoopPointEvaluator, LoopScan, SampledResponse } from './margins';
 import type { BodeTrace, SweepOptions } from './types';
 
 const TWO_PI = 2 * Math.PI;
@@ -206,14 +206,71 @@ export const sweepTransfer = (h: SectionedTransfer, grid: Grid): BodeTrace => {
 };
 
 /**
+ * A loop's crossing candidates on a grid (see LoopScan) without forming its samples: per
+ * point the products Π|N_k|² and Π|D_k|² (with the origin factors) as in sweepTransfer, so
+ * |T|² ≥ 1 is a comparison, and C = Π N_k·conj(D_k), whose imaginary part after the quarter
+ * turns of j^n has the sign of Im T times the sign of the gain (Π|D_k|² and ω^n are
+ * positive). No division, logarithm or arctangent per point; |T|² is formed only at the ends
+ * of a gain interval. Returns the analytic loop on the sweep's branch as well, for refining.
+ * The margins of a compensator on a plant: snapped parts, the spread's samples, the
+ * starting point's search.
+ */
+export const scanTransfer = (h: SectionedTransfer, grid: Grid): { scan: LoopScan; evaluate: LoopPointEvaluator } => {
+  const plan = planTransfer(h);
+  const t = plan.terms;
+  const nt = t.length;
+  const w = grid.w;
+  const n = w.length;
+  const scan: LoopScan = { gainAt: [], gainMagSq: [], phaseAt: [] };
+  const turns = ((plan.order % 4) + 4) % 4;
+  const gainSign = plan.gain < 0 ? -1 : 1;
+  let prevNum = 0;
+  let prevDen = 1;
+  let prevIm = 0;
+  for (let i = 0; i < n; i++) {
+    const wi = w[i];
+    const wi2 = wi * wi;
+    let num = originNum(plan, wi2);
+    let den = originDen(plan, wi2);
+    let cr = 1;
+    let ci = 0;
+    for (let k = 0; k < nt; k += 4) {
+      const nre = 1 - t[k + 1] * wi2;
+      const nim = t[k] * wi;
+      const dre = 1 - t[k + 3] * wi2;
+      const dim = t[k + 2] * wi;
+      num *= nre * nre + nim * nim;
+      den *= dre * dre + dim * dim;
+      const xr = nre * dre + nim * dim;
+      const xi = nim * dre - nre * dim;
+      const c = cr * xr - ci * xi;
+      ci = cr * xi + ci * xr;
+      cr = c;
+    }
+    // Im(j^n·C): j·(a + jb) = −b + ja.
+    const imC = gainSign * (turns === 0 ? ci : turns === 1 ? cr : turns === 2 ? -ci : -cr);
+    if (i > 0) {
+      if (prevNum >= prevDen !== num >= den) scan.gainAt.push(i - 1), scan.gainMagSq.push(prevNum / prevDen, num / den);
+      if (prevIm >= 0 !== imC >= 0) scan.phaseAt.push(i - 1);
+    }
+    prevNum = num;
+    prevDen = den;
+    prevIm = imC;
+  }
+  return { scan, evaluate: planEvaluator(plan, grid.f[0]) };
+};
+
+/**
  * The transfer as an analytic function: magnitude in dB and phase in degrees on the branch
  * that starts at `startHz` at its principal value, or at the multiple of 360° nearest
  * `startDeg` when given (e.g. a trace's first sample, to follow that trace). The arithmetic is
  * that of {@link sweepTransfer}: on a sweep's grid and branch it reproduces the trace exactly.
  * For crossing refinement and read-outs.
  */
-export const transferEvaluator = (h: SectionedTransfer, startHz: number, startDeg?: number): LoopPointEvaluator => {
-  const plan = planTransfer(h);
+export const transferEvaluator = (h: SectionedTransfer, startHz: number, startDeg?: number): LoopPointEvaluator =>
+  planEvaluator(planTransfer(h), startHz, startDeg);
+
+const planEvaluator = (plan: TransferPlan, startHz: number, startDeg?: number): LoopPointEvaluator => {
   const t = plan.terms;
   const dbPerLn = DB_PER_LN_MAGSQ;
   let offsetDeg = 0;

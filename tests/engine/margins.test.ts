@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { computeMargins, computeMarginsFromComplex, findCrossings, unwrapPhase } from '@/lib/engine/margins';
+import { computeMargins, computeMarginsFromComplex, findCrossings, marginsFromScan, unwrapPhase } from '@/lib/engine/margins';
 import { loopChecks } from '@/lib/engine/checks';
-import { logSweep, makeGrid, sweepComplex, transferResponse } from '@/lib/engine/sweep';
+import { logSweep, makeGrid, scanTransfer, sweepComplex, transferResponse } from '@/lib/engine/sweep';
 import { multiplyTransfers, transferFromPolys, type SectionedTransfer } from '@/lib/engine/transfer';
 import { expectAbs, expectRel } from './helpers';
 
@@ -93,6 +93,12 @@ describe('invariants', () => {
     expectAbs(fast.phaseMarginDeg, margins.phaseMarginDeg!, 1e-9);
     if (margins.gainMarginDb === null) expect(fast.gainMarginDb).toBeNull();
     else expectAbs(fast.gainMarginDb, margins.gainMarginDb, 1e-9);
+    // The engine's scan (no samples formed) finds the same candidates as the complex samples.
+    const { scan, evaluate: scanned } = scanTransfer(h, makeGrid(f));
+    const viaScan = marginsFromScan(f, scan, scanned);
+    expect(viaScan.crossings.map((x) => x.kind + x.direction)).toEqual(fast.crossings.map((x) => x.kind + x.direction));
+    viaScan.crossings.forEach((x, i) => expectRel(x.hz, fast.crossings[i].hz, 1e-12));
+    expectAbs(viaScan.phaseMarginDeg, fast.phaseMarginDeg!, 1e-9);
   });
 
   it('the phase of the sweep starts at its principal value (integrator: −90°)', () => {
