@@ -103,7 +103,11 @@ const polyDivide = (a: Poly, b: Poly): number[] => {
   return q;
 };
 
-const scalePoly = (p: Poly, k: number) => p.map((c) => c * k);
+const scalePoly = (p: Poly, k: number): number[] => {
+  const out: number[] = [];
+  for (let i = 0; i < p.length; i++) out.push(p[i] * k);
+  return out;
+};
 
 /** Ridley's peak current-mode model in CCM (module header). */
 const peakCurrentCcm = (cv: ConverterInput, model: PlantModel, ri: number, se: number): Omit<ControlPlant, 'model'> => {

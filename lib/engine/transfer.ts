@@ -36,9 +36,12 @@ const normalisePoly = (p: Poly): { order: number; gain: number; section: number[
   let lo = 0;
   while (lo < t.length - 1 && t[lo] === 0) lo++;
   const g = t[lo];
-  const rest = t.slice(lo).map((c) => c / g + 0); // "+ 0" turns −0 into +0 (keeps atan2 on one branch)
-  if (rest.length > 3) throw new Error('normalisePoly: degree above 2 must be split into sections first');
-  return { order: lo, gain: g, section: rest.length > 1 ? rest : null };
+  const m = t.length - lo;
+  if (m > 3) throw new Error('normalisePoly: degree above 2 must be split into sections first');
+  if (m === 1) return { order: lo, gain: g, section: null };
+  // "+ 0" turns −0 into +0 (keeps atan2 on one branch).
+  const section = m === 2 ? [1, t[lo + 1] / g + 0] : [1, t[lo + 1] / g + 0, t[lo + 2] / g + 0];
+  return { order: lo, gain: g, section };
 };
 
 /** Build a sectioned transfer from numerator and denominator polynomials of degree ≤ 2. */

@@ -57,6 +57,29 @@ describe('polynomials (ascending coefficients)', () => {
     for (const x of upper) expect(r.some((y) => y.re === x.re && y.im === -x.im)).toBe(true);
   });
 
+  it('cubics (real root by safeguarded Newton, then deflation; Press et al., Numerical Recipes §9.4–9.5): full precision however the roots are spread', () => {
+    const w = (hz: number) => 2 * Math.PI * hz;
+    const pair = (hz: number, q: number) => [1, 1 / (q * w(hz)), 1 / w(hz) ** 2];
+    // A current-mode plant's denominator: a load pole and the sampling pair at fsw/2, Qp from 0.2 to 20,
+    // and cubics with three real roots, one of them in the right half plane.
+    const cases: [number[], number[]][] = [];
+    // Q 0.2 splits the pair into two real roots at 250 kHz·(1 ± √(1 − 4Q²))/(2Q).
+    const split = [(250e3 * (1 - Math.sqrt(1 - 0.16))) / 0.4, (250e3 * (1 + Math.sqrt(1 - 0.16))) / 0.4];
+    for (const load of [3, 80, 2e3]) {
+      for (const q of [0.64, 2, 20]) cases.push([polyMul([1, 1 / w(load)], pair(250e3, q)), [load, 250e3, 250e3]]);
+      cases.push([polyMul([1, 1 / w(load)], pair(250e3, 0.2)), [load, ...split]]);
+    }
+    cases.push([polyFromRealRoots([-w(10), w(4e4), -w(3e6)]), [10, 4e4, 3e6]]);
+    cases.push([polyFromRealRoots([-w(1e3), -w(1.001e3), -w(9e5)]), [1e3, 1.001e3, 9e5]]);
+    for (const [p, hz] of cases) {
+      const r = polyRoots(p.map((c) => c * -3.7));
+      expect(r).toHaveLength(3);
+      const mags = r.map((x) => x.abs() / (2 * Math.PI)).sort((a, b) => a - b);
+      hz.forEach((h, k) => expectRel(mags[k], h, 1e-9));
+      for (const x of r) expect(evalPoly(p, x).abs() / evalPoly(p.map(Math.abs), new Complex(x.abs(), 0)).abs()).toBeLessThan(1e-13);
+    }
+  });
+
   it('keeps a double real root real and the degree whole', () => {
     const r = polyRoots(polyFromRealRoots([-1e4, -1e4, -3e2]));
     expect(r).toHaveLength(3);
