@@ -40,7 +40,8 @@ export const evalPoly = (p: Poly, s: Complex): Complex => {
 /** Product of two polynomials (ascending coefficients). */
 export const polyMul = (a: Poly, b: Poly): number[] => {
   if (a.length === 0 || b.length === 0) return [];
-  const out = new Array<number>(a.length + b.length - 1).fill(0);
+  const out: number[] = [];
+  for (let k = a.length + b.length - 1; k > 0; k--) out.push(0);
   for (let i = 0; i < a.length; i++) for (let j = 0; j < b.length; j++) out[i + j] += a[i] * b[j];
   return out;
 };

@@ -210,7 +210,8 @@ const sectionsOfPoly = (p: Poly): { order: number; gain: number; sections: numbe
 
 /** Sum of two ascending polynomials. */
 export const polyAdd = (a: Poly, b: Poly): number[] => {
-  const out = new Array<number>(Math.max(a.length, b.length)).fill(0);
+  const out: number[] = [];
+  for (let k = Math.max(a.length, b.length); k > 0; k--) out.push(0);
   for (let i = 0; i < a.length; i++) out[i] += a[i];
   for (let i = 0; i < b.length; i++) out[i] += b[i];
   return out;
