@@ -140,7 +140,11 @@ export const evaluateLoopGain = (
  * (set by vref unless given), so Rb is filled in before the transfer is built.
  */
 export const loopCompensatorTransfer = (prepared: PreparedPlant, comp: CompensatorInput): SectionedTransfer =>
-  compensatorTransfer(withLoopDivider(prepared, comp));
+  compensatorTransfer(comp, loopRb(prepared, comp));
+
+/** The Rb the loop's compensator sees: a finite op-amp's is set by vref unless given. */
+const loopRb = (prepared: PreparedPlant, comp: CompensatorInput): number | undefined =>
+  comp.opamp && comp.amplifier !== 'transconductance' && comp.rb === undefined ? divider(prepared, comp) : comp.rb;
 
 /** The compensator with the divider's Rb filled in where the loop needs it (a finite op-amp). */
 export const withLoopDivider = (prepared: PreparedPlant, comp: CompensatorInput): CompensatorInput =>
@@ -179,16 +183,16 @@ const checkCompensator = (comp: CompensatorInput) => {
  */
 export const marginsForCompensator = (prepared: PreparedPlant, comp: CompensatorInput): Margins => {
   checkCompensator(comp);
-  return loopMargins(prepared.plantTransfer, prepared.grid, withLoopDivider(prepared, comp));
+  return loopMargins(prepared.plantTransfer, prepared.grid, comp, loopRb(prepared, comp));
 };
 
 /**
  * The margins of marginsForCompensator from the plant transfer alone (the tolerance spread's
  * hot path: no operating-point summaries, no plant trace). Assumes validated parts; a finite
- * op-amp's Rb is read from comp.rb (see withLoopDivider).
+ * op-amp's Rb is `rb`, comp.rb unless given (see loopRb).
  */
-export const loopMargins = (plantTransfer: SectionedTransfer, grid: Grid, comp: CompensatorInput): Margins => {
-  const { scan, evaluate } = scanTransfer(multiplyTransfers(plantTransfer, compensatorTransfer(comp)), grid);
+export const loopMargins = (plantTransfer: SectionedTransfer, grid: Grid, comp: CompensatorInput, rb: number | undefined = comp.rb): Margins => {
+  const { scan, evaluate } = scanTransfer(multiplyTransfers(plantTransfer, compensatorTransfer(comp, rb)), grid);
   return marginsFromScan(grid.f, scan, evaluate);
 };
 
@@ -220,8 +224,8 @@ export const analyzeLoop = (prepared: PreparedPlant, comp: CompensatorInput): Lo
 };
 
 const analyzeValidLoop = (prepared: PreparedPlant, comp: CompensatorInput): LoopResult => {
-  const loaded = withLoopDivider(prepared, comp);
-  const gc = compensatorTransfer(loaded);
+  const rbLoop = loopRb(prepared, comp);
+  const gc = compensatorTransfer(comp, rbLoop);
   const { compTrace, loop, evaluate } = sweepLoop(prepared, gc);
   const margins = computeMargins(loop, evaluate);
   const rb = divider(prepared, comp);
@@ -231,8 +235,8 @@ const analyzeValidLoop = (prepared: PreparedPlant, comp: CompensatorInput): Loop
   if (comp.opamp && comp.amplifier !== 'transconductance') {
     const placed = shapeFromParts(comp).polesHz.filter((f) => f < fsw / 2);
     const freqs = margins.crossoverHz !== null ? [margins.crossoverHz, ...placed] : placed;
-    shapeError = opAmpShapeError(loaded, freqs);
-    if (shapeError.worstDb > 1 || shapeError.worstDeg > 5) gbwEnoughHz = gbwEnough(loaded, freqs);
+    shapeError = opAmpShapeError(comp, freqs, rbLoop);
+    if (shapeError.worstDb > 1 || shapeError.worstDeg > 5) gbwEnoughHz = gbwEnough(comp, freqs, rbLoop);
   }
   return {
     compensator: summarizeCompensator(comp),
@@ -322,7 +326,7 @@ export const analyzeParts = (
     snapped: partValues(snappedComp, snapToSeries(rb, series.resistorSeries)),
     // Snapping keeps every part positive, so the snapped compensator of a valid one is valid.
     snappedMargins:
-      idealMargins && sameParts(comp, snappedComp) ? idealMargins : loopMargins(prepared.plantTransfer, prepared.grid, withLoopDivider(prepared, snappedComp)),
+      idealMargins && sameParts(comp, snappedComp) ? idealMargins : loopMargins(prepared.plantTransfer, prepared.grid, snappedComp, loopRb(prepared, snappedComp)),
   };
 };
 

@@ -106,12 +106,12 @@ const opAmpPolys = (comp: CompensatorInput) => {
  * gain: Gc = A·Zf / ((1 + A)·Zi + Zf + Zi·Zf/Rb); Rb → ∞ is the textbook stage. As
  * polynomials: a0·Nf·Di / ((1 + a0 + sτ)·Ni·Df + (1 + sτ)·(Nf·Di + Ni·Nf/Rb)), τ = a0/(2π·GBW).
  */
-const realOpAmpTransfer = (comp: CompensatorInput, a0: number, gbw: number): SectionedTransfer => {
+const realOpAmpTransfer = (comp: CompensatorInput, a0: number, gbw: number, rb: number | undefined): SectionedTransfer => {
   const { zi, zf } = opAmpPolys(comp);
   const tau = a0 / (TWO_PI * gbw);
   const nfdi = polyMul(zf.n, zi.d);
   const num = nfdi.map((c) => c * a0);
-  const loadRb = comp.rb !== undefined && comp.rb > 0 ? polyMul(zi.n, zf.n).map((c) => c / comp.rb!) : [0];
+  const loadRb = rb !== undefined && rb > 0 ? polyMul(zi.n, zf.n).map((c) => c / rb) : [0];
   const den = polyAdd(polyMul(polyMul(zi.n, zf.d), [1 + a0, tau]), polyMul(polyAdd(nfdi, loadRb), [1, tau]));
   return transferFromAnyPolys(num, den);
 };
@@ -135,10 +135,14 @@ const transconductanceTransfer = (comp: CompensatorInput): SectionedTransfer => 
   return multiplyTransfers(gain, h, zo);
 };
 
-/** Gc of any compensator: ideal or finite op-amp stage, or transconductance amplifier. */
-export const compensatorTransfer = (comp: CompensatorInput): SectionedTransfer => {
+/**
+ * Gc of any compensator: ideal or finite op-amp stage, or transconductance amplifier. `rb`
+ * (default comp.rb) is the divider's lower resistor loading a finite op-amp's inverting input;
+ * the loop passes the one set by vref (analyze.ts, loopRb) rather than copying the parts.
+ */
+export const compensatorTransfer = (comp: CompensatorInput, rb: number | undefined = comp.rb): SectionedTransfer => {
   if (comp.amplifier === 'transconductance') return transconductanceTransfer(comp);
-  if (comp.opamp) return realOpAmpTransfer(comp, comp.opamp.a0, comp.opamp.gbw);
+  if (comp.opamp) return realOpAmpTransfer(comp, comp.opamp.a0, comp.opamp.gbw, rb);
   return idealOpAmpTransfer(comp);
 };
 
@@ -300,11 +304,11 @@ export const dividerRb = (r1: number, vref: number, vout: number): number => (r1
  * realised stage is the ideal one times 1/(1 + NG/A) (Sedra & Smith, ch. 2; with the divider's
  * Rb at the inverting input, Gc = A·Zf/((1 + A)·Zi + Zf + Zi·Zf/Rb) divides to the same form).
  */
-const noiseGains = (comp: CompensatorInput, freqsHz: readonly number[]): [number, number][] => {
+const noiseGains = (comp: CompensatorInput, freqsHz: readonly number[], rbIn: number | undefined): [number, number][] => {
   // Plain numbers from the stage's polynomials (Zf/Zi = Nf·Di/(Df·Ni)): complex.js values
   // here cost several microseconds per analysis of a finite op-amp.
   const { zi, zf } = opAmpPolys(comp);
-  const rb = comp.rb !== undefined && comp.rb > 0 ? comp.rb : Infinity;
+  const rb = rbIn !== undefined && rbIn > 0 ? rbIn : Infinity;
   const out: [number, number][] = [];
   for (let k = 0; k < freqsHz.length; k++) {
     const w = TWO_PI * freqsHz[k];
@@ -353,9 +357,13 @@ const shapeErrorOf = (ng: readonly [number, number][], freqsHz: readonly number[
  * 1/(1 + NG/A) by which the realised stage differs from the ideal one (see noiseGains): a few
  * complex products per frequency, no transfer to build.
  */
-export const opAmpShapeError = (comp: CompensatorInput, freqsHz: readonly number[]): { worstDb: number; worstDeg: number; atHz: number | null } => {
+export const opAmpShapeError = (
+  comp: CompensatorInput,
+  freqsHz: readonly number[],
+  rb: number | undefined = comp.rb,
+): { worstDb: number; worstDeg: number; atHz: number | null } => {
   if (!comp.opamp || comp.amplifier === 'transconductance' || freqsHz.length === 0) return { worstDb: 0, worstDeg: 0, atHz: null };
-  return shapeErrorOf(noiseGains(comp, freqsHz), freqsHz, comp.opamp.a0, comp.opamp.gbw);
+  return shapeErrorOf(noiseGains(comp, freqsHz, rb), freqsHz, comp.opamp.a0, comp.opamp.gbw);
 };
 
 /**
@@ -365,9 +373,9 @@ export const opAmpShapeError = (comp: CompensatorInput, freqsHz: readonly number
  * pole, |NG/A| ≤ 0.08 (≈ 5°) needs GBW ≥ f·|NG(f)|/0.08. The estimate is then checked and
  * doubled until it holds (at most 6 times); null when a0 itself is the limit.
  */
-export const gbwEnough = (comp: CompensatorInput, freqsHz: readonly number[]): number | null => {
+export const gbwEnough = (comp: CompensatorInput, freqsHz: readonly number[], rb: number | undefined = comp.rb): number | null => {
   if (!comp.opamp) return null;
-  const ng = noiseGains(comp, freqsHz);
+  const ng = noiseGains(comp, freqsHz, rb);
   let gbw = comp.opamp.gbw;
   for (let i = 0; i < freqsHz.length; i++) gbw = Math.max(gbw, (freqsHz[i] * Math.hypot(ng[i][0], ng[i][1])) / 0.08);
   for (let k = 0; k < 6; k++, gbw *= 2) {
