@@ -101,10 +101,12 @@ export const findCrossings = (
   exact?: (hz: number) => number,
 ): FoundCrossing[] => {
   const out: FoundCrossing[] = [];
-  for (let i = 0; i + 1 < f.length; i++) {
-    const ga = y[i] - level;
+  const n = f.length;
+  let ga = n > 0 ? y[0] - level : 0;
+  for (let i = 0; i + 1 < n; i++) {
     const gb = y[i + 1] - level;
     if (ga >= 0 !== gb >= 0) out.push(crossingBetween(f[i], f[i + 1], ga, gb, level, exact));
+    ga = gb;
   }
   return out;
 };

@@ -154,8 +154,22 @@ export const transferRoots = (h: SectionedTransfer): { zeros: { re: number; im: 
   return { zeros, poles };
 };
 
-const rootHz = (r: { re: number; im: number }) => Math.sqrt(r.re * r.re + r.im * r.im) / TWO_PI;
-const ascending = (a: number, b: number) => a - b;
+/** |root| in Hz, ascending (insertion sort: a handful of roots, no comparator call per pair). */
+const sortedHz = (roots: readonly { re: number; im: number }[]): number[] => {
+  const out: number[] = [];
+  for (let k = 0; k < roots.length; k++) {
+    const r = roots[k];
+    const hz = Math.sqrt(r.re * r.re + r.im * r.im) / TWO_PI;
+    let j = out.length;
+    out.push(hz);
+    while (j > 0 && out[j - 1] > hz) {
+      out[j] = out[j - 1];
+      j--;
+    }
+    out[j] = hz;
+  }
+  return out;
+};
 
 /**
  * Landmarks of a transfer, frequencies in Hz.
@@ -170,10 +184,10 @@ export const summarizeTransfer = (h: SectionedTransfer, esrHint: number | null =
   const quad = h.den.find((p) => p.length === 3 && p[2] > 0);
   const resonanceHz = quad ? 1 / (TWO_PI * Math.sqrt(quad[2])) : null;
   const q = quad && quad[1] > 0 ? Math.sqrt(quad[2]) / quad[1] : null;
-  const realZeros = zeros.filter((z) => z.im === 0 && z.re !== 0);
   let esrZeroHz: number | null = null;
   let rhpZeroHz: number | null = null;
-  for (const z of realZeros) {
+  for (const z of zeros) {
+    if (z.im !== 0 || z.re === 0) continue;
     const f = Math.abs(z.re) / TWO_PI;
     if (z.re > 0) rhpZeroHz = rhpZeroHz === null ? f : Math.min(rhpZeroHz, f);
     else if (esrHint !== null && (esrZeroHz === null || Math.abs(Math.log(f / esrHint)) < Math.abs(Math.log(esrZeroHz / esrHint)))) esrZeroHz = f;
@@ -184,8 +198,8 @@ export const summarizeTransfer = (h: SectionedTransfer, esrHint: number | null =
     q,
     esrZeroHz,
     rhpZeroHz,
-    polesHz: poles.map(rootHz).sort(ascending),
-    zerosHz: zeros.map(rootHz).sort(ascending),
+    polesHz: sortedHz(poles),
+    zerosHz: sortedHz(zeros),
   };
 };
 
