@@ -86,10 +86,48 @@ const FORMAT_PREFIXES: [number, string][] = [
 export const formatSi = (value: number, unit = '', digits = 3): string => {
   if (!Number.isFinite(value)) return '—';
   if (value === 0) return `0 ${unit}`.trim();
-  const rounded = Number(value.toPrecision(digits));
-  const exp = Math.floor(Math.log10(Math.abs(rounded)));
-  const entry = FORMAT_PREFIXES.find(([e]) => exp >= e) ?? FORMAT_PREFIXES[FORMAT_PREFIXES.length - 1];
-  const [e, prefix] = exp > 14 ? FORMAT_PREFIXES[0] : entry;
-  const mantissa = Number((rounded / Math.pow(10, e)).toPrecision(digits));
+  const fast = roundedDigits(value, digits);
+  const exp = fast !== null ? fast[1] : Math.floor(Math.log10(Math.abs(Number(value.toPrecision(digits)))));
+  let k = FORMAT_PREFIXES.length - 1;
+  if (exp > 14) k = 0;
+  else
+    for (let j = 0; j < FORMAT_PREFIXES.length; j++)
+      if (exp >= FORMAT_PREFIXES[j][0]) {
+        k = j;
+        break;
+      }
+  const [e, prefix] = FORMAT_PREFIXES[k];
+  // The digits times one exact power of ten give the same number as parsing
+  // (rounded/10^e).toPrecision(digits) back; outside that range, the parse itself.
+  const shift = exp - digits + 1 - e;
+  const mantissa =
+    fast !== null && Math.abs(shift) <= 22
+      ? scaleByTen(fast[0], shift)
+      : Number((Number(value.toPrecision(digits)) / Math.pow(10, e)).toPrecision(digits));
   return `${mantissa} ${prefix}${unit}`.trim();
+};
+
+/** x·10^k with the power of ten exact (|k| ≤ 22): one correctly rounded operation. */
+const scaleByTen = (x: number, k: number): number => (k >= 0 ? x * Math.pow(10, k) : x / Math.pow(10, -k));
+
+/**
+ * value to `digits` significant digits, as toPrecision rounds it, by arithmetic: the integer
+ * n of the digits and the decimal exponent of the first (value ≈ n·10^(exp − digits + 1)).
+ * toPrecision and the parse back dominated the engine's check messages. Null near a rounding
+ * tie, next to a power of ten or out of the exact-power range: formatSi then uses toPrecision.
+ */
+const roundedDigits = (value: number, digits: number): [number, number] | null => {
+  let exp = Math.floor(Math.log10(Math.abs(value)));
+  const shift = digits - 1 - exp;
+  if (shift > 22 || shift < -22) return null;
+  const scaled = Math.abs(scaleByTen(value, shift));
+  const top = Math.pow(10, digits);
+  if (scaled >= top || scaled < top / 10) return null;
+  if (Math.abs(scaled - Math.floor(scaled) - 0.5) < 1e-6) return null;
+  let n = Math.round(scaled);
+  if (n === top) {
+    n /= 10;
+    exp += 1;
+  }
+  return [value < 0 ? -n : n, exp];
 };

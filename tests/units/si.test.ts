@@ -54,4 +54,22 @@ describe('formatSi', () => {
     for (const v of [4.7e-6, 22e3, 1.5e-9, 3.3, 150e3]) expect(parseSi(formatSi(v, 'F').replace(' ', ''))).toBeCloseTo(v, 15);
     expect(formatSi(Number.NaN)).toBe('—');
   });
+
+  it('rounds as Number.prototype.toPrecision does (ECMA-262 §21.1.3.5), ties and powers of ten included', () => {
+    // The definition formatSi had before its arithmetic fast path, kept here as the reference.
+    const prefixes: [number, string][] = [[12, 'T'], [9, 'G'], [6, 'M'], [3, 'k'], [0, ''], [-3, 'm'], [-6, 'µ'], [-9, 'n'], [-12, 'p'], [-15, 'f']];
+    const reference = (value: number, unit: string, digits: number) => {
+      const rounded = Number(value.toPrecision(digits));
+      const exp = Math.floor(Math.log10(Math.abs(rounded)));
+      const [e, prefix] = exp > 14 ? prefixes[0] : (prefixes.find(([x]) => exp >= x) ?? prefixes[prefixes.length - 1]);
+      return `${Number((rounded / Math.pow(10, e)).toPrecision(digits))} ${prefix}${unit}`.trim();
+    };
+    const values: number[] = [];
+    for (let e = -20; e <= 20; e++)
+      for (const m of [1, 2.2, 4.7, 9.995, 9.9949, 999.5, 0.5, 1.005, 1.015, 2.675, 10, 999.4999]) values.push(m * 10 ** e, -m * 10 ** e);
+    let seed = 7;
+    const random = () => ((seed = (seed * 16807) % 2147483647) / 2147483647);
+    for (let i = 0; i < 20000; i++) values.push((random() < 0.5 ? -1 : 1) * Math.exp((random() - 0.5) * 90));
+    for (const v of values) for (const d of [2, 3, 4]) expect(formatSi(v, 'Hz', d)).toBe(reference(v, 'Hz', d));
+  });
 });
