@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import Complex from 'complex.js';
 import { compensatorTransfer } from '@/lib/engine/compensator';
-import { defaultSweep, logSweep, makeGrid, sweepComplex, sweepTransfer } from '@/lib/engine/sweep';
-import { evaluateTransfer, multiplyTransfers, transferFromPolys, wrapDeg } from '@/lib/engine/transfer';
+import { defaultSweep, logSweep, makeGrid, sweepComplex, sweepTransfer, transferEvaluator } from '@/lib/engine/sweep';
+import { evaluateTransfer, multiplyTransfers, transferFromPolys, wrapDeg, type SectionedTransfer } from '@/lib/engine/transfer';
 import { expectAbs, expectRel } from './helpers';
 
 const TWO_PI = 2 * Math.PI;
@@ -49,5 +49,22 @@ describe('sweepTransfer', () => {
     // Starts at the principal value.
     expect(s.phaseDeg[0]).toBeGreaterThan(-180);
     expect(s.phaseDeg[0]).toBeLessThanOrEqual(180);
+  });
+
+  // Several terms advance the phase by one arctangent per point (sweepByIncrements) when no grid
+  // step can turn it by a radian; a sharp resonance on a coarse grid keeps the term-by-term sum.
+  it.each([
+    ...cases,
+    ['Q = 50 pair and a zero on a coarse grid (term by term)', { gain: 2, originOrder: 0, num: [[1, 1e-5]], den: [[1, 1e-7 / 50, 1e-14], [1, 1e-3]] }],
+  ] as [string, SectionedTransfer][])('%s: the trace is the analytic phase on its branch, not just modulo 360°', (_, h) => {
+    for (const points of [300, 40]) {
+      const f = logSweep(1, 1e7, points);
+      const s = sweepTransfer(h, makeGrid(f));
+      const exact = transferEvaluator(h, f[0], s.phaseDeg[0]);
+      f.forEach((hz, i) => {
+        expectAbs(s.magDb[i], exact(hz).magDb, 1e-9);
+        expectAbs(s.phaseDeg[i], exact(hz).phaseDeg, 1e-9);
+      });
+    }
   });
 });
