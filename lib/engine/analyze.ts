@@ -14,7 +14,7 @@ import { buildControlPlant } from './control';
 import { snapToSeries } from './eseries';
 import { computeMargins, marginsFromScan, type LoopPointEvaluator } from './margins';
 import { esrZeroHint, type PlantModel } from './plant';
-import { defaultSweep, scanTransfer, sweepGrid, sweepTransfer, transferEvaluator, type Grid } from './sweep';
+import { defaultSweep, planEvaluator, planTransfer, productPlan, scanPlan, scanTransfer, sweepGrid, sweepPlan, type Grid, type TransferPlan } from './sweep';
 import { multiplyTransfers, phaseOffsetDeg, summarizeTransfer, type SectionedTransfer } from './transfer';
 import { withLossDefaults } from './steady-state';
 import { compensatorIssues, stageIssues, validateRequest } from './validate';
@@ -65,6 +65,8 @@ export interface PreparedPlant {
   outputImpedance: TransferSummary;
   grid: Grid;
   plantTrace: BodeTrace;
+  /** The plant as the sweeps evaluate it (sweep.ts): loops are planned from it and the compensator's. */
+  plantPlan: TransferPlan;
   stageChecks: Check[];
 }
 
@@ -99,6 +101,7 @@ const prepareValidPlant = (req: StageRequest): PreparedPlant => {
   const grid = sweepGrid(sweep.fStart, sweep.fStop, sweep.points);
   const hint = esrZeroHint(converter);
   const op = control.operatingPoint;
+  const plantPlan = planTransfer(plantTransfer);
   return {
     converter,
     vref: req.feedback.vref,
@@ -115,7 +118,8 @@ const prepareValidPlant = (req: StageRequest): PreparedPlant => {
     lineToOutput: summarizeTransfer(control.lineToOutput, hint),
     outputImpedance: summarizeTransfer(control.outputImpedance, hint),
     grid,
-    plantTrace: sweepTransfer(plantTransfer, grid),
+    plantTrace: sweepPlan(plantPlan, grid),
+    plantPlan,
     stageChecks: [...stageChecks(op), ...modulatorChecks(op, control.modulator, control.dcmPoleHz)],
   };
 };
@@ -132,7 +136,7 @@ export const evaluateLoopGain = (
   startDeg?: number,
 ): LoopPointEvaluator => {
   const gc = 'type' in comp ? loopCompensatorTransfer(prepared, comp) : comp;
-  return transferEvaluator(multiplyTransfers(prepared.plantTransfer, gc), prepared.grid.f[0], startDeg);
+  return planEvaluator(productPlan(prepared.plantPlan, planTransfer(gc)), prepared.grid.f[0], startDeg);
 };
 
 /**
@@ -152,7 +156,8 @@ export const withLoopDivider = (prepared: PreparedPlant, comp: CompensatorInput)
 
 /** Loop gain on the grid (plant sweep reused) and its analytic evaluator on the same branch. */
 const sweepLoop = (prepared: PreparedPlant, comp: SectionedTransfer) => {
-  const compTrace = sweepTransfer(comp, prepared.grid);
+  const compPlan = planTransfer(comp);
+  const compTrace = sweepPlan(compPlan, prepared.grid);
   const n = prepared.grid.f.length;
   const pm = prepared.plantTrace.magDb;
   const pp = prepared.plantTrace.phaseDeg;
@@ -167,7 +172,7 @@ const sweepLoop = (prepared: PreparedPlant, comp: SectionedTransfer) => {
     phaseDeg[i] = pp[i] + cp[i] + shift;
   }
   const loop = { f: prepared.grid.f, magDb, phaseDeg };
-  return { compTrace, loop, evaluate: evaluateLoopGain(prepared, comp, phaseDeg[0]) };
+  return { compTrace, loop, evaluate: planEvaluator(productPlan(prepared.plantPlan, compPlan), prepared.grid.f[0], phaseDeg[0]) };
 };
 
 const checkCompensator = (comp: CompensatorInput) => {
@@ -183,7 +188,14 @@ const checkCompensator = (comp: CompensatorInput) => {
  */
 export const marginsForCompensator = (prepared: PreparedPlant, comp: CompensatorInput): Margins => {
   checkCompensator(comp);
-  return loopMargins(prepared.plantTransfer, prepared.grid, comp, loopRb(prepared, comp));
+  return marginsOnPlant(prepared, comp);
+};
+
+/** marginsForCompensator for a validated compensator: the loop planned from the plant's plan. */
+const marginsOnPlant = (prepared: PreparedPlant, comp: CompensatorInput): Margins => {
+  const gc = compensatorTransfer(comp, loopRb(prepared, comp));
+  const { scan, evaluate } = scanPlan(productPlan(prepared.plantPlan, planTransfer(gc)), prepared.grid);
+  return marginsFromScan(prepared.grid.f, scan, evaluate);
 };
 
 /**
@@ -326,7 +338,7 @@ export const analyzeParts = (
     snapped: partValues(snappedComp, snapToSeries(rb, series.resistorSeries)),
     // Snapping keeps every part positive, so the snapped compensator of a valid one is valid.
     snappedMargins:
-      idealMargins && sameParts(comp, snappedComp) ? idealMargins : loopMargins(prepared.plantTransfer, prepared.grid, snappedComp, loopRb(prepared, snappedComp)),
+      idealMargins && sameParts(comp, snappedComp) ? idealMargins : marginsOnPlant(prepared, snappedComp),
   };
 };
 

@@ -154,8 +154,22 @@ const assembleMargins = (
  */
 export const computeMargins = (sampled: SampledResponse, evaluate?: LoopPointEvaluator): Margins => {
   const { f, magDb, phaseDeg } = sampled;
-  const gain = findCrossings(f, magDb, 0, evaluate && ((hz) => evaluate(hz).magDb));
-  const phase = findCrossings(f, phaseDeg, -180, evaluate && ((hz) => evaluate(hz).phaseDeg));
+  const magOf = evaluate && ((hz: number) => evaluate(hz).magDb);
+  const phaseOf = evaluate && ((hz: number) => evaluate(hz).phaseDeg);
+  // findCrossings for both curves in one pass over the samples.
+  const gain: FoundCrossing[] = [];
+  const phase: FoundCrossing[] = [];
+  const n = f.length;
+  let ma = n > 0 ? magDb[0] : 0;
+  let pa = n > 0 ? phaseDeg[0] + 180 : 0;
+  for (let i = 0; i + 1 < n; i++) {
+    const mb = magDb[i + 1];
+    const pb = phaseDeg[i + 1] + 180;
+    if (ma >= 0 !== mb >= 0) gain.push(crossingBetween(f[i], f[i + 1], ma, mb, 0, magOf));
+    if (pa >= 0 !== pb >= 0) phase.push(crossingBetween(f[i], f[i + 1], pa, pb, -180, phaseOf));
+    ma = mb;
+    pa = pb;
+  }
   const at = (hz: number) =>
     evaluate ? evaluate(hz) : { magDb: interpolateLogF(f, magDb, hz), phaseDeg: interpolateLogF(f, phaseDeg, hz) };
   return assembleMargins(gain, phase, at);

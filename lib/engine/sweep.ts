@@ -91,7 +91,7 @@ export const sweepGrid = (fStart: number, fStop: number, points: number): Grid =
  * in (0°, 180°)): the real poles of a finite op-amp's stage, or a DCM plant's two poles, then
  * cost one arctangent per pair instead of one each.
  */
-interface TransferPlan {
+export interface TransferPlan {
   gain: number;
   /** Power of s (originOrder). */
   order: number;
@@ -155,7 +155,7 @@ const sectionSlope = (a1: number, a2: number): number => {
   return zeta >= 1 ? 1 : 1 + 1 / zeta;
 };
 
-const planTransfer = (h: SectionedTransfer): TransferPlan => {
+export const planTransfer = (h: SectionedTransfer): TransferPlan => {
   const terms: number[] = [];
   const nums = mergeFirstOrder(h.num);
   const dens = mergeFirstOrder(h.den);
@@ -169,6 +169,18 @@ const planTransfer = (h: SectionedTransfer): TransferPlan => {
   let slope = 0;
   for (let k = 0; k < terms.length; k += 2) slope += sectionSlope(terms[k], terms[k + 1]);
   return { gain: h.gain, order: h.originOrder, ph0: (h.gain < 0 ? Math.PI : 0) + (h.originOrder * Math.PI) / 2, terms, slope };
+};
+
+/**
+ * The plan of a product H1·H2 from the plans of its factors: gains multiply, origin orders,
+ * constant phases and slope bounds add, terms follow one another (each term keeps its angle
+ * range, so the sum stays continuous). A loop's plan from the plant's, kept for the design,
+ * and the compensator's: no second pairing of sections per analysis.
+ */
+export const productPlan = (a: TransferPlan, b: TransferPlan): TransferPlan => {
+  const terms = a.terms.slice();
+  for (let k = 0; k < b.terms.length; k++) terms.push(b.terms[k]);
+  return { gain: a.gain * b.gain, order: a.order + b.order, ph0: a.ph0 + b.ph0, terms, slope: a.slope + b.slope };
 };
 
 /** The factor gain²·ω^(2n) of |H|², as a numerator part (n > 0) … */
@@ -195,8 +207,10 @@ const angleOf = (y: number, x: number): number => {
  * {@link transferEvaluator}'s arithmetic instead of calling it: a call per point costs a
  * quarter more here, and the same operations keep the two equal to the last bit.
  */
-export const sweepTransfer = (h: SectionedTransfer, grid: Grid): BodeTrace => {
-  const plan = planTransfer(h);
+export const sweepTransfer = (h: SectionedTransfer, grid: Grid): BodeTrace => sweepPlan(planTransfer(h), grid);
+
+/** sweepTransfer of a transfer already planned (planTransfer). */
+export const sweepPlan = (plan: TransferPlan, grid: Grid): BodeTrace => {
   // Two terms or more, and no step can turn the phase by a radian: one arctangent per point.
   if (plan.terms.length > 4 && plan.slope * grid.lnStep < 1) return sweepByIncrements(plan, grid);
   const n = grid.f.length;
@@ -240,8 +254,11 @@ export const sweepTransfer = (h: SectionedTransfer, grid: Grid): BodeTrace => {
  * The margins of a compensator on a plant: snapped parts, the spread's samples, the
  * starting point's search.
  */
-export const scanTransfer = (h: SectionedTransfer, grid: Grid): { scan: LoopScan; evaluate: LoopPointEvaluator } => {
-  const plan = planTransfer(h);
+export const scanTransfer = (h: SectionedTransfer, grid: Grid): { scan: LoopScan; evaluate: LoopPointEvaluator } =>
+  scanPlan(planTransfer(h), grid);
+
+/** scanTransfer of a transfer already planned (planTransfer, productPlan). */
+export const scanPlan = (plan: TransferPlan, grid: Grid): { scan: LoopScan; evaluate: LoopPointEvaluator } => {
   const t = plan.terms;
   const nt = t.length;
   const w = grid.w;
@@ -357,7 +374,8 @@ const sweepByIncrements = (plan: TransferPlan, grid: Grid): BodeTrace => {
 export const transferEvaluator = (h: SectionedTransfer, startHz: number, startDeg?: number): LoopPointEvaluator =>
   planEvaluator(planTransfer(h), startHz, startDeg);
 
-const planEvaluator = (plan: TransferPlan, startHz: number, startDeg?: number): LoopPointEvaluator => {
+/** transferEvaluator of a transfer already planned. */
+export const planEvaluator = (plan: TransferPlan, startHz: number, startDeg?: number): LoopPointEvaluator => {
   const t = plan.terms;
   const dbPerLn = DB_PER_LN_MAGSQ;
   let offsetDeg = 0;
