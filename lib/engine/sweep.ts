@@ -217,6 +217,9 @@ export const sweepPlan = (plan: TransferPlan, grid: Grid): BodeTrace => {
   const magDb = new Array<number>(n);
   const phaseDeg = new Array<number>(n);
   const t = plan.terms;
+  // The origin factor gain²·ω^(2n) of |H|² (see originNum, originDen), read once.
+  const g2 = plan.gain * plan.gain;
+  const order = plan.order;
   const w = grid.w;
   const dbPerLn = DB_PER_LN_MAGSQ;
   let offsetDeg = 0;
@@ -224,8 +227,8 @@ export const sweepPlan = (plan: TransferPlan, grid: Grid): BodeTrace => {
     const wi = w[i];
     const wi2 = wi * wi;
     // Term by term as in transferEvaluator (the same operations in the same order).
-    let num = originNum(plan, wi2);
-    let den = originDen(plan, wi2);
+    let num = order > 0 ? g2 * Math.pow(wi2, order) : g2;
+    let den = order >= 0 ? 1 : order === -1 ? wi2 : Math.pow(wi2, -order);
     let ph = plan.ph0;
     for (let k = 0; k < t.length; k += 4) {
       const nre = 1 - t[k + 1] * wi2;
@@ -260,6 +263,9 @@ export const scanTransfer = (h: SectionedTransfer, grid: Grid): { scan: LoopScan
 /** scanTransfer of a transfer already planned (planTransfer, productPlan). */
 export const scanPlan = (plan: TransferPlan, grid: Grid): { scan: LoopScan; evaluate: LoopPointEvaluator } => {
   const t = plan.terms;
+  // The origin factor gain²·ω^(2n) of |H|² (see originNum, originDen), read once.
+  const g2 = plan.gain * plan.gain;
+  const order = plan.order;
   const nt = t.length;
   const w = grid.w;
   const n = w.length;
@@ -272,8 +278,8 @@ export const scanPlan = (plan: TransferPlan, grid: Grid): { scan: LoopScan; eval
   for (let i = 0; i < n; i++) {
     const wi = w[i];
     const wi2 = wi * wi;
-    let num = originNum(plan, wi2);
-    let den = originDen(plan, wi2);
+    let num = order > 0 ? g2 * Math.pow(wi2, order) : g2;
+    let den = order >= 0 ? 1 : order === -1 ? wi2 : Math.pow(wi2, -order);
     let cr = 1;
     let ci = 0;
     for (let k = 0; k < nt; k += 4) {
@@ -320,6 +326,9 @@ const sweepByIncrements = (plan: TransferPlan, grid: Grid): BodeTrace => {
   const magDb = new Array<number>(n);
   const phaseDeg = new Array<number>(n);
   const t = plan.terms;
+  // The origin factor gain²·ω^(2n) of |H|² (see originNum, originDen), read once.
+  const g2 = plan.gain * plan.gain;
+  const order = plan.order;
   const w = grid.w;
   const dbPerLn = DB_PER_LN_MAGSQ;
   let offsetDeg = 0;
@@ -329,8 +338,8 @@ const sweepByIncrements = (plan: TransferPlan, grid: Grid): BodeTrace => {
   for (let i = 0; i < n; i++) {
     const wi = w[i];
     const wi2 = wi * wi;
-    let num = originNum(plan, wi2);
-    let den = originDen(plan, wi2);
+    let num = order > 0 ? g2 * Math.pow(wi2, order) : g2;
+    let den = order >= 0 ? 1 : order === -1 ? wi2 : Math.pow(wi2, -order);
     const anchor = i % ANCHOR === 0;
     if (anchor) ph = plan.ph0;
     let cr = 1;
