@@ -12,10 +12,10 @@ import { compensatorTransfer, dividerRb, gbwEnough, opAmpShapeError, shapeFromPa
 import { amplifierChecks, loopChecks, modulatorChecks, partChecks, stageChecks } from './checks';
 import { buildControlPlant } from './control';
 import { snapToSeries } from './eseries';
-import { computeMargins, marginsFromScan, type LoopPointEvaluator } from './margins';
+import { computeMargins, marginsFromScan, type LoopPointEvaluator, type SampledResponse } from './margins';
 import { esrZeroHint, type PlantModel } from './plant';
 import { defaultSweep, planEvaluator, planTransfer, productPlan, scanPlan, scanTransfer, sweepGrid, sweepPlan, type Grid, type TransferPlan } from './sweep';
-import { multiplyTransfers, phaseOffsetDeg, summarizeTransfer, type SectionedTransfer } from './transfer';
+import { multiplyTransfers, phaseOffsetDeg, ratioBound, summarizeTransfer, type SectionedTransfer } from './transfer';
 import { withLossDefaults } from './steady-state';
 import { compensatorIssues, stageIssues, validateRequest } from './validate';
 import {
@@ -191,10 +191,18 @@ export const marginsForCompensator = (prepared: PreparedPlant, comp: Compensator
   return marginsOnPlant(prepared, comp);
 };
 
-/** marginsForCompensator for a validated compensator: the loop planned from the plant's plan. */
-const marginsOnPlant = (prepared: PreparedPlant, comp: CompensatorInput): Margins => {
+/**
+ * marginsForCompensator for a validated compensator: the loop planned from the plant's plan.
+ * With `near` (a loop of a compensator of the same structure, e.g. the ideal parts of these
+ * snapped ones, and that compensator's transfer), the scan computes only the samples the
+ * bound on the two compensators' ratio leaves open (ratioBound, ScanHint): the same
+ * candidates, a fraction of the work.
+ */
+const marginsOnPlant = (prepared: PreparedPlant, comp: CompensatorInput, near?: { loop: SampledResponse; gc: SectionedTransfer }): Margins => {
   const gc = compensatorTransfer(comp, loopRb(prepared, comp));
-  const { scan, evaluate } = scanPlan(productPlan(prepared.plantPlan, planTransfer(gc)), prepared.grid);
+  const bound = near && ratioBound(near.gc, gc);
+  const hint = near && bound ? { magDb: near.loop.magDb, phaseDeg: near.loop.phaseDeg, db: bound.db + 1e-9, deg: bound.deg + 1e-9 } : undefined;
+  const { scan, evaluate } = scanPlan(productPlan(prepared.plantPlan, planTransfer(gc)), prepared.grid, hint);
   return marginsFromScan(prepared.grid.f, scan, evaluate);
 };
 
@@ -235,9 +243,8 @@ export const analyzeLoop = (prepared: PreparedPlant, comp: CompensatorInput): Lo
   return analyzeValidLoop(prepared, comp);
 };
 
-const analyzeValidLoop = (prepared: PreparedPlant, comp: CompensatorInput): LoopResult => {
+const analyzeValidLoop = (prepared: PreparedPlant, comp: CompensatorInput, gc = compensatorTransfer(comp, loopRb(prepared, comp))): LoopResult => {
   const rbLoop = loopRb(prepared, comp);
-  const gc = compensatorTransfer(comp, rbLoop);
   const { compTrace, loop, evaluate } = sweepLoop(prepared, gc);
   const margins = computeMargins(loop, evaluate);
   const rb = divider(prepared, comp);
@@ -327,6 +334,7 @@ export const analyzeParts = (
   comp: CompensatorInput,
   options?: Partial<PartsOptions>,
   idealMargins?: Margins,
+  idealLoop?: { loop: SampledResponse; gc: SectionedTransfer },
 ): PartsResult => {
   const series = { ...DEFAULT_PARTS, ...options };
   const snappedComp = snapCompensator(comp, series);
@@ -338,7 +346,7 @@ export const analyzeParts = (
     snapped: partValues(snappedComp, snapToSeries(rb, series.resistorSeries)),
     // Snapping keeps every part positive, so the snapped compensator of a valid one is valid.
     snappedMargins:
-      idealMargins && sameParts(comp, snappedComp) ? idealMargins : marginsOnPlant(prepared, snappedComp),
+      idealMargins && sameParts(comp, snappedComp) ? idealMargins : marginsOnPlant(prepared, snappedComp, idealLoop),
   };
 };
 
@@ -349,7 +357,8 @@ export const analyzeParts = (
 export const analyze = (request: AnalyzeRequest): AnalyzeResult => {
   validateRequest(request);
   const prepared = prepareValidPlant(request);
-  const loop = analyzeValidLoop(prepared, request.compensator);
+  const gc = compensatorTransfer(request.compensator, loopRb(prepared, request.compensator));
+  const loop = analyzeValidLoop(prepared, request.compensator, gc);
   return {
     operatingPoint: prepared.operatingPoint,
     plant: prepared.plant,
@@ -360,7 +369,7 @@ export const analyze = (request: AnalyzeRequest): AnalyzeResult => {
     compensator: loop.compensator,
     margins: loop.margins,
     phaseAtHalfFswDeg: loop.phaseAtHalfFswDeg,
-    parts: analyzeParts(prepared, request.compensator, request.parts, loop.margins),
+    parts: analyzeParts(prepared, request.compensator, request.parts, loop.margins, { loop: { f: loop.bode.f, ...loop.bode.loop }, gc }),
     bode: loop.bode,
     checks: loop.checks,
   };

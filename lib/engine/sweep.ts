@@ -260,50 +260,102 @@ export const sweepPlan = (plan: TransferPlan, grid: Grid): BodeTrace => {
 export const scanTransfer = (h: SectionedTransfer, grid: Grid): { scan: LoopScan; evaluate: LoopPointEvaluator } =>
   scanPlan(planTransfer(h), grid);
 
-/** scanTransfer of a transfer already planned (planTransfer, productPlan). */
-export const scanPlan = (plan: TransferPlan, grid: Grid): { scan: LoopScan; evaluate: LoopPointEvaluator } => {
+/**
+ * A loop known to lie within `db` dB and `deg` degrees of the scanned one at every frequency,
+ * sampled on the same grid (e.g. the ideal loop, for the loop with snapped parts): where it is
+ * farther than that from 0 dB, or from a multiple of 180°, the scanned loop is on the same side
+ * and that sample need not be computed.
+ */
+export interface ScanHint {
+  magDb: ArrayLike<number>;
+  phaseDeg: ArrayLike<number>;
+  db: number;
+  deg: number;
+}
+
+/** One sample of a scan: Π|N|²·origin, Π|D|²·origin and the sign-carrying Im(j^n·C)·sign(gain). */
+const scanPoint = { num: 0, den: 1, im: 0 };
+
+const scanSample = (plan: TransferPlan, g2: number, turns: number, wi: number): void => {
   const t = plan.terms;
-  // The origin factor gain²·ω^(2n) of |H|² (see originNum, originDen), read once.
-  const g2 = plan.gain * plan.gain;
   const order = plan.order;
-  const nt = t.length;
+  const wi2 = wi * wi;
+  let num = order > 0 ? g2 * Math.pow(wi2, order) : g2;
+  let den = order >= 0 ? 1 : order === -1 ? wi2 : Math.pow(wi2, -order);
+  let cr = 1;
+  let ci = 0;
+  for (let k = 0; k < t.length; k += 4) {
+    const nre = 1 - t[k + 1] * wi2;
+    const nim = t[k] * wi;
+    const dre = 1 - t[k + 3] * wi2;
+    const dim = t[k + 2] * wi;
+    num *= nre * nre + nim * nim;
+    den *= dre * dre + dim * dim;
+    const xr = nre * dre + nim * dim;
+    const xi = nim * dre - nre * dim;
+    const c = cr * xr - ci * xi;
+    ci = cr * xi + ci * xr;
+    cr = c;
+  }
+  scanPoint.num = num;
+  scanPoint.den = den;
+  // Im(j^n·C): j·(a + jb) = −b + ja.
+  scanPoint.im = (plan.gain < 0 ? -1 : 1) * (turns === 0 ? ci : turns === 1 ? cr : turns === 2 ? -ci : -cr);
+};
+
+/**
+ * scanTransfer of a transfer already planned (planTransfer, productPlan). With `near`, only
+ * the samples the hint cannot decide are computed (see ScanHint); the candidates are the
+ * same as a full scan's.
+ */
+export const scanPlan = (plan: TransferPlan, grid: Grid, near?: ScanHint): { scan: LoopScan; evaluate: LoopPointEvaluator } => {
+  const g2 = plan.gain * plan.gain;
+  const turns = ((plan.order % 4) + 4) % 4;
   const w = grid.w;
   const n = w.length;
   const scan: LoopScan = { gainAt: [], gainMagSq: [], phaseAt: [] };
-  const turns = ((plan.order % 4) + 4) % 4;
-  const gainSign = plan.gain < 0 ? -1 : 1;
-  let prevNum = 0;
-  let prevDen = 1;
-  let prevIm = 0;
+  let prevHigh = false;
+  let prevPos = false;
+  let prevMagSq = Number.NaN;
   for (let i = 0; i < n; i++) {
-    const wi = w[i];
-    const wi2 = wi * wi;
-    let num = order > 0 ? g2 * Math.pow(wi2, order) : g2;
-    let den = order >= 0 ? 1 : order === -1 ? wi2 : Math.pow(wi2, -order);
-    let cr = 1;
-    let ci = 0;
-    for (let k = 0; k < nt; k += 4) {
-      const nre = 1 - t[k + 1] * wi2;
-      const nim = t[k] * wi;
-      const dre = 1 - t[k + 3] * wi2;
-      const dim = t[k + 2] * wi;
-      num *= nre * nre + nim * nim;
-      den *= dre * dre + dim * dim;
-      const xr = nre * dre + nim * dim;
-      const xi = nim * dre - nre * dim;
-      const c = cr * xr - ci * xi;
-      ci = cr * xi + ci * xr;
-      cr = c;
+    let high = false;
+    let pos = false;
+    let decided = near !== undefined;
+    if (near !== undefined) {
+      const m = near.magDb[i];
+      if (m > near.db) high = true;
+      else if (!(m < -near.db)) decided = false;
+      // Im T ≥ 0 where the phase lies in [0°, 180°] modulo 360°.
+      let r = near.phaseDeg[i] % 360;
+      if (r < 0) r += 360;
+      if (Math.min(r, Math.abs(r - 180), 360 - r) > near.deg) pos = r < 180;
+      else decided = false;
     }
-    // Im(j^n·C): j·(a + jb) = −b + ja.
-    const imC = gainSign * (turns === 0 ? ci : turns === 1 ? cr : turns === 2 ? -ci : -cr);
+    let magSq = Number.NaN;
+    if (!decided) {
+      scanSample(plan, g2, turns, w[i]);
+      high = scanPoint.num >= scanPoint.den;
+      pos = scanPoint.im >= 0;
+      magSq = scanPoint.num / scanPoint.den;
+    }
     if (i > 0) {
-      if (prevNum >= prevDen !== num >= den) scan.gainAt.push(i - 1), scan.gainMagSq.push(prevNum / prevDen, num / den);
-      if (prevIm >= 0 !== imC >= 0) scan.phaseAt.push(i - 1);
+      if (prevHigh !== high) {
+        if (Number.isNaN(prevMagSq)) {
+          scanSample(plan, g2, turns, w[i - 1]);
+          prevMagSq = scanPoint.num / scanPoint.den;
+        }
+        if (Number.isNaN(magSq)) {
+          scanSample(plan, g2, turns, w[i]);
+          magSq = scanPoint.num / scanPoint.den;
+        }
+        scan.gainAt.push(i - 1);
+        scan.gainMagSq.push(prevMagSq, magSq);
+      }
+      if (prevPos !== pos) scan.phaseAt.push(i - 1);
     }
-    prevNum = num;
-    prevDen = den;
-    prevIm = imC;
+    prevHigh = high;
+    prevPos = pos;
+    prevMagSq = magSq;
   }
   return { scan, evaluate: planEvaluator(plan, grid.f[0]) };
 };

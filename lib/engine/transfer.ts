@@ -237,3 +237,63 @@ export const transferFromAnyPolys = (num: Poly, den: Poly): SectionedTransfer =>
   const d = sectionsOfPoly(den);
   return { gain: n.gain / d.gain, originOrder: n.order - d.order, num: n.sections, den: d.sections };
 };
+
+/**
+ * sup over ω ≥ 0 of |S'(jω) − S(jω)| / |S(jω)| for sections S = 1 + a1·s + a2·s² and S'
+ * (either may be first order): with x = ω², the square is (A·x + B·x²)/(1 + C·x + D·x²),
+ * A = Δa1², B = Δa2², C = a1² − 2a2, D = a2², whose stationary points solve
+ * (BC − AD)·x² + 2B·x + A = 0; the supremum is there or at x → ∞. Null when unbounded (S
+ * vanishes on the jω axis, or S' rises faster).
+ */
+const sectionDeparture = (a: Poly, b: Poly): number | null => {
+  const a1 = a.length > 1 ? a[1] : 0;
+  const a2 = a.length > 2 ? a[2] : 0;
+  const da1 = (b.length > 1 ? b[1] : 0) - a1;
+  const da2 = (b.length > 2 ? b[2] : 0) - a2;
+  if (a1 === 0 && a2 > 0) return null;
+  const A = da1 * da1;
+  const B = da2 * da2;
+  const C = a1 * a1 - 2 * a2;
+  const D = a2 * a2;
+  const f = (x: number) => (A * x + B * x * x) / (1 + C * x + D * x * x);
+  let sup: number;
+  if (D > 0) sup = B / D;
+  else if (B > 0) return null;
+  else if (C > 0) sup = A / C;
+  else if (A === 0) sup = 0;
+  else return null;
+  const qa = B * C - A * D;
+  const disc = 4 * B * B - 4 * qa * A;
+  if (qa !== 0 && disc >= 0) {
+    const sq = Math.sqrt(disc);
+    for (const x of [(-2 * B + sq) / (2 * qa), (-2 * B - sq) / (2 * qa)]) if (x > 0 && Number.isFinite(x)) sup = Math.max(sup, f(x));
+  }
+  return Math.sqrt(Math.max(0, sup));
+};
+
+/**
+ * Bounds on H'/H over all frequencies for two transfers of the same structure (e.g. a
+ * compensator with its parts snapped): |20·log10|H'/H|| ≤ db and |∠(H'/H)| ≤ deg. Each pair
+ * of corresponding sections departs by at most ε (sectionDeparture), so its ratio lies within
+ * a factor 1 ± ε: |ln| ≤ −ln(1 − ε), angle ≤ asin ε. Null when the structures differ or a
+ * section moves by half its size or more (then nothing useful is bounded).
+ */
+export const ratioBound = (h: SectionedTransfer, h2: SectionedTransfer): { db: number; deg: number } | null => {
+  if (h.originOrder !== h2.originOrder || h.gain * h2.gain <= 0 || h.num.length !== h2.num.length || h.den.length !== h2.den.length) return null;
+  let ln = Math.abs(Math.log(h2.gain / h.gain));
+  let angle = 0;
+  for (const [x, y] of [
+    [h.num, h2.num],
+    [h.den, h2.den],
+  ] as const) {
+    for (let k = 0; k < x.length; k++) {
+      if (x[k].length !== y[k].length) return null;
+      const e = sectionDeparture(x[k], y[k]);
+      if (e === null || e >= 0.5) return null;
+      ln -= Math.log(1 - e);
+      angle += Math.asin(e);
+    }
+  }
+  return { db: 2 * DB_PER_LN_MAGSQ * ln, deg: (angle * 180) / Math.PI };
+};
+

@@ -1,9 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { analyze, analyzeLoop, evaluateLoopGain, preparePlant } from '@/lib/engine/analyze';
+import Complex from 'complex.js';
+import { analyze, analyzeLoop, evaluateLoopGain, loopCompensatorTransfer, marginsForCompensator, preparePlant, standardValueCompensator } from '@/lib/engine/analyze';
 import { partsFromShape, shapeFromParts } from '@/lib/engine/compensator';
-import { SAMPLE_DESIGNS } from '@/lib/engine/samples';
+import { MODE_SAMPLES, SAMPLE_DESIGNS } from '@/lib/engine/samples';
 import { snapToSeries } from '@/lib/engine/eseries';
-import { wrapDeg } from '@/lib/engine/transfer';
+import { evaluateTransfer, ratioBound, wrapDeg } from '@/lib/engine/transfer';
 import { EngineInputError, type AnalyzeRequest } from '@/lib/engine/types';
 import { expectAbs, expectRel, makeRequest } from './helpers';
 
@@ -177,5 +178,48 @@ describe('Tune fast path: preparePlant + analyzeLoop', () => {
   it('rejects impossible compensator parts with field paths', () => {
     const prepared = preparePlant(SAMPLE_DESIGNS[1].request);
     expect(() => analyzeLoop(prepared, { type: 'type2', r1: 1e4, r2: -5, c1: 1e-9 })).toThrow(EngineInputError);
+  });
+});
+
+describe('snapped-parts margins: the scan near the ideal loop', () => {
+  // A deterministic spread of part changes up to ±20 % (E12 capacitors move up to about 10 %).
+  let seed = 11;
+  const random = () => (seed = (seed * 16807) % 2147483647) / 2147483647;
+  const moved = (v: number | undefined) => (v === undefined ? undefined : v * (1 + 0.4 * (random() - 0.5)));
+  const requests = [...SAMPLE_DESIGNS, ...MODE_SAMPLES].flatMap(({ request }) =>
+    Array.from({ length: 12 }, () => {
+      const c = request.compensator;
+      return { ...request, compensator: { ...c, r1: moved(c.r1)!, r2: moved(c.r2), r3: moved(c.r3), c1: moved(c.c1)!, c2: moved(c.c2), c3: moved(c.c3), rb: moved(c.rb) } };
+    }),
+  );
+
+  it('ratioBound holds at every frequency tried (|20·log10|H′/H|| ≤ db, |∠H′/H| ≤ deg)', () => {
+    for (const req of requests) {
+      const prepared = preparePlant(req);
+      const gc = loopCompensatorTransfer(prepared, req.compensator);
+      const snapped = loopCompensatorTransfer(prepared, standardValueCompensator(req.compensator));
+      const bound = ratioBound(gc, snapped);
+      if (bound === null) continue;
+      for (let hz = 1; hz < 1e8; hz *= 1.07) {
+        const s = new Complex(0, 2 * Math.PI * hz);
+        const r = evaluateTransfer(snapped, s).div(evaluateTransfer(gc, s));
+        expect(Math.abs(20 * Math.log10(r.abs()))).toBeLessThanOrEqual(bound.db + 1e-9);
+        expect(Math.abs((r.arg() * 180) / Math.PI)).toBeLessThanOrEqual(bound.deg + 1e-9);
+      }
+    }
+  });
+
+  it('gives exactly the margins of a full scan of the snapped loop', () => {
+    let hinted = 0;
+    for (const req of requests) {
+      const prepared = preparePlant(req);
+      const snapped = standardValueCompensator(req.compensator);
+      const full = marginsForCompensator(prepared, snapped);
+      const result = analyze(req);
+      if (ratioBound(loopCompensatorTransfer(prepared, req.compensator), loopCompensatorTransfer(prepared, snapped)) !== null) hinted++;
+      expect(result.parts.snappedMargins).toEqual(full);
+    }
+    // The bound applies to nearly every case (else the test would only compare full scans).
+    expect(hinted).toBeGreaterThan(requests.length * 0.8);
   });
 });
