@@ -82,11 +82,17 @@ const dot = (x: Vec2, y: Vec2) => x[0] * y[0] + x[1] * y[1];
  * Ascending coefficients.
  */
 const transferOf = (a: Mat2, bIn: Vec2, c: Vec2, e: number) => {
-  const [[a11, a12], [a21, a22]] = a;
+  // Indexed rather than destructured: seven of these per model, on every analysis.
+  const a11 = a[0][0];
+  const a12 = a[0][1];
+  const a21 = a[1][0];
+  const a22 = a[1][1];
   const tr = a11 + a22;
   const det = a11 * a22 - a12 * a21;
-  const [c1, c2] = c;
-  const [b1, b2] = bIn;
+  const c1 = c[0];
+  const c2 = c[1];
+  const b1 = bIn[0];
+  const b2 = bIn[1];
   const num = [
     -c1 * a22 * b1 + c1 * a12 * b2 + c2 * a21 * b1 - c2 * a11 * b2 + e * det,
     c1 * b1 + c2 * b2 - e * tr,

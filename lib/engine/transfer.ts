@@ -62,11 +62,12 @@ export const multiplyTransfers = (...parts: SectionedTransfer[]): SectionedTrans
   let originOrder = 0;
   const num: Poly[] = [];
   const den: Poly[] = [];
-  for (const p of parts) {
+  for (let i = 0; i < parts.length; i++) {
+    const p = parts[i];
     gain *= p.gain;
     originOrder += p.originOrder;
-    num.push(...p.num);
-    den.push(...p.den);
+    for (let k = 0; k < p.num.length; k++) num.push(p.num[k]);
+    for (let k = 0; k < p.den.length; k++) den.push(p.den[k]);
   }
   return { gain, originOrder, num, den };
 };
