@@ -114,11 +114,12 @@ const cubicRoots = (b2: number, b1: number, b0: number, sigma: number): [number,
 
 /**
  * The engine's one root finder: every root of a real polynomial with p[0] ≠ 0 (ascending,
- * degree ≥ 1), as [re, im] pairs. Degree ≤ 2 in closed form; above, the Aberth–Ehrlich
- * simultaneous iteration (O. Aberth, Math. Comp. 27 (1973) 339–344; L. W. Ehrlich, Comm. ACM
- * 10 (1967) 107–108): x_i ← x_i − N_i / (1 − N_i·Σ_{j≠i} 1/(x_i − x_j)), N_i = p(x_i)/p′(x_i),
- * cubically convergent for simple roots. The variable is scaled so the roots' geometric mean is 1
- * and the iteration starts on the unit circle. It runs on plain numbers: it factors the
+ * degree ≥ 1), as [re, im] pairs. Degree ≤ 2 in closed form; 3 by a real root and deflation
+ * (cubicRoots); above, the Aberth–Ehrlich simultaneous iteration (O. Aberth, Math. Comp. 27
+ * (1973) 339–344; L. W. Ehrlich, Comm. ACM 10 (1967) 107–108):
+ * x_i ← x_i − N_i / (1 − N_i·Σ_{j≠i} 1/(x_i − x_j)), N_i = p(x_i)/p′(x_i), cubically
+ * convergent for simple roots. The variable is scaled so the roots' geometric mean is 1, and
+ * the iteration starts from the Newton polygon (below). It runs on plain numbers: it factors the
  * current-mode plant and the finite op-amp on every analysis, and with complex.js values each
  * call took about 15 times as long (measured on those polynomials); complex.js carries the
  * roots it returns (polyRoots).
