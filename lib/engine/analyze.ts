@@ -12,7 +12,7 @@ import { compensatorTransfer, dividerRb, gbwEnough, opAmpShapeError, shapeFromPa
 import { amplifierChecks, loopChecks, modulatorChecks, partChecks, stageChecks } from './checks';
 import { buildControlPlant } from './control';
 import { snapToSeries } from './eseries';
-import { computeMargins, marginsFromScan, type LoopPointEvaluator, type SampledResponse } from './margins';
+import { marginsFromCrossings, marginsFromScan, type LoopPointEvaluator, type SampledResponse, type TraceCrossings } from './margins';
 import { esrZeroHint, type PlantModel } from './plant';
 import { defaultSweep, planEvaluator, planTransfer, productPlan, scanPlan, scanTransfer, sweepGrid, sweepPlan, type Grid, type TransferPlan } from './sweep';
 import { multiplyTransfers, phaseOffsetDeg, ratioBound, summarizeTransfer, type SectionedTransfer } from './transfer';
@@ -154,11 +154,17 @@ const loopRb = (prepared: PreparedPlant, comp: CompensatorInput): number | undef
 export const withLoopDivider = (prepared: PreparedPlant, comp: CompensatorInput): CompensatorInput =>
   comp.opamp && comp.amplifier !== 'transconductance' && comp.rb === undefined ? { ...comp, rb: divider(prepared, comp) } : comp;
 
-/** Loop gain on the grid (plant sweep reused) and its analytic evaluator on the same branch. */
+/**
+ * Loop gain on the grid (plant sweep reused) and its analytic evaluator on the same branch.
+ * The pass that adds the two traces also notes what the margins and the checks look for:
+ * the crossing intervals (TraceCrossings) and the first sample where the phase is below
+ * −180° while |T| > 0 dB (conditional stability, when it lies under fc).
+ */
 const sweepLoop = (prepared: PreparedPlant, comp: SectionedTransfer) => {
   const compPlan = planTransfer(comp);
   const compTrace = sweepPlan(compPlan, prepared.grid);
-  const n = prepared.grid.f.length;
+  const f = prepared.grid.f;
+  const n = f.length;
   const pm = prepared.plantTrace.magDb;
   const pp = prepared.plantTrace.phaseDeg;
   const cm = compTrace.magDb;
@@ -167,12 +173,33 @@ const sweepLoop = (prepared: PreparedPlant, comp: SectionedTransfer) => {
   const shift = phaseOffsetDeg(pp[0] + cp[0]);
   const magDb = new Array<number>(n);
   const phaseDeg = new Array<number>(n);
+  const crossings: TraceCrossings = { gainAt: [], phaseAt: [] };
+  let belowMinus180Hz: number | null = null;
+  let prevHigh = false;
+  let prevAbove = false;
   for (let i = 0; i < n; i++) {
-    magDb[i] = pm[i] + cm[i];
-    phaseDeg[i] = pp[i] + cp[i] + shift;
+    const m = pm[i] + cm[i];
+    const p = pp[i] + cp[i] + shift;
+    magDb[i] = m;
+    phaseDeg[i] = p;
+    const high = m >= 0;
+    const above = p + 180 >= 0;
+    if (i > 0) {
+      if (high !== prevHigh) crossings.gainAt.push(i - 1);
+      if (above !== prevAbove) crossings.phaseAt.push(i - 1);
+    }
+    if (belowMinus180Hz === null && p < -180 && m > 0) belowMinus180Hz = f[i];
+    prevHigh = high;
+    prevAbove = above;
   }
-  const loop = { f: prepared.grid.f, magDb, phaseDeg };
-  return { compTrace, loop, evaluate: planEvaluator(productPlan(prepared.plantPlan, compPlan), prepared.grid.f[0], phaseDeg[0]) };
+  const loop = { f, magDb, phaseDeg };
+  return {
+    compTrace,
+    loop,
+    crossings,
+    belowMinus180Hz,
+    evaluate: planEvaluator(productPlan(prepared.plantPlan, compPlan), f[0], phaseDeg[0]),
+  };
 };
 
 const checkCompensator = (comp: CompensatorInput) => {
@@ -245,8 +272,8 @@ export const analyzeLoop = (prepared: PreparedPlant, comp: CompensatorInput): Lo
 
 const analyzeValidLoop = (prepared: PreparedPlant, comp: CompensatorInput, gc = compensatorTransfer(comp, loopRb(prepared, comp))): LoopResult => {
   const rbLoop = loopRb(prepared, comp);
-  const { compTrace, loop, evaluate } = sweepLoop(prepared, gc);
-  const margins = computeMargins(loop, evaluate);
+  const { compTrace, loop, crossings, belowMinus180Hz, evaluate } = sweepLoop(prepared, gc);
+  const margins = marginsFromCrossings(loop, crossings, evaluate);
   const rb = divider(prepared, comp);
   const fsw = prepared.converter.fsw;
   let shapeError = null;
@@ -269,7 +296,7 @@ const analyzeValidLoop = (prepared: PreparedPlant, comp: CompensatorInput, gc = 
     },
     checks: [
       ...prepared.stageChecks,
-      ...loopChecks({ margins, loop, fsw: prepared.converter.fsw, rhpZeroHz: prepared.plant.rhpZeroHz }),
+      ...loopChecks({ margins, loop, fsw: prepared.converter.fsw, rhpZeroHz: prepared.plant.rhpZeroHz, belowMinus180Hz }),
       ...partChecks(comp, rb),
       ...amplifierChecks({ comp, shapeError, gbwEnoughHz, vref: prepared.vref, vout: prepared.converter.vout }),
     ],

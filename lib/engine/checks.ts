@@ -39,6 +39,11 @@ export const loopChecks = (args: {
   loop: SampledResponse;
   fsw: number;
   rhpZeroHz: number | null;
+  /**
+   * The lowest sample frequency where the phase is below −180° while |T| > 0 dB, when the
+   * caller found it while making the samples (analyze.ts); else the samples are searched.
+   */
+  belowMinus180Hz?: number | null;
 }): Check[] => {
   const { margins, loop, fsw, rhpZeroHz } = args;
   const out: Check[] = [];
@@ -116,7 +121,7 @@ export const loopChecks = (args: {
         message: `The loop gain crosses 0 dB ${gainCrossings.length} times (at ${gainCrossings.map((c) => hz(c.hz)).join(', ')}); a peak near the LC resonance or a pole-zero pair is lifting the gain back up. Damp the resonance or lower the gain so there is one clean crossover.`,
       });
     }
-    if (isConditionallyStable(loop, fc)) {
+    if (args.belowMinus180Hz !== undefined ? args.belowMinus180Hz !== null && args.belowMinus180Hz < fc : isConditionallyStable(loop, fc)) {
       out.push({
         id: 'conditional-stability',
         level: 'risk',

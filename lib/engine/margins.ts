@@ -153,26 +153,45 @@ const assembleMargins = (
  *   (|T(fc)| = 1 to ~1e-12 dB) instead of interpolated.
  */
 export const computeMargins = (sampled: SampledResponse, evaluate?: LoopPointEvaluator): Margins => {
-  const { f, magDb, phaseDeg } = sampled;
-  const magOf = evaluate && ((hz: number) => evaluate(hz).magDb);
-  const phaseOf = evaluate && ((hz: number) => evaluate(hz).phaseDeg);
-  // findCrossings for both curves in one pass over the samples.
-  const gain: FoundCrossing[] = [];
-  const phase: FoundCrossing[] = [];
-  const n = f.length;
+  const { magDb, phaseDeg } = sampled;
+  const at: TraceCrossings = { gainAt: [], phaseAt: [] };
+  const n = sampled.f.length;
   let ma = n > 0 ? magDb[0] : 0;
   let pa = n > 0 ? phaseDeg[0] + 180 : 0;
   for (let i = 0; i + 1 < n; i++) {
     const mb = magDb[i + 1];
     const pb = phaseDeg[i + 1] + 180;
-    if (ma >= 0 !== mb >= 0) gain.push(crossingBetween(f[i], f[i + 1], ma, mb, 0, magOf));
-    if (pa >= 0 !== pb >= 0) phase.push(crossingBetween(f[i], f[i + 1], pa, pb, -180, phaseOf));
+    if (ma >= 0 !== mb >= 0) at.gainAt.push(i);
+    if (pa >= 0 !== pb >= 0) at.phaseAt.push(i);
     ma = mb;
     pa = pb;
   }
-  const at = (hz: number) =>
+  return marginsFromCrossings(sampled, at, evaluate);
+};
+
+/**
+ * The intervals i (between samples i and i+1) of a sampled loop where the magnitude passes
+ * 0 dB, (magDb ≥ 0) changing, and where the phase passes −180°, (phaseDeg ≥ −180) changing:
+ * what computeMargins looks for, found by whoever makes the samples (analyze.ts does it
+ * while it adds the plant and compensator traces, one pass fewer).
+ */
+export interface TraceCrossings {
+  gainAt: number[];
+  phaseAt: number[];
+}
+
+/** computeMargins with the crossing intervals already found (see TraceCrossings). */
+export const marginsFromCrossings = (sampled: SampledResponse, at: TraceCrossings, evaluate?: LoopPointEvaluator): Margins => {
+  const { f, magDb, phaseDeg } = sampled;
+  const magOf = evaluate && ((hz: number) => evaluate(hz).magDb);
+  const phaseOf = evaluate && ((hz: number) => evaluate(hz).phaseDeg);
+  const gain: FoundCrossing[] = [];
+  const phase: FoundCrossing[] = [];
+  for (const i of at.gainAt) gain.push(crossingBetween(f[i], f[i + 1], magDb[i], magDb[i + 1], 0, magOf));
+  for (const i of at.phaseAt) phase.push(crossingBetween(f[i], f[i + 1], phaseDeg[i] + 180, phaseDeg[i + 1] + 180, -180, phaseOf));
+  const value = (hz: number) =>
     evaluate ? evaluate(hz) : { magDb: interpolateLogF(f, magDb, hz), phaseDeg: interpolateLogF(f, phaseDeg, hz) };
-  return assembleMargins(gain, phase, at);
+  return assembleMargins(gain, phase, value);
 };
 
 /**

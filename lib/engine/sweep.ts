@@ -326,8 +326,9 @@ export const scanPlan = (plan: TransferPlan, grid: Grid, near?: ScanHint): { sca
       if (m > near.db) high = true;
       else if (!(m < -near.db)) decided = false;
       // Im T ≥ 0 where the phase lies in [0°, 180°] modulo 360°.
-      let r = near.phaseDeg[i] % 360;
-      if (r < 0) r += 360;
+      // (Math.floor rather than %: a remainder of doubles is a library call in V8.)
+      const p = near.phaseDeg[i];
+      const r = p - 360 * Math.floor(p / 360);
       if (Math.min(r, Math.abs(r - 180), 360 - r) > near.deg) pos = r < 180;
       else decided = false;
     }

@@ -5,6 +5,8 @@ import { partsFromShape, shapeFromParts } from '@/lib/engine/compensator';
 import { MODE_SAMPLES, SAMPLE_DESIGNS } from '@/lib/engine/samples';
 import { snapToSeries } from '@/lib/engine/eseries';
 import { evaluateTransfer, ratioBound, wrapDeg } from '@/lib/engine/transfer';
+import { computeMargins } from '@/lib/engine/margins';
+import { loopChecks } from '@/lib/engine/checks';
 import { EngineInputError, type AnalyzeRequest } from '@/lib/engine/types';
 import { expectAbs, expectRel, makeRequest } from './helpers';
 
@@ -221,5 +223,26 @@ describe('snapped-parts margins: the scan near the ideal loop', () => {
     }
     // The bound applies to nearly every case (else the test would only compare full scans).
     expect(hinted).toBeGreaterThan(requests.length * 0.8);
+  });
+});
+
+describe('the loop pass: margins and checks found while the traces are added', () => {
+  it('gives the margins and loop checks of the generic functions (computeMargins, loopChecks on the samples)', () => {
+    const designs = [...SAMPLE_DESIGNS, ...MODE_SAMPLES].map((s) => s.request);
+    // A Type III buck whose zeros sit far above the LC pair: conditionally stable (phase below −180° under fc).
+    const req = SAMPLE_DESIGNS[0].request;
+    const shape = shapeFromParts(req.compensator);
+    designs.push({ ...req, compensator: partsFromShape({ ...shape, zerosHz: shape.zerosHz.map((z) => z * 4), integratorHz: shape.integratorHz * 8 }) });
+    for (const design of designs) {
+      const prepared = preparePlant(design);
+      const result = analyzeLoop(prepared, design.compensator);
+      const sampled = { f: result.bode.f, ...result.bode.loop };
+      const margins = computeMargins(sampled, evaluateLoopGain(prepared, design.compensator, sampled.phaseDeg[0]));
+      expect(result.margins).toEqual(margins);
+      const generic = loopChecks({ margins, loop: sampled, fsw: prepared.converter.fsw, rhpZeroHz: prepared.plant.rhpZeroHz });
+      const ids = result.checks.map((c) => c.id);
+      for (const c of generic) expect(ids).toContain(c.id);
+    }
+    expect(analyze(designs[designs.length - 1]).checks.map((c) => c.id)).toContain('conditional-stability');
   });
 });
