@@ -326,10 +326,12 @@ export const scanPlan = (plan: TransferPlan, grid: Grid, near?: ScanHint): { sca
       if (m > near.db) high = true;
       else if (!(m < -near.db)) decided = false;
       // Im T ≥ 0 where the phase lies in [0°, 180°] modulo 360°.
-      // (Math.floor rather than %: a remainder of doubles is a library call in V8.)
-      const p = near.phaseDeg[i];
-      const r = p - 360 * Math.floor(p / 360);
-      if (Math.min(r, Math.abs(r - 180), 360 - r) > near.deg) pos = r < 180;
+      // The phase in turns, its fraction u in [0, 1) (Math.floor rather than %: a remainder of
+      // doubles is a library call in V8); distance to the nearest half turn in degrees.
+      const turn = near.phaseDeg[i] * (1 / 360);
+      const u = turn - Math.floor(turn);
+      const away = 360 * (u < 0.25 ? u : u < 0.75 ? Math.abs(u - 0.5) : 1 - u);
+      if (away > near.deg) pos = u < 0.5;
       else decided = false;
     }
     let magSq = Number.NaN;
