@@ -1,0 +1,176 @@
+/**
+ * The engine section of `npm run bench`: named engine cases, each timed as the median of
+ * batch means after a warm-up (add one by pushing to BENCH_CASES).
+ *
+ * scripts/bench.ts does not import this file: it bundles it with esbuild, as the production
+ * build compiles the engine, and loads the bundle (runEngineBench in ./engine-build.ts). Under
+ * tsx every closure made inside a function is wrapped in esbuild's keepNames helper (a
+ * defineProperty per closure created), which the production build does not do and which
+ * added 10–25 µs to an analysis (measured; `--keep-names` shows it).
+ */
+import { analyze, analyzeLoop, preparePlant } from '@/lib/engine/analyze';
+import { partsFromShape, shapeFromParts } from '@/lib/engine/compensator';
+import { MODE_SAMPLES, SAMPLE_DESIGNS } from '@/lib/engine/samples';
+import { simulateStepResponse } from '@/lib/engine/step-response';
+import { simulatorFor } from '@/lib/engine/switching-check';
+import type { AnalyzeRequest, CompensatorShape } from '@/lib/engine/types';
+import { tuneDragCase } from '@/components/tune/drag-bench';
+import { defaultRange } from '@/lib/engine/range';
+import { runSpread } from '@/lib/engine/spread';
+import { analyzeCorners } from '@/lib/engine/corners';
+
+export interface BenchCase {
+  name: string;
+  /** Target for the median, microseconds; none for a reference case. */
+  targetUs?: number;
+  /** Calls per timed batch (the batch time is divided by it). */
+  batch: number;
+  /** One call of the operation; `i` is the running call number. */
+  run: (i: number) => unknown;
+  /** Timed batches and warm-up calls (defaults 400 and 3000; fewer for long cases). */
+  batches?: number;
+  warmup?: number;
+}
+
+let sink: unknown;
+
+/**
+ * Median of batch-mean times in µs after a warm-up; also the best batch, which is the better
+ * estimate when other processes share the machine (the median then includes their time slices).
+ */
+const measure = (c: BenchCase, batches = 400, warmup = 3000): { medianUs: number; p90Us: number; bestUs: number } => {
+  for (let i = 0; i < warmup; i++) sink = c.run(i);
+  const times: number[] = [];
+  let call = 0;
+  for (let b = 0; b < batches; b++) {
+    const t0 = process.hrtime.bigint();
+    for (let k = 0; k < c.batch; k++) sink = c.run(call++);
+    times.push(Number(process.hrtime.bigint() - t0) / 1e3 / c.batch);
+  }
+  times.sort((a, b) => a - b);
+  return { medianUs: times[times.length >> 1], p90Us: times[Math.floor(times.length * 0.9)], bestUs: times[0] };
+};
+
+const requests = SAMPLE_DESIGNS.map((s) => s.request);
+const nudge = (v: number | undefined) => (v === undefined ? undefined : v * 1.037);
+const offSeries = requests.map((r) => {
+  const c = r.compensator;
+  return { ...r, compensator: { ...c, r2: nudge(c.r2), r3: nudge(c.r3), c1: c.c1 * 1.037, c2: nudge(c.c2), c3: nudge(c.c3) } };
+});
+
+/** Handle moves: each call nudges the integrator and the first zero, as a drag would. */
+const dragCase = (): BenchCase => {
+  const prepared = requests.map((r) => preparePlant(r));
+  const shapes = requests.map((r) => shapeFromParts(r.compensator));
+  return {
+    name: 'drag: partsFromShape → analyzeLoop (400 points, margins, bode, checks)',
+    targetUs: 16_000,
+    batch: 10,
+    run: (i) => {
+      const k = i % prepared.length;
+      const s: CompensatorShape = shapes[k];
+      const wobble = 1 + 0.05 * Math.sin(i * 0.37);
+      const comp = partsFromShape({ ...s, integratorHz: s.integratorHz * wobble, zerosHz: s.zerosHz.map((z, j) => (j === 0 ? z * wobble : z)) });
+      return analyzeLoop(prepared[k], comp);
+    },
+  };
+};
+
+/** One design per control mode and amplifier (lib/engine/samples.ts), analysed in full. */
+const modeCases: BenchCase[] = MODE_SAMPLES.map(({ name, request }) => ({
+  name: `full analyze(), ${name} (400 points)`,
+  targetUs: 50,
+  batch: 10,
+  run: () => analyze(request),
+}));
+
+/** Machine speed: the transcendental work of one 400-point sweep, to compare runs across machines and loads. */
+/** The switching check's core: 2,000 cycles of the buck sample in closed loop (Type III, voltage mode, 20 samples a cycle). */
+const switchingCase = (): BenchCase => {
+  const req = SAMPLE_DESIGNS[0].request;
+  const sim = simulatorFor(req, preparePlant(req));
+  let samples = 0;
+  return {
+    name: 'switching: 2,000 cycles of the buck sample (closed loop, exact per interval, 40,000 samples)',
+    targetUs: 2_000_000,
+    batch: 1,
+    batches: 7,
+    warmup: 1,
+    run: () => {
+      sim.runCycles(2000, () => samples++);
+      return samples;
+    },
+  };
+};
+
+/** The averaged load step of each sample (state-space loop, 1,200 points, settling window found). */
+const stepCase: BenchCase = {
+  name: 'step response (averaged loop) of a sample, load step to full load',
+  batch: 1,
+  batches: 30,
+  warmup: 3,
+  run: (i) => {
+    const r = requests[i % requests.length];
+    return simulateStepResponse(r, { kind: 'load', from: r.converter.iout / 2, to: r.converter.iout });
+  },
+};
+
+const referenceCase: BenchCase = {
+  name: 'reference: 400 × (Math.atan2 + Math.log10), no engine code',
+  batch: 10,
+  run: (i) => {
+    let s = 0;
+    for (let k = 0; k < 400; k++) s += Math.atan2(k - 200 + (i & 7), 37) + Math.log10(k + 1.5);
+    return s;
+  },
+};
+
+export const BENCH_CASES: BenchCase[] = [
+  referenceCase,
+  {
+    name: 'full analyze() of the three sample designs (400 points, margins, snapped parts, checks)',
+    targetUs: 50,
+    batch: 10,
+    run: (i) => analyze(requests[i % requests.length]),
+  },
+  {
+    // The samples use standard values, so analyze() reuses the ideal margins for the snapped
+    // parts; here every part is off-series and the snapped loop is analysed as well.
+    name: 'full analyze(), parts off the E series (snapped loop analysed too)',
+    targetUs: 50,
+    batch: 10,
+    run: (i) => analyze(offSeries[i % offSeries.length]),
+  },
+  ...modeCases,
+  dragCase(),
+  tuneDragCase(),
+  stepCase,
+  switchingCase(),
+  {
+    name: 'corners: 32 corners of a sample design, each a full analyze()',
+    batch: 1,
+    batches: 30,
+    warmup: 6,
+    run: (i) => analyzeCorners(requests[i % requests.length], defaultRange(requests[i % requests.length].converter)),
+  },
+  {
+    name: 'spread: 10,000 samples of a sample design (margins only, one core)',
+    targetUs: 1_000_000,
+    batch: 1,
+    batches: 9,
+    warmup: 2,
+    run: (i) => runSpread(requests[i % requests.length], defaultRange(requests[i % requests.length].converter), { samples: 10_000, seed: i }),
+  },
+];
+
+/** Run the cases whose name contains `only` (all without it) and print each median. */
+export const engineSection = (only: string | undefined, note: string) => {
+  console.log(`\nEngine (${note})`);
+  for (const c of BENCH_CASES.filter((b) => !only || b.name.includes(only))) {
+    const { medianUs, p90Us, bestUs } = measure(c, c.batches, c.warmup);
+    const verdict =
+      c.targetUs === undefined ? 'reference' : `target ${c.targetUs} µs: ${medianUs <= c.targetUs ? 'within target' : 'ABOVE target'}`;
+    console.log(`- ${c.name}\n    median ${medianUs.toFixed(1)} µs (best ${bestUs.toFixed(1)}, p90 ${p90Us.toFixed(1)}); ${verdict}`);
+  }
+  if (sink === undefined) console.log('(nothing computed)');
+};
