@@ -59,20 +59,23 @@ export const makeGrid = (f: readonly number[]): Grid => {
 };
 
 /**
- * The grid of a sweep's options. The last one is kept and shared by every result that sweeps
- * the same frequencies (an analysis, the drag loop, the corner and spread runs of one design):
- * building it costs two passes with exponentials. Its arrays are read-only by contract and
- * not frozen, because V8 boxes every element of a frozen array of doubles and the sweeps,
- * which read them per point, then run a third slower (measured).
+ * The grid of a sweep's options. The last few are kept and shared by every result that sweeps
+ * the same frequencies (analyses of the designs in use, the drag loop, the corner and spread
+ * runs): building one costs two passes with exponentials. Their arrays are read-only by
+ * contract and not frozen, because V8 boxes every element of a frozen array of doubles and the
+ * sweeps, which read them per point, then run a third slower (measured).
  */
-let lastGrid: { fStart: number; fStop: number; points: number; grid: Grid } | null = null;
+const recentGrids: { fStart: number; fStop: number; points: number; grid: Grid }[] = [];
+const RECENT_GRIDS = 8;
 
 export const sweepGrid = (fStart: number, fStop: number, points: number): Grid => {
-  const g = lastGrid;
-  if (g !== null && g.fStart === fStart && g.fStop === fStop && g.points === points) return g.grid;
-  const f = logSweep(fStart, fStop, points);
-  const grid = makeGrid(f);
-  lastGrid = { fStart, fStop, points, grid };
+  for (let k = 0; k < recentGrids.length; k++) {
+    const g = recentGrids[k];
+    if (g.fStart === fStart && g.fStop === fStop && g.points === points) return g.grid;
+  }
+  const grid = makeGrid(logSweep(fStart, fStop, points));
+  if (recentGrids.length >= RECENT_GRIDS) recentGrids.shift();
+  recentGrids.push({ fStart, fStop, points, grid });
   return grid;
 };
 

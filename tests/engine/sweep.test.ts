@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import Complex from 'complex.js';
 import { compensatorTransfer } from '@/lib/engine/compensator';
-import { defaultSweep, logSweep, makeGrid, sweepComplex, sweepTransfer, transferEvaluator } from '@/lib/engine/sweep';
+import { defaultSweep, logSweep, makeGrid, sweepComplex, sweepGrid, sweepTransfer, transferEvaluator } from '@/lib/engine/sweep';
 import { evaluateTransfer, multiplyTransfers, transferFromPolys, wrapDeg, type SectionedTransfer } from '@/lib/engine/transfer';
 import { expectAbs, expectRel } from './helpers';
 
@@ -19,6 +19,17 @@ describe('logSweep', () => {
     expect(f[399]).toBe(150e3);
     const r = (150e3 / 10) ** (1 / 399);
     f.forEach((x, i) => expectRel(x, 10 * r ** i, 1e-12));
+  });
+});
+
+describe('sweepGrid', () => {
+  it('shares the grid of the same options among the last few in use, and builds it as logSweep does', () => {
+    const a = sweepGrid(10, 150e3, 400);
+    expect(a.f).toEqual(logSweep(10, 150e3, 400));
+    expect(a.w[7]).toBe(TWO_PI * a.f[7]);
+    for (let k = 1; k <= 5; k++) sweepGrid(10, k * 1e5, 400);
+    expect(sweepGrid(10, 150e3, 400)).toBe(a);
+    expect(sweepGrid(10, 150e3, 401)).not.toBe(a);
   });
 });
 
