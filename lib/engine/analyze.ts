@@ -150,9 +150,6 @@ export const loopCompensatorTransfer = (prepared: PreparedPlant, comp: Compensat
 const loopRb = (prepared: PreparedPlant, comp: CompensatorInput): number | undefined =>
   comp.opamp && comp.amplifier !== 'transconductance' && comp.rb === undefined ? divider(prepared, comp) : comp.rb;
 
-/** The compensator with the divider's Rb filled in where the loop needs it (a finite op-amp). */
-export const withLoopDivider = (prepared: PreparedPlant, comp: CompensatorInput): CompensatorInput =>
-  comp.opamp && comp.amplifier !== 'transconductance' && comp.rb === undefined ? { ...comp, rb: divider(prepared, comp) } : comp;
 
 /**
  * Loop gain on the grid (plant sweep reused) and its analytic evaluator on the same branch.
