@@ -12,10 +12,10 @@ import { compensatorTransfer, dividerRb, gbwEnough, opAmpShapeError, shapeFromPa
 import { amplifierChecks, loopChecks, modulatorChecks, partChecks, stageChecks } from './checks';
 import { buildControlPlant } from './control';
 import { snapToSeries } from './eseries';
-import { marginsFromCrossings, marginsFromScan, type LoopPointEvaluator, type SampledResponse, type TraceCrossings } from './margins';
+import { marginsFromCrossings, marginsFromScan, type LoopPointEvaluator, type SampledResponse } from './margins';
 import { esrZeroHint, type PlantModel } from './plant';
-import { defaultSweep, planEvaluator, planTransfer, productPlan, scanPlan, scanTransfer, sweepGrid, sweepPlan, type Grid, type TransferPlan } from './sweep';
-import { multiplyTransfers, phaseOffsetDeg, ratioBound, summarizeTransfer, type SectionedTransfer } from './transfer';
+import { defaultSweep, loopOnto, planEvaluator, planTransfer, productPlan, scanPlan, scanTransfer, sweepGrid, sweepPlan, type Grid, type TransferPlan } from './sweep';
+import { multiplyTransfers, ratioBound, summarizeTransfer, type SectionedTransfer } from './transfer';
 import { withLossDefaults } from './steady-state';
 import { compensatorIssues, stageIssues, validateRequest } from './validate';
 import {
@@ -153,49 +153,20 @@ const loopRb = (prepared: PreparedPlant, comp: CompensatorInput): number | undef
 
 /**
  * Loop gain on the grid (plant sweep reused) and its analytic evaluator on the same branch.
- * The pass that adds the two traces also notes what the margins and the checks look for:
- * the crossing intervals (TraceCrossings) and the first sample where the phase is below
- * −180° while |T| > 0 dB (conditional stability, when it lies under fc).
+ * The compensator's sweep adds the plant's trace as it goes and notes the crossing intervals
+ * and the conditional-stability point (LoopOnto): no further pass over the samples.
  */
 const sweepLoop = (prepared: PreparedPlant, comp: SectionedTransfer) => {
   const compPlan = planTransfer(comp);
-  const compTrace = sweepPlan(compPlan, prepared.grid);
   const f = prepared.grid.f;
-  const n = f.length;
-  const pm = prepared.plantTrace.magDb;
-  const pp = prepared.plantTrace.phaseDeg;
-  const cm = compTrace.magDb;
-  const cp = compTrace.phaseDeg;
-  // The sum of two traces, moved by a multiple of 360° to start at its principal value.
-  const shift = phaseOffsetDeg(pp[0] + cp[0]);
-  const magDb = new Array<number>(n);
-  const phaseDeg = new Array<number>(n);
-  const crossings: TraceCrossings = { gainAt: [], phaseAt: [] };
-  let belowMinus180Hz: number | null = null;
-  let prevHigh = false;
-  let prevAbove = false;
-  for (let i = 0; i < n; i++) {
-    const m = pm[i] + cm[i];
-    const p = pp[i] + cp[i] + shift;
-    magDb[i] = m;
-    phaseDeg[i] = p;
-    const high = m >= 0;
-    const above = p + 180 >= 0;
-    if (i > 0) {
-      if (high !== prevHigh) crossings.gainAt.push(i - 1);
-      if (above !== prevAbove) crossings.phaseAt.push(i - 1);
-    }
-    if (belowMinus180Hz === null && p < -180 && m > 0) belowMinus180Hz = f[i];
-    prevHigh = high;
-    prevAbove = above;
-  }
-  const loop = { f, magDb, phaseDeg };
+  const onto = loopOnto(prepared.plantTrace, f.length);
+  const compTrace = sweepPlan(compPlan, prepared.grid, onto);
   return {
     compTrace,
-    loop,
-    crossings,
-    belowMinus180Hz,
-    evaluate: planEvaluator(productPlan(prepared.plantPlan, compPlan), f[0], phaseDeg[0]),
+    loop: { f, magDb: onto.magDb, phaseDeg: onto.phaseDeg },
+    crossings: onto.crossings,
+    belowMinus180Hz: onto.belowMinus180Hz,
+    evaluate: planEvaluator(productPlan(prepared.plantPlan, compPlan), f[0], onto.phaseDeg[0]),
   };
 };
 

@@ -10,7 +10,7 @@
  * in CommonJS output (tsx, the benchmark) each use of an imported binding is an accessor call.
  */
 import { DB_PER_LN_MAGSQ, phaseOffsetDeg, type SectionedTransfer } from './transfer';
-import type { LoopPointEvaluator, LoopScan, SampledResponse } from './margins';
+import type { LoopPointEvaluator, LoopScan, SampledResponse, TraceCrossings } from './margins';
 import type { BodeTrace, SweepOptions } from './types';
 
 const TWO_PI = 2 * Math.PI;
@@ -202,6 +202,45 @@ const angleOf = (y: number, x: number): number => {
 };
 
 /**
+ * A loop made while its compensator is swept (analyze.ts): per point the plant's trace plus
+ * the compensator's, the phase moved by one multiple of 360° to start at its principal value,
+ * and what the margins and checks look for, noted in the same pass: the intervals where the
+ * magnitude passes 0 dB and the phase −180° (TraceCrossings) and the first sample where the
+ * phase is below −180° while |T| > 0 dB. Arrays are filled in place.
+ */
+export interface LoopOnto {
+  base: BodeTrace;
+  magDb: number[];
+  phaseDeg: number[];
+  crossings: TraceCrossings;
+  belowMinus180Hz: number | null;
+  /** The multiple of 360° set at the first point. */
+  shift: number;
+}
+
+export const loopOnto = (base: BodeTrace, n: number): LoopOnto => ({
+  base,
+  magDb: new Array<number>(n),
+  phaseDeg: new Array<number>(n),
+  crossings: { gainAt: [], phaseAt: [] },
+  belowMinus180Hz: null,
+  shift: 0,
+});
+
+const addOnto = (o: LoopOnto, i: number, cm: number, cp: number, hz: number): void => {
+  if (i === 0) o.shift = phaseOffsetDeg(o.base.phaseDeg[0] + cp);
+  const m = o.base.magDb[i] + cm;
+  const p = o.base.phaseDeg[i] + cp + o.shift;
+  o.magDb[i] = m;
+  o.phaseDeg[i] = p;
+  if (i > 0) {
+    if (m >= 0 !== o.magDb[i - 1] >= 0) o.crossings.gainAt.push(i - 1);
+    if (p + 180 >= 0 !== o.phaseDeg[i - 1] + 180 >= 0) o.crossings.phaseAt.push(i - 1);
+  }
+  if (o.belowMinus180Hz === null && p < -180 && m > 0) o.belowMinus180Hz = hz;
+};
+
+/**
  * Evaluate a sectioned transfer on a grid (hot path: plain numbers, one atan2 per term, one
  * logarithm per point; output arrays are allocated once at their final size).
  * magDb = 10·log10(gain²·ω^(2n)·Π|N_k|² / Π|D_k|²) (one division, one logarithm);
@@ -213,9 +252,9 @@ const angleOf = (y: number, x: number): number => {
 export const sweepTransfer = (h: SectionedTransfer, grid: Grid): BodeTrace => sweepPlan(planTransfer(h), grid);
 
 /** sweepTransfer of a transfer already planned (planTransfer). */
-export const sweepPlan = (plan: TransferPlan, grid: Grid): BodeTrace => {
+export const sweepPlan = (plan: TransferPlan, grid: Grid, onto?: LoopOnto): BodeTrace => {
   // Two terms or more, and no step can turn the phase by a radian: one arctangent per point.
-  if (plan.terms.length > 4 && plan.slope * grid.lnStep < 1) return sweepByIncrements(plan, grid);
+  if (plan.terms.length > 4 && plan.slope * grid.lnStep < 1) return sweepByIncrements(plan, grid, onto);
   const n = grid.f.length;
   const magDb = new Array<number>(n);
   const phaseDeg = new Array<number>(n);
@@ -244,8 +283,11 @@ export const sweepPlan = (plan: TransferPlan, grid: Grid): BodeTrace => {
     }
     ph *= RAD2DEG;
     if (i === 0) offsetDeg = phaseOffsetDeg(ph);
-    magDb[i] = dbPerLn * Math.log(num / den);
-    phaseDeg[i] = ph + offsetDeg;
+    const m = dbPerLn * Math.log(num / den);
+    const p = ph + offsetDeg;
+    magDb[i] = m;
+    phaseDeg[i] = p;
+    if (onto !== undefined) addOnto(onto, i, m, p, grid.f[i]);
   }
   return { magDb, phaseDeg };
 };
@@ -379,7 +421,7 @@ const ANCHOR = 64;
  * (the traces agree with the term-by-term form to about 1e-13 dB and degrees). The magnitude
  * is the same product as in sweepTransfer.
  */
-const sweepByIncrements = (plan: TransferPlan, grid: Grid): BodeTrace => {
+const sweepByIncrements = (plan: TransferPlan, grid: Grid, onto: LoopOnto | undefined): BodeTrace => {
   const n = grid.f.length;
   const magDb = new Array<number>(n);
   const phaseDeg = new Array<number>(n);
@@ -423,8 +465,11 @@ const sweepByIncrements = (plan: TransferPlan, grid: Grid): BodeTrace => {
     pi = ci * scale;
     const deg = ph * RAD2DEG;
     if (i === 0) offsetDeg = phaseOffsetDeg(deg);
-    magDb[i] = dbPerLn * Math.log(num / den);
-    phaseDeg[i] = deg + offsetDeg;
+    const m = dbPerLn * Math.log(num / den);
+    const p = deg + offsetDeg;
+    magDb[i] = m;
+    phaseDeg[i] = p;
+    if (onto !== undefined) addOnto(onto, i, m, p, grid.f[i]);
   }
   return { magDb, phaseDeg };
 };
