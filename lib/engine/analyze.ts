@@ -150,7 +150,6 @@ export const loopCompensatorTransfer = (prepared: PreparedPlant, comp: Compensat
 const loopRb = (prepared: PreparedPlant, comp: CompensatorInput): number | undefined =>
   comp.opamp && comp.amplifier !== 'transconductance' && comp.rb === undefined ? divider(prepared, comp) : comp.rb;
 
-
 /**
  * Loop gain on the grid (plant sweep reused) and its analytic evaluator on the same branch.
  * The compensator's sweep adds the plant's trace as it goes and notes the crossing intervals
@@ -178,8 +177,8 @@ const checkCompensator = (comp: CompensatorInput) => {
 /**
  * Loop margins only, no traces (snapped parts, corner sweeps): T = Gc·Gvd/Vramp scanned on
  * the grid for its crossings (section products, no arctangent or logarithm per point:
- * scanTransfer); only the crossings are then refined on the analytic loop, as in analyzeLoop, so the margins are
- * those a full sweep would give.
+ * scanPlan); only the crossings are then refined on the analytic loop, as in analyzeLoop, so
+ * the margins are those a full sweep would give.
  */
 export const marginsForCompensator = (prepared: PreparedPlant, comp: CompensatorInput): Margins => {
   checkCompensator(comp);
