@@ -6,8 +6,11 @@
  * angle is one arctangent of N·conj(D). Magnitudes collect Π|N|² and Π|D|² and take one
  * division and one logarithm per point. The phase is the continuous raw phase shifted by one
  * multiple of 360° so the trace starts at its principal value (see phaseOffsetDeg).
+ * Transfers of several terms advance the phase by one arctangent per point instead
+ * (sweepByIncrements). Margins of a loop on a grid need no trace at all: scanPlan compares
+ * |T|² with 1 and reads the sign of Im T per point.
  * Hot loops call only this module's functions and read imported constants into locals first:
- * in CommonJS output (tsx, the benchmark) each use of an imported binding is an accessor call.
+ * in CommonJS output each use of an imported binding is an accessor call.
  */
 import { DB_PER_LN_MAGSQ, phaseOffsetDeg, type SectionedTransfer } from './transfer';
 import type { LoopPointEvaluator, LoopScan, SampledResponse, TraceCrossings } from './margins';
@@ -242,7 +245,9 @@ const addOnto = (o: LoopOnto, i: number, cm: number, cp: number, hz: number): vo
 
 /**
  * Evaluate a sectioned transfer on a grid (hot path: plain numbers, one atan2 per term, one
- * logarithm per point; output arrays are allocated once at their final size).
+ * logarithm per point; output arrays are allocated once at their final size). Transfers of
+ * several terms go to sweepByIncrements when its slope bound allows; `onto` adds this trace
+ * to a base trace as it goes (LoopOnto).
  * magDb = 10·log10(gain²·ω^(2n)·Π|N_k|² / Π|D_k|²) (one division, one logarithm);
  * phase = ph0 + Σ ∠(N_k·conj(D_k)) + offset,
  * the offset chosen at the first point (see phaseOffsetDeg). The loop body repeats
