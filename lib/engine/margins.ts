@@ -22,8 +22,18 @@ export interface SampledResponse {
   phaseDeg: ArrayLike<number>;
 }
 
-/** The analytic loop at one frequency: magnitude in dB, phase in degrees on the sweep's branch. */
-export type LoopPointEvaluator = (hz: number) => { magDb: number; phaseDeg: number };
+/**
+ * The analytic loop at one frequency: magnitude in dB, phase in degrees on the sweep's branch.
+ * It may carry magnitude-only and phase-only forms of the same arithmetic (sweep.ts does): a
+ * gain crossing is refined without arctangents, a phase crossing without logarithms.
+ */
+export type LoopPointEvaluator = ((hz: number) => { magDb: number; phaseDeg: number }) & {
+  magDbAt?: (hz: number) => number;
+  phaseDegAt?: (hz: number) => number;
+};
+
+const magnitudeOf = (evaluate: LoopPointEvaluator) => evaluate.magDbAt ?? ((hz: number) => evaluate(hz).magDb);
+const phaseOfEvaluator = (evaluate: LoopPointEvaluator) => evaluate.phaseDegAt ?? ((hz: number) => evaluate(hz).phaseDeg);
 
 /**
  * Unwrap a phase sequence (degrees): each step is moved by a multiple of 360° so it differs
@@ -183,8 +193,8 @@ export interface TraceCrossings {
 /** computeMargins with the crossing intervals already found (see TraceCrossings). */
 export const marginsFromCrossings = (sampled: SampledResponse, at: TraceCrossings, evaluate?: LoopPointEvaluator): Margins => {
   const { f, magDb, phaseDeg } = sampled;
-  const magOf = evaluate && ((hz: number) => evaluate(hz).magDb);
-  const phaseOf = evaluate && ((hz: number) => evaluate(hz).phaseDeg);
+  const magOf = evaluate && magnitudeOf(evaluate);
+  const phaseOf = evaluate && phaseOfEvaluator(evaluate);
   const gain: FoundCrossing[] = [];
   const phase: FoundCrossing[] = [];
   for (const i of at.gainAt) gain.push(crossingBetween(f[i], f[i + 1], magDb[i], magDb[i + 1], 0, magOf));
@@ -214,8 +224,8 @@ export interface LoopScan {
 export const marginsFromScan = (f: ArrayLike<number>, scan: LoopScan, evaluate: LoopPointEvaluator): Margins => {
   const gain: FoundCrossing[] = [];
   const phase: FoundCrossing[] = [];
-  const magOf = (hz: number) => evaluate(hz).magDb;
-  const phaseOf = (hz: number) => evaluate(hz).phaseDeg;
+  const magOf = magnitudeOf(evaluate);
+  const phaseOf = phaseOfEvaluator(evaluate);
   for (let k = 0; k < scan.gainAt.length; k++) {
     const i = scan.gainAt[k];
     gain.push(crossingBetween(f[i], f[i + 1], dbFromMagSq(scan.gainMagSq[2 * k]), dbFromMagSq(scan.gainMagSq[2 * k + 1]), 0, magOf));

@@ -513,6 +513,35 @@ export const planEvaluator = (plan: TransferPlan, startHz: number, startDeg?: nu
     }
     return { magDb: dbPerLn * Math.log(num / den), phaseDeg: ph * RAD2DEG + offsetDeg };
   };
+  // The same arithmetic for one of the two (margins refine a crossing of one at a time).
+  evaluate.magDbAt = (hz) => {
+    const w = TWO_PI * hz;
+    const w2 = w * w;
+    let num = originNum(plan, w2);
+    let den = originDen(plan, w2);
+    for (let k = 0; k < t.length; k += 4) {
+      const nre = 1 - t[k + 1] * w2;
+      const nim = t[k] * w;
+      const dre = 1 - t[k + 3] * w2;
+      const dim = t[k + 2] * w;
+      num *= nre * nre + nim * nim;
+      den *= dre * dre + dim * dim;
+    }
+    return dbPerLn * Math.log(num / den);
+  };
+  evaluate.phaseDegAt = (hz) => {
+    const w = TWO_PI * hz;
+    const w2 = w * w;
+    let ph = plan.ph0;
+    for (let k = 0; k < t.length; k += 4) {
+      const nre = 1 - t[k + 1] * w2;
+      const nim = t[k] * w;
+      const dre = 1 - t[k + 3] * w2;
+      const dim = t[k + 2] * w;
+      ph += angleOf(nim * dre - nre * dim, nre * dre + nim * dim);
+    }
+    return ph * RAD2DEG + offsetDeg;
+  };
   const raw0 = evaluate(startHz).phaseDeg;
   offsetDeg = startDeg === undefined ? phaseOffsetDeg(raw0) : 360 * Math.round((startDeg - raw0) / 360);
   return evaluate;

@@ -22,6 +22,17 @@ describe('logSweep', () => {
   });
 });
 
+describe('transferEvaluator', () => {
+  it('its magnitude-only and phase-only forms give the same numbers, to the bit', () => {
+    const h = compensatorTransfer({ type: 'type3', r1: 1e4, r2: 2e4, r3: 500, c1: 2.2e-9, c2: 47e-12, c3: 1e-9 });
+    const ev = transferEvaluator(h, 10);
+    for (const hz of [10, 333, 4.1e3, 2.2e5]) {
+      expect(ev.magDbAt!(hz)).toBe(ev(hz).magDb);
+      expect(ev.phaseDegAt!(hz)).toBe(ev(hz).phaseDeg);
+    }
+  });
+});
+
 describe('sweepGrid', () => {
   it('shares the grid of the same options among the last few in use, and builds it as logSweep does', () => {
     const a = sweepGrid(10, 150e3, 400);
