@@ -237,9 +237,10 @@ export const analyzeLoop = (prepared: PreparedPlant, comp: CompensatorInput): Lo
   return analyzeValidLoop(prepared, comp);
 };
 
-const analyzeValidLoop = (prepared: PreparedPlant, comp: CompensatorInput, gc = compensatorTransfer(comp, loopRb(prepared, comp))): LoopResult => {
+/** analyzeLoop for a validated compensator; `gc` when the caller has built the loop's transfer already. */
+const analyzeValidLoop = (prepared: PreparedPlant, comp: CompensatorInput, gc?: SectionedTransfer): LoopResult => {
   const rbLoop = loopRb(prepared, comp);
-  const { compTrace, loop, crossings, belowMinus180Hz, evaluate } = sweepLoop(prepared, gc);
+  const { compTrace, loop, crossings, belowMinus180Hz, evaluate } = sweepLoop(prepared, gc ?? compensatorTransfer(comp, rbLoop));
   const margins = marginsFromCrossings(loop, crossings, evaluate);
   const rb = divider(prepared, comp);
   const fsw = prepared.converter.fsw;

@@ -496,25 +496,9 @@ export const planEvaluator = (plan: TransferPlan, startHz: number, startDeg?: nu
   const t = plan.terms;
   const dbPerLn = DB_PER_LN_MAGSQ;
   let offsetDeg = 0;
-  const evaluate: LoopPointEvaluator = (hz) => {
-    const w = TWO_PI * hz;
-    const w2 = w * w;
-    let num = originNum(plan, w2);
-    let den = originDen(plan, w2);
-    let ph = plan.ph0;
-    for (let k = 0; k < t.length; k += 4) {
-      const nre = 1 - t[k + 1] * w2;
-      const nim = t[k] * w;
-      const dre = 1 - t[k + 3] * w2;
-      const dim = t[k + 2] * w;
-      num *= nre * nre + nim * nim;
-      den *= dre * dre + dim * dim;
-      ph += angleOf(nim * dre - nre * dim, nre * dre + nim * dim);
-    }
-    return { magDb: dbPerLn * Math.log(num / den), phaseDeg: ph * RAD2DEG + offsetDeg };
-  };
-  // The same arithmetic for one of the two (margins refine a crossing of one at a time).
-  evaluate.magDbAt = (hz) => {
+  // Magnitude and phase each by itself (margins refine a crossing of one at a time); each is
+  // the sweep's arithmetic for that quantity, operation for operation.
+  const magDbAt = (hz: number): number => {
     const w = TWO_PI * hz;
     const w2 = w * w;
     let num = originNum(plan, w2);
@@ -529,7 +513,7 @@ export const planEvaluator = (plan: TransferPlan, startHz: number, startDeg?: nu
     }
     return dbPerLn * Math.log(num / den);
   };
-  evaluate.phaseDegAt = (hz) => {
+  const rawPhaseDeg = (hz: number): number => {
     const w = TWO_PI * hz;
     const w2 = w * w;
     let ph = plan.ph0;
@@ -540,9 +524,13 @@ export const planEvaluator = (plan: TransferPlan, startHz: number, startDeg?: nu
       const dim = t[k + 2] * w;
       ph += angleOf(nim * dre - nre * dim, nre * dre + nim * dim);
     }
-    return ph * RAD2DEG + offsetDeg;
+    return ph * RAD2DEG;
   };
-  const raw0 = evaluate(startHz).phaseDeg;
+  const phaseDegAt = (hz: number): number => rawPhaseDeg(hz) + offsetDeg;
+  const evaluate: LoopPointEvaluator = (hz) => ({ magDb: magDbAt(hz), phaseDeg: phaseDegAt(hz) });
+  evaluate.magDbAt = magDbAt;
+  evaluate.phaseDegAt = phaseDegAt;
+  const raw0 = rawPhaseDeg(startHz);
   offsetDeg = startDeg === undefined ? phaseOffsetDeg(raw0) : 360 * Math.round((startDeg - raw0) / 360);
   return evaluate;
 };

@@ -87,7 +87,8 @@ export const formatSi = (value: number, unit = '', digits = 3): string => {
   if (!Number.isFinite(value)) return '—';
   if (value === 0) return `0 ${unit}`.trim();
   const fast = roundedDigits(value, digits);
-  const exp = fast !== null ? fast[1] : Math.floor(Math.log10(Math.abs(Number(value.toPrecision(digits)))));
+  const rounded = fast === null ? Number(value.toPrecision(digits)) : 0;
+  const exp = fast !== null ? fast[1] : Math.floor(Math.log10(Math.abs(rounded)));
   let k = FORMAT_PREFIXES.length - 1;
   if (exp > 14) k = 0;
   else
@@ -103,7 +104,7 @@ export const formatSi = (value: number, unit = '', digits = 3): string => {
   const mantissa =
     fast !== null && Math.abs(shift) <= 22
       ? scaleByTen(fast[0], shift)
-      : Number((Number(value.toPrecision(digits)) / Math.pow(10, e)).toPrecision(digits));
+      : Number(((fast === null ? rounded : Number(value.toPrecision(digits))) / Math.pow(10, e)).toPrecision(digits));
   return `${mantissa} ${prefix}${unit}`.trim();
 };
 
