@@ -12,9 +12,25 @@ import { compensatorTransfer, dividerRb, gbwEnough, opAmpShapeError, shapeFromPa
 import { amplifierChecks, loopChecks, modulatorChecks, partChecks, stageChecks } from './checks';
 import { buildControlPlant } from './control';
 import { snapToSeries } from './eseries';
-import { marginsFromCrossings, marginsFromScan, type LoopPointEvaluator, type SampledResponse } from './margins';
+import { marginsFromCrossings, marginsFromScan, type LoopPointEvaluator, type TraceCrossings } from './margins';
 import { esrZeroHint, type PlantModel } from './plant';
-import { defaultSweep, loopOnto, planEvaluator, planTransfer, productPlan, scanPlan, scanTransfer, sweepGrid, sweepPlan, type Grid, type TransferPlan } from './sweep';
+import {
+  defaultSweep,
+  loopOnto,
+  nearWatch,
+  planEvaluator,
+  planTransfer,
+  productPlan,
+  scanCandidates,
+  scanPlan,
+  scanTransfer,
+  sweepGrid,
+  sweepPlan,
+  type Grid,
+  type NearWatch,
+  type ScanCandidates,
+  type TransferPlan,
+} from './sweep';
 import { multiplyTransfers, ratioBound, summarizeTransfer, type SectionedTransfer } from './transfer';
 import { withLossDefaults } from './steady-state';
 import { compensatorIssues, stageIssues, validateRequest } from './validate';
@@ -153,12 +169,13 @@ const loopRb = (prepared: PreparedPlant, comp: CompensatorInput): number | undef
 /**
  * Loop gain on the grid (plant sweep reused) and its analytic evaluator on the same branch.
  * The compensator's sweep adds the plant's trace as it goes and notes the crossing intervals
- * and the conditional-stability point (LoopOnto): no further pass over the samples.
+ * and the conditional-stability point (LoopOnto), and with `near` the samples a nearby loop
+ * needs looked at (NearWatch): no further pass over the samples.
  */
-const sweepLoop = (prepared: PreparedPlant, comp: SectionedTransfer) => {
+const sweepLoop = (prepared: PreparedPlant, comp: SectionedTransfer, near?: NearWatch) => {
   const compPlan = planTransfer(comp);
   const f = prepared.grid.f;
-  const onto = loopOnto(prepared.plantTrace, f.length);
+  const onto = loopOnto(prepared.plantTrace, f.length, near);
   const compTrace = sweepPlan(compPlan, prepared.grid, onto);
   return {
     compTrace,
@@ -182,21 +199,16 @@ const checkCompensator = (comp: CompensatorInput) => {
  */
 export const marginsForCompensator = (prepared: PreparedPlant, comp: CompensatorInput): Margins => {
   checkCompensator(comp);
-  return marginsOnPlant(prepared, comp);
+  return marginsOnPlant(prepared, loopCompensatorTransfer(prepared, comp));
 };
 
 /**
- * marginsForCompensator for a validated compensator: the loop planned from the plant's plan.
- * With `near` (a loop of a compensator of the same structure, e.g. the ideal parts of these
- * snapped ones, and that compensator's transfer), the scan computes only the samples the
- * bound on the two compensators' ratio leaves open (ratioBound, ScanHint): the same
- * candidates, a fraction of the work.
+ * The margins of a compensator's transfer `gc` on the plant: the loop planned from the plant's
+ * plan. With `only`, the scan looks at those intervals alone (ScanCandidates, from the ideal
+ * loop's pass for its snapped parts): the same margins, a fraction of the work.
  */
-const marginsOnPlant = (prepared: PreparedPlant, comp: CompensatorInput, near?: { loop: SampledResponse; gc: SectionedTransfer }): Margins => {
-  const gc = compensatorTransfer(comp, loopRb(prepared, comp));
-  const bound = near && ratioBound(near.gc, gc);
-  const hint = near && bound ? { magDb: near.loop.magDb, phaseDeg: near.loop.phaseDeg, db: bound.db + 1e-9, deg: bound.deg + 1e-9 } : undefined;
-  const { scan, evaluate } = scanPlan(productPlan(prepared.plantPlan, planTransfer(gc)), prepared.grid, hint);
+const marginsOnPlant = (prepared: PreparedPlant, gc: SectionedTransfer, only?: ScanCandidates): Margins => {
+  const { scan, evaluate } = scanPlan(productPlan(prepared.plantPlan, planTransfer(gc)), prepared.grid, only);
   return marginsFromScan(prepared.grid.f, scan, evaluate);
 };
 
@@ -237,10 +249,15 @@ export const analyzeLoop = (prepared: PreparedPlant, comp: CompensatorInput): Lo
   return analyzeValidLoop(prepared, comp);
 };
 
-/** analyzeLoop for a validated compensator; `gc` when the caller has built the loop's transfer already. */
-const analyzeValidLoop = (prepared: PreparedPlant, comp: CompensatorInput, gc?: SectionedTransfer): LoopResult => {
+/**
+ * analyzeLoop for a validated compensator; `gc` when the caller has built the loop's transfer
+ * already, `near` to note what a nearby loop's scan needs (NearWatch; its crossings are this
+ * loop's, set here).
+ */
+const analyzeValidLoop = (prepared: PreparedPlant, comp: CompensatorInput, gc?: SectionedTransfer, near?: LoopNear): LoopResult => {
   const rbLoop = loopRb(prepared, comp);
-  const { compTrace, loop, crossings, belowMinus180Hz, evaluate } = sweepLoop(prepared, gc ?? compensatorTransfer(comp, rbLoop));
+  const { compTrace, loop, crossings, belowMinus180Hz, evaluate } = sweepLoop(prepared, gc ?? compensatorTransfer(comp, rbLoop), near?.watch);
+  if (near) near.crossings = crossings;
   const margins = marginsFromCrossings(loop, crossings, evaluate);
   const rb = divider(prepared, comp);
   const fsw = prepared.converter.fsw;
@@ -318,32 +335,40 @@ export const standardValueCompensator = (comp: CompensatorInput, options?: Parti
 const sameParts = (a: CompensatorInput, b: CompensatorInput) =>
   a.type === b.type && a.r1 === b.r1 && a.r2 === b.r2 && a.r3 === b.r3 && a.c1 === b.c1 && a.c2 === b.c2 && a.c3 === b.c3 && a.rb === b.rb;
 
-/**
- * Ideal and snapped parts with the margins the snapped parts give (defaults: E96 resistors,
- * E12 capacitors). Rb is the divider's lower resistor, snapped to the resistor series.
- * `idealMargins`, when given, are reused if every part is already a standard value (the
- * snapped loop is then the same loop).
- */
-export const analyzeParts = (
+/** Ideal and snapped part values of the result, with the snapped parts' margins. */
+const partsResult = (
   prepared: PreparedPlant,
   comp: CompensatorInput,
-  options?: Partial<PartsOptions>,
-  idealMargins?: Margins,
-  idealLoop?: { loop: SampledResponse; gc: SectionedTransfer },
+  snappedComp: CompensatorInput,
+  series: PartsOptions,
+  snappedMargins: Margins,
 ): PartsResult => {
-  const series = { ...DEFAULT_PARTS, ...options };
-  const snappedComp = snapCompensator(comp, series);
   const rb = divider(prepared, comp);
   return {
     resistorSeries: series.resistorSeries,
     capacitorSeries: series.capacitorSeries,
     ideal: partValues(comp, rb),
     snapped: partValues(snappedComp, snapToSeries(rb, series.resistorSeries)),
-    // Snapping keeps every part positive, so the snapped compensator of a valid one is valid.
-    snappedMargins:
-      idealMargins && sameParts(comp, snappedComp) ? idealMargins : marginsOnPlant(prepared, snappedComp, idealLoop),
+    snappedMargins,
   };
 };
+
+/**
+ * Ideal and snapped parts with the margins the snapped parts give (defaults: E96 resistors,
+ * E12 capacitors). Rb is the divider's lower resistor, snapped to the resistor series.
+ */
+export const analyzeParts = (prepared: PreparedPlant, comp: CompensatorInput, options?: Partial<PartsOptions>): PartsResult => {
+  const series = { ...DEFAULT_PARTS, ...options };
+  const snappedComp = snapCompensator(comp, series);
+  // Snapping keeps every part positive, so the snapped compensator of a valid one is valid.
+  return partsResult(prepared, comp, snappedComp, series, marginsOnPlant(prepared, loopCompensatorTransfer(prepared, snappedComp)));
+};
+
+/** A NearWatch for the ideal loop's pass and, once it has run, that loop's own crossings. */
+interface LoopNear {
+  watch: NearWatch;
+  crossings?: TraceCrossings;
+}
 
 /**
  * Full analysis of a design (POST /api/analyze).
@@ -352,8 +377,25 @@ export const analyzeParts = (
 export const analyze = (request: AnalyzeRequest): AnalyzeResult => {
   validateRequest(request);
   const prepared = prepareValidPlant(request);
-  const gc = compensatorTransfer(request.compensator, loopRb(prepared, request.compensator));
-  const loop = analyzeValidLoop(prepared, request.compensator, gc);
+  const comp = request.compensator;
+  const gc = compensatorTransfer(comp, loopRb(prepared, comp));
+  const series = { ...DEFAULT_PARTS, ...request.parts };
+  const snappedComp = snapCompensator(comp, series);
+  // Parts already standard give the same loop; otherwise the snapped loop lies within a bound
+  // of the ideal one (ratioBound), and the ideal loop's pass notes where its scan must look.
+  const same = sameParts(comp, snappedComp);
+  const gcSnapped = same ? gc : compensatorTransfer(snappedComp, loopRb(prepared, snappedComp));
+  const bound = same ? null : ratioBound(gc, gcSnapped);
+  // Slack for the rounding of the two loops' arithmetic.
+  const near: LoopNear | undefined = bound ? { watch: nearWatch(bound.db + 1e-9, bound.deg + 1e-9) } : undefined;
+  const loop = analyzeValidLoop(prepared, comp, gc, near);
+  let snappedMargins = loop.margins;
+  if (!same) {
+    // Both loops start at their principal values: the same branch unless the ideal one starts within the bound of ±180°.
+    const sameBranch = near !== undefined && near.crossings !== undefined && Math.abs(loop.bode.loop.phaseDeg[0]) + near.watch.deg < 180;
+    const only = sameBranch ? scanCandidates(near.crossings!, near.watch, prepared.grid.f.length) : undefined;
+    snappedMargins = marginsOnPlant(prepared, gcSnapped, only);
+  }
   return {
     operatingPoint: prepared.operatingPoint,
     plant: prepared.plant,
@@ -364,7 +406,7 @@ export const analyze = (request: AnalyzeRequest): AnalyzeResult => {
     compensator: loop.compensator,
     margins: loop.margins,
     phaseAtHalfFswDeg: loop.phaseAtHalfFswDeg,
-    parts: analyzeParts(prepared, request.compensator, request.parts, loop.margins, { loop: { f: loop.bode.f, ...loop.bode.loop }, gc }),
+    parts: partsResult(prepared, comp, snappedComp, series, snappedMargins),
     bode: loop.bode,
     checks: loop.checks,
   };

@@ -230,9 +230,14 @@ export const marginsFromScan = (f: ArrayLike<number>, scan: LoopScan, evaluate: 
     const i = scan.gainAt[k];
     gain.push(crossingBetween(f[i], f[i + 1], dbFromMagSq(scan.gainMagSq[2 * k]), dbFromMagSq(scan.gainMagSq[2 * k + 1]), 0, magOf));
   }
+  // Adjacent candidates share a sample: its phase is evaluated once.
+  let last = -2;
+  let lastPb = 0;
   for (const i of scan.phaseAt) {
-    const pa = phaseOf(f[i]) + 180;
+    const pa = i === last + 1 ? lastPb : phaseOf(f[i]) + 180;
     const pb = phaseOf(f[i + 1]) + 180;
+    last = i;
+    lastPb = pb;
     if (pa >= 0 !== pb >= 0) phase.push(crossingBetween(f[i], f[i + 1], pa, pb, -180, phaseOf));
   }
   return assembleMargins(gain, phase, evaluate);

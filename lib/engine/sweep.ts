@@ -219,15 +219,18 @@ export interface LoopOnto {
   belowMinus180Hz: number | null;
   /** The multiple of 360° set at the first point. */
   shift: number;
+  /** Samples noted for a loop near this one (NearWatch), when given. */
+  near: NearWatch | undefined;
 }
 
-export const loopOnto = (base: BodeTrace, n: number): LoopOnto => ({
+export const loopOnto = (base: BodeTrace, n: number, near?: NearWatch): LoopOnto => ({
   base,
   magDb: new Array<number>(n),
   phaseDeg: new Array<number>(n),
   crossings: { gainAt: [], phaseAt: [] },
   belowMinus180Hz: null,
   shift: 0,
+  near,
 });
 
 const addOnto = (o: LoopOnto, i: number, cm: number, cp: number, hz: number): void => {
@@ -241,6 +244,11 @@ const addOnto = (o: LoopOnto, i: number, cm: number, cp: number, hz: number): vo
     if (p + 180 >= 0 !== o.phaseDeg[i - 1] + 180 >= 0) o.crossings.phaseAt.push(i - 1);
   }
   if (o.belowMinus180Hz === null && p < -180 && m > 0) o.belowMinus180Hz = hz;
+  const near = o.near;
+  if (near !== undefined) {
+    if (Math.abs(m) <= near.db) near.gainAt.push(i);
+    if (Math.abs(p + 180) <= near.deg) near.phaseAt.push(i);
+  }
 };
 
 /**
@@ -311,17 +319,60 @@ export const scanTransfer = (h: SectionedTransfer, grid: Grid): { scan: LoopScan
   scanPlan(planTransfer(h), grid);
 
 /**
- * A loop known to lie within `db` dB and `deg` degrees of the scanned one at every frequency,
- * sampled on the same grid (e.g. the ideal loop, for the loop with snapped parts): where it is
- * farther than that from 0 dB, or from a multiple of 180°, the scanned loop is on the same side
- * and that sample need not be computed.
+ * What a loop's pass notes for a second loop known to lie within `db` dB and `deg` degrees of
+ * it at every frequency, on the same branch (the loop with the compensator's parts snapped:
+ * ratioBound): the samples where this loop is within db of 0 dB (gainAt) and within deg of
+ * −180° (phaseAt). The second loop can cross 0 dB or −180° only in an interval that touches
+ * one of them or where this loop crosses too (scanCandidates).
  */
-export interface ScanHint {
-  magDb: ArrayLike<number>;
-  phaseDeg: ArrayLike<number>;
+export interface NearWatch {
   db: number;
   deg: number;
+  gainAt: number[];
+  phaseAt: number[];
 }
+
+export const nearWatch = (db: number, deg: number): NearWatch => ({ db, deg, gainAt: [], phaseAt: [] });
+
+/**
+ * The grid intervals i (between samples i and i+1) a scan must look at, ascending: where
+ * |T|² may pass 1 and where the phase may pass −180° (a superset of the latter; marginsFromScan
+ * keeps those where the continuous phase does).
+ */
+export interface ScanCandidates {
+  gainAt: number[];
+  phaseAt: number[];
+}
+
+/** `crossed` plus the intervals on either side of each sample in `near`, ascending and distinct (n samples). */
+const widen = (crossed: readonly number[], near: readonly number[], n: number): number[] => {
+  const out: number[] = [];
+  let a = 0;
+  let b = 0;
+  let last = -1;
+  const take = (i: number) => {
+    if (i > last && i >= 0 && i < n - 1) out.push((last = i));
+  };
+  while (a < crossed.length || b < near.length) {
+    // Each sample i of `near` touches the intervals i − 1 and i.
+    if (b >= near.length || (a < crossed.length && crossed[a] < near[b] - 1)) take(crossed[a++]);
+    else {
+      take(near[b] - 1);
+      take(near[b++]);
+    }
+  }
+  return out;
+};
+
+/**
+ * The intervals where a second loop within the watch's bounds of this one may cross (see
+ * NearWatch): outside them both of its samples lie on this loop's side of 0 dB and of −180°.
+ * `crossings` are this loop's own (LoopOnto).
+ */
+export const scanCandidates = (crossings: TraceCrossings, near: NearWatch, n: number): ScanCandidates => ({
+  gainAt: widen(crossings.gainAt, near.gainAt, n),
+  phaseAt: widen(crossings.phaseAt, near.phaseAt, n),
+});
 
 /** One sample of a scan: Π|N|²·origin, Π|D|²·origin and the sign-carrying Im(j^n·C)·sign(gain). */
 const scanPoint = { num: 0, den: 1, im: 0 };
@@ -354,53 +405,52 @@ const scanSample = (plan: TransferPlan, g2: number, turns: number, wi: number): 
 };
 
 /**
- * scanTransfer of a transfer already planned (planTransfer, productPlan). With `near`, only
- * the samples the hint cannot decide are computed (see ScanHint); the candidates are the
- * same as a full scan's.
+ * scanTransfer of a transfer already planned (planTransfer, productPlan). With `only`, just
+ * the ends of those intervals are computed (see ScanCandidates): the gain intervals found are
+ * a full scan's, the phase candidates are `only.phaseAt` itself, and the margins are the same.
  */
-export const scanPlan = (plan: TransferPlan, grid: Grid, near?: ScanHint): { scan: LoopScan; evaluate: LoopPointEvaluator } => {
+export const scanPlan = (plan: TransferPlan, grid: Grid, only?: ScanCandidates): { scan: LoopScan; evaluate: LoopPointEvaluator } => {
   const g2 = plan.gain * plan.gain;
   const turns = ((plan.order % 4) + 4) % 4;
   const w = grid.w;
+  const evaluate = planEvaluator(plan, grid.f[0]);
+  if (only !== undefined) {
+    const scan: LoopScan = { gainAt: [], gainMagSq: [], phaseAt: only.phaseAt };
+    let at = -1;
+    let atHigh = false;
+    let atMagSq = 0;
+    for (let k = 0; k < only.gainAt.length; k++) {
+      const i = only.gainAt[k];
+      let high: boolean = atHigh;
+      let magSq = atMagSq;
+      if (at !== i) {
+        scanSample(plan, g2, turns, w[i]);
+        high = scanPoint.num >= scanPoint.den;
+        magSq = scanPoint.num / scanPoint.den;
+      }
+      scanSample(plan, g2, turns, w[i + 1]);
+      at = i + 1;
+      atHigh = scanPoint.num >= scanPoint.den;
+      atMagSq = scanPoint.num / scanPoint.den;
+      if (high !== atHigh) {
+        scan.gainAt.push(i);
+        scan.gainMagSq.push(magSq, atMagSq);
+      }
+    }
+    return { scan, evaluate };
+  }
   const n = w.length;
   const scan: LoopScan = { gainAt: [], gainMagSq: [], phaseAt: [] };
   let prevHigh = false;
   let prevPos = false;
-  let prevMagSq = Number.NaN;
+  let prevMagSq = 0;
   for (let i = 0; i < n; i++) {
-    let high = false;
-    let pos = false;
-    let decided = near !== undefined;
-    if (near !== undefined) {
-      const m = near.magDb[i];
-      if (m > near.db) high = true;
-      else if (!(m < -near.db)) decided = false;
-      // Im T ≥ 0 where the phase lies in [0°, 180°] modulo 360°.
-      // The phase in turns, its fraction u in [0, 1) (Math.floor rather than %: a remainder of
-      // doubles is a library call in V8); distance to the nearest half turn in degrees.
-      const turn = near.phaseDeg[i] * (1 / 360);
-      const u = turn - Math.floor(turn);
-      const away = 360 * (u < 0.25 ? u : u < 0.75 ? Math.abs(u - 0.5) : 1 - u);
-      if (away > near.deg) pos = u < 0.5;
-      else decided = false;
-    }
-    let magSq = Number.NaN;
-    if (!decided) {
-      scanSample(plan, g2, turns, w[i]);
-      high = scanPoint.num >= scanPoint.den;
-      pos = scanPoint.im >= 0;
-      magSq = scanPoint.num / scanPoint.den;
-    }
+    scanSample(plan, g2, turns, w[i]);
+    const high = scanPoint.num >= scanPoint.den;
+    const pos = scanPoint.im >= 0;
+    const magSq = scanPoint.num / scanPoint.den;
     if (i > 0) {
       if (prevHigh !== high) {
-        if (Number.isNaN(prevMagSq)) {
-          scanSample(plan, g2, turns, w[i - 1]);
-          prevMagSq = scanPoint.num / scanPoint.den;
-        }
-        if (Number.isNaN(magSq)) {
-          scanSample(plan, g2, turns, w[i]);
-          magSq = scanPoint.num / scanPoint.den;
-        }
         scan.gainAt.push(i - 1);
         scan.gainMagSq.push(prevMagSq, magSq);
       }
@@ -410,7 +460,7 @@ export const scanPlan = (plan: TransferPlan, grid: Grid, near?: ScanHint): { sca
     prevPos = pos;
     prevMagSq = magSq;
   }
-  return { scan, evaluate: planEvaluator(plan, grid.f[0]) };
+  return { scan, evaluate };
 };
 
 /** Every ANCHOR-th sample of sweepByIncrements is computed term by term. */
