@@ -30,6 +30,15 @@ const requireNonNegative = (issues: FieldIssue[], path: string, v: unknown, what
 const requireBound = (issues: FieldIssue[], path: string, v: unknown, bound: 'positive' | 'nonNegative', what: Name) =>
   (bound === 'positive' ? requirePositive : requireNonNegative)(issues, path, v, what);
 
+/**
+ * A stage input checked against its catalogue bound. Valid input is the usual case: the value
+ * is tested first, and the path and label closures are made only for a failing one.
+ */
+const requireSpec = (issues: FieldIssue[], spec: InputSpec, v: unknown) => {
+  if (num(v) && (spec.bound === 'positive' ? v > 0 : v >= 0)) return;
+  requireBound(issues, `${spec.section}.${spec.field}`, v, spec.bound, () => inputLabel(spec));
+};
+
 /** "R2 (a Type II part)" — the part's schematic name from the catalogue. */
 const partLabel = (key: keyof typeof PARTS, note?: string) =>
   `${PARTS[key].name}${note ? ` (${note})` : ''}`;
@@ -47,9 +56,10 @@ export const compensatorIssues = (c: CompensatorInput, prefix = 'compensator'): 
   }
   for (const key of entry.parts) {
     const v: unknown = c[key];
+    // Valid parts (the usual case) make no path or label.
     if (key === 'c2') {
-      if (v !== undefined) requireNonNegative(issues, `${prefix}.c2`, v, () => partLabel('c2', '0 = absent'));
-    } else {
+      if (v !== undefined && !(num(v) && v >= 0)) requireNonNegative(issues, `${prefix}.c2`, v, () => partLabel('c2', '0 = absent'));
+    } else if (!(num(v) && v > 0)) {
       requirePositive(issues, `${prefix}.${key}`, v, () => partLabel(key, key === 'r1' || key === 'c1' ? undefined : `a ${entry.label} part`));
     }
   }
@@ -98,7 +108,7 @@ export const stageIssues = (req: StageRequest): FieldIssue[] => {
   for (const spec of STAGE_INPUTS) {
     if (spec.section === 'feedback' && !req.feedback) continue;
     if (spec.section === 'modulator' && (!knownMode || !inputApplies(spec, { modulator: { mode } }))) continue;
-    requireBound(issues, `${spec.section}.${spec.field}`, stageValue(req, spec), spec.bound, () => inputLabel(spec));
+    requireSpec(issues, spec, stageValue(req, spec));
   }
   if (!knownMode) issues.push({ path: 'modulator.mode', message: 'mode must be "voltage" or "peak-current"' });
   if (num(c.vin) && num(c.vout) && c.vin > 0 && c.vout > 0) {
