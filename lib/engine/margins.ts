@@ -137,22 +137,33 @@ export const interpolateLogF = (f: ArrayLike<number>, y: ArrayLike<number>, hz: 
   return y[lo] + t * (y[hi] - y[lo]);
 };
 
-/** Margins from the listed crossings (definitions in the module header). */
+/**
+ * Margins from the listed crossings (definitions in the module header); each list ascends in
+ * frequency. `phaseAt` and `magDbAt` read the loop at the crossover and the phase crossover.
+ */
 const assembleMargins = (
   gain: FoundCrossing[],
   phase: FoundCrossing[],
-  at: (hz: number) => { magDb: number; phaseDeg: number },
+  phaseAt: (hz: number) => number,
+  magDbAt: (hz: number) => number,
 ): Margins => {
-  const crossings: Crossing[] = [
-    ...gain.map((c) => ({ kind: 'gain' as const, ...c })),
-    ...phase.map((c) => ({ kind: 'phase' as const, ...c })),
-  ].sort((a, b) => a.hz - b.hz);
+  // The two ascending lists merged, a gain crossing before a phase one at the same frequency.
+  const crossings: Crossing[] = [];
+  for (let a = 0, b = 0; a < gain.length || b < phase.length; ) {
+    if (b >= phase.length || (a < gain.length && gain[a].hz <= phase[b].hz)) crossings.push({ kind: 'gain', hz: gain[a].hz, direction: gain[a++].direction });
+    else crossings.push({ kind: 'phase', hz: phase[b].hz, direction: phase[b++].direction });
+  }
   let crossoverHz: number | null = null;
   for (const c of gain) if (c.direction === 'down' && (crossoverHz === null || c.hz > crossoverHz)) crossoverHz = c.hz;
-  const phaseMarginDeg = crossoverHz === null ? null : 180 + at(crossoverHz).phaseDeg;
-  const gmCrossing = phase.find((c) => c.direction === 'down' && (crossoverHz === null || c.hz > crossoverHz));
-  const phaseCrossoverHz = gmCrossing ? gmCrossing.hz : null;
-  const gainMarginDb = phaseCrossoverHz === null ? null : -at(phaseCrossoverHz).magDb;
+  const phaseMarginDeg = crossoverHz === null ? null : 180 + phaseAt(crossoverHz);
+  let phaseCrossoverHz: number | null = null;
+  for (const c of phase) {
+    if (c.direction === 'down' && (crossoverHz === null || c.hz > crossoverHz)) {
+      phaseCrossoverHz = c.hz;
+      break;
+    }
+  }
+  const gainMarginDb = phaseCrossoverHz === null ? null : -magDbAt(phaseCrossoverHz);
   return { crossoverHz, phaseMarginDeg, gainMarginDb, phaseCrossoverHz, crossings };
 };
 
@@ -199,9 +210,7 @@ export const marginsFromCrossings = (sampled: SampledResponse, at: TraceCrossing
   const phase: FoundCrossing[] = [];
   for (const i of at.gainAt) gain.push(crossingBetween(f[i], f[i + 1], magDb[i], magDb[i + 1], 0, magOf));
   for (const i of at.phaseAt) phase.push(crossingBetween(f[i], f[i + 1], phaseDeg[i] + 180, phaseDeg[i + 1] + 180, -180, phaseOf));
-  const value = (hz: number) =>
-    evaluate ? evaluate(hz) : { magDb: interpolateLogF(f, magDb, hz), phaseDeg: interpolateLogF(f, phaseDeg, hz) };
-  return assembleMargins(gain, phase, value);
+  return assembleMargins(gain, phase, phaseOf ?? ((hz) => interpolateLogF(f, phaseDeg, hz)), magOf ?? ((hz) => interpolateLogF(f, magDb, hz)));
 };
 
 /**
@@ -240,7 +249,7 @@ export const marginsFromScan = (f: ArrayLike<number>, scan: LoopScan, evaluate: 
     lastPb = pb;
     if (pa >= 0 !== pb >= 0) phase.push(crossingBetween(f[i], f[i + 1], pa, pb, -180, phaseOf));
   }
-  return assembleMargins(gain, phase, evaluate);
+  return assembleMargins(gain, phase, phaseOf, magOf);
 };
 
 /**
