@@ -16,7 +16,7 @@ import { marginsFromCrossings, marginsFromScan, type LoopPointEvaluator, type Tr
 import { esrZeroHint, type PlantModel } from './plant';
 import {
   defaultSweep,
-  loopOnto,
+  loopPass,
   nearWatch,
   planEvaluator,
   planTransfer,
@@ -168,21 +168,21 @@ const loopRb = (prepared: PreparedPlant, comp: CompensatorInput): number | undef
 
 /**
  * Loop gain on the grid (plant sweep reused) and its analytic evaluator on the same branch.
- * The compensator's sweep adds the plant's trace as it goes and notes the crossing intervals
- * and the conditional-stability point (LoopOnto), and with `near` the samples a nearby loop
- * needs looked at (NearWatch): no further pass over the samples.
+ * One pass adds the plant's and compensator's traces and notes the crossing intervals and the
+ * conditional-stability point (LoopPass), and with `near` the samples a nearby loop needs
+ * looked at (NearWatch): no further pass over the samples.
  */
 const sweepLoop = (prepared: PreparedPlant, comp: SectionedTransfer, near?: NearWatch) => {
   const compPlan = planTransfer(comp);
   const f = prepared.grid.f;
-  const onto = loopOnto(prepared.plantTrace, f.length, near);
-  const compTrace = sweepPlan(compPlan, prepared.grid, onto);
+  const compTrace = sweepPlan(compPlan, prepared.grid);
+  const pass = loopPass(prepared.plantTrace, compTrace, f, near);
   return {
     compTrace,
-    loop: { f, magDb: onto.magDb, phaseDeg: onto.phaseDeg },
-    crossings: onto.crossings,
-    belowMinus180Hz: onto.belowMinus180Hz,
-    evaluate: planEvaluator(productPlan(prepared.plantPlan, compPlan), f[0], onto.phaseDeg[0]),
+    loop: { f, magDb: pass.magDb, phaseDeg: pass.phaseDeg },
+    crossings: pass.crossings,
+    belowMinus180Hz: pass.belowMinus180Hz,
+    evaluate: planEvaluator(productPlan(prepared.plantPlan, compPlan), f[0], pass.phaseDeg[0]),
   };
 };
 

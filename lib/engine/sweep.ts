@@ -205,57 +205,63 @@ const angleOf = (y: number, x: number): number => {
 };
 
 /**
- * A loop made while its compensator is swept (analyze.ts): per point the plant's trace plus
- * the compensator's, the phase moved by one multiple of 360° to start at its principal value,
- * and what the margins and checks look for, noted in the same pass: the intervals where the
- * magnitude passes 0 dB and the phase −180° (TraceCrossings) and the first sample where the
- * phase is below −180° while |T| > 0 dB. Arrays are filled in place.
+ * A loop's trace as the sum of its plant's and compensator's traces (analyze.ts), the phase
+ * moved by one multiple of 360° to start at its principal value, with what the margins and
+ * checks look for noted in the same pass: the intervals where the magnitude passes 0 dB and
+ * the phase −180° (TraceCrossings) and the first sample where the phase is below −180° while
+ * |T| > 0 dB; with `near`, the samples it asks for (NearWatch).
  */
-export interface LoopOnto {
-  base: BodeTrace;
+export interface LoopPass {
   magDb: number[];
   phaseDeg: number[];
   crossings: TraceCrossings;
   belowMinus180Hz: number | null;
-  /** The multiple of 360° set at the first point. */
-  shift: number;
-  /** Samples noted for a loop near this one (NearWatch), when given. */
-  near: NearWatch | undefined;
 }
 
-export const loopOnto = (base: BodeTrace, n: number, near?: NearWatch): LoopOnto => ({
-  base,
-  magDb: new Array<number>(n),
-  phaseDeg: new Array<number>(n),
-  crossings: { gainAt: [], phaseAt: [] },
-  belowMinus180Hz: null,
-  shift: 0,
-  near,
-});
-
-const addOnto = (o: LoopOnto, i: number, cm: number, cp: number, hz: number): void => {
-  if (i === 0) o.shift = phaseOffsetDeg(o.base.phaseDeg[0] + cp);
-  const m = o.base.magDb[i] + cm;
-  const p = o.base.phaseDeg[i] + cp + o.shift;
-  o.magDb[i] = m;
-  o.phaseDeg[i] = p;
-  if (i > 0) {
-    if (m >= 0 !== o.magDb[i - 1] >= 0) o.crossings.gainAt.push(i - 1);
-    if (p + 180 >= 0 !== o.phaseDeg[i - 1] + 180 >= 0) o.crossings.phaseAt.push(i - 1);
+export const loopPass = (base: BodeTrace, comp: BodeTrace, f: readonly number[], near?: NearWatch): LoopPass => {
+  const n = f.length;
+  const bm = base.magDb;
+  const bp = base.phaseDeg;
+  const cm = comp.magDb;
+  const cp = comp.phaseDeg;
+  const magDb = new Array<number>(n);
+  const phaseDeg = new Array<number>(n);
+  const gainAt: number[] = [];
+  const phaseAt: number[] = [];
+  let belowMinus180Hz: number | null = null;
+  // Without a watch its bounds are negative: nothing is noted and no test of `near` runs per sample.
+  const nearGain = near !== undefined ? near.gainAt : gainAt;
+  const nearPhase = near !== undefined ? near.phaseAt : phaseAt;
+  const db = near !== undefined ? near.db : -1;
+  const deg = near !== undefined ? near.deg : -1;
+  const shift = n > 0 ? phaseOffsetDeg(bp[0] + cp[0]) : 0;
+  let prevM = 0;
+  let prevQ = 0;
+  for (let i = 0; i < n; i++) {
+    const m = bm[i] + cm[i];
+    const p = bp[i] + cp[i] + shift;
+    magDb[i] = m;
+    phaseDeg[i] = p;
+    // q = p + 180 is exact near −180° (Sterbenz), so q < 0 is p < −180.
+    const q = p + 180;
+    // The product tests first (a sign change needs it ≤ 0): cheaper than two boolean compares.
+    if (i > 0) {
+      if (m * prevM <= 0 && m >= 0 !== prevM >= 0) gainAt.push(i - 1);
+      if (q * prevQ <= 0 && q >= 0 !== prevQ >= 0) phaseAt.push(i - 1);
+    }
+    if (q < 0 && m > 0 && belowMinus180Hz === null) belowMinus180Hz = f[i];
+    if (Math.abs(m) <= db) nearGain.push(i);
+    if (Math.abs(q) <= deg) nearPhase.push(i);
+    prevM = m;
+    prevQ = q;
   }
-  if (o.belowMinus180Hz === null && p < -180 && m > 0) o.belowMinus180Hz = hz;
-  const near = o.near;
-  if (near !== undefined) {
-    if (Math.abs(m) <= near.db) near.gainAt.push(i);
-    if (Math.abs(p + 180) <= near.deg) near.phaseAt.push(i);
-  }
+  return { magDb, phaseDeg, crossings: { gainAt, phaseAt }, belowMinus180Hz };
 };
 
 /**
  * Evaluate a sectioned transfer on a grid (hot path: plain numbers, one atan2 per term, one
  * logarithm per point; output arrays are allocated once at their final size). Transfers of
- * several terms go to sweepByIncrements when its slope bound allows; `onto` adds this trace
- * to a base trace as it goes (LoopOnto).
+ * several terms go to sweepByIncrements when its slope bound allows.
  * magDb = 10·log10(gain²·ω^(2n)·Π|N_k|² / Π|D_k|²) (one division, one logarithm);
  * phase = ph0 + Σ ∠(N_k·conj(D_k)) + offset,
  * the offset chosen at the first point (see phaseOffsetDeg). The loop body repeats
@@ -265,9 +271,9 @@ const addOnto = (o: LoopOnto, i: number, cm: number, cp: number, hz: number): vo
 export const sweepTransfer = (h: SectionedTransfer, grid: Grid): BodeTrace => sweepPlan(planTransfer(h), grid);
 
 /** sweepTransfer of a transfer already planned (planTransfer). */
-export const sweepPlan = (plan: TransferPlan, grid: Grid, onto?: LoopOnto): BodeTrace => {
+export const sweepPlan = (plan: TransferPlan, grid: Grid): BodeTrace => {
   // Two terms or more, and no step can turn the phase by a radian: one arctangent per point.
-  if (plan.terms.length > 4 && plan.slope * grid.lnStep < 1) return sweepByIncrements(plan, grid, onto);
+  if (plan.terms.length > 4 && plan.slope * grid.lnStep < 1) return sweepByIncrements(plan, grid);
   const n = grid.f.length;
   const magDb = new Array<number>(n);
   const phaseDeg = new Array<number>(n);
@@ -300,7 +306,6 @@ export const sweepPlan = (plan: TransferPlan, grid: Grid, onto?: LoopOnto): Bode
     const p = ph + offsetDeg;
     magDb[i] = m;
     phaseDeg[i] = p;
-    if (onto !== undefined) addOnto(onto, i, m, p, grid.f[i]);
   }
   return { magDb, phaseDeg };
 };
@@ -367,7 +372,7 @@ const widen = (crossed: readonly number[], near: readonly number[], n: number): 
 /**
  * The intervals where a second loop within the watch's bounds of this one may cross (see
  * NearWatch): outside them both of its samples lie on this loop's side of 0 dB and of −180°.
- * `crossings` are this loop's own (LoopOnto).
+ * `crossings` are this loop's own (LoopPass).
  */
 export const scanCandidates = (crossings: TraceCrossings, near: NearWatch, n: number): ScanCandidates => ({
   gainAt: widen(crossings.gainAt, near.gainAt, n),
@@ -476,7 +481,7 @@ const ANCHOR = 64;
  * (the traces agree with the term-by-term form to about 1e-13 dB and degrees). The magnitude
  * is the same product as in sweepTransfer.
  */
-const sweepByIncrements = (plan: TransferPlan, grid: Grid, onto: LoopOnto | undefined): BodeTrace => {
+const sweepByIncrements = (plan: TransferPlan, grid: Grid): BodeTrace => {
   const n = grid.f.length;
   const magDb = new Array<number>(n);
   const phaseDeg = new Array<number>(n);
@@ -524,7 +529,6 @@ const sweepByIncrements = (plan: TransferPlan, grid: Grid, onto: LoopOnto | unde
     const p = deg + offsetDeg;
     magDb[i] = m;
     phaseDeg[i] = p;
-    if (onto !== undefined) addOnto(onto, i, m, p, grid.f[i]);
   }
   return { magDb, phaseDeg };
 };
