@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import Complex from 'complex.js';
 import { compensatorTransfer } from '@/lib/engine/compensator';
-import { defaultSweep, logSweep, makeGrid, sweepComplex, sweepGrid, sweepTransfer, transferEvaluator } from '@/lib/engine/sweep';
+import { defaultSweep, logSweep, loopPass, makeGrid, nearWatch, scanCandidates, sweepComplex, sweepGrid, sweepTransfer, transferEvaluator } from '@/lib/engine/sweep';
 import { evaluateTransfer, multiplyTransfers, transferFromPolys, wrapDeg, type SectionedTransfer } from '@/lib/engine/transfer';
 import { expectAbs, expectRel } from './helpers';
 
@@ -88,5 +88,33 @@ describe('sweepTransfer', () => {
         expectAbs(s.phaseDeg[i], exact(hz).phaseDeg, 1e-9);
       });
     }
+  });
+});
+
+describe('scanCandidates', () => {
+  it('adds the intervals on both sides of each near sample to the crossings, ascending and once each', () => {
+    const near = nearWatch(0.1, 1);
+    near.gainAt.push(0, 3, 4, 9);
+    near.phaseAt.push(6);
+    const c = scanCandidates({ gainAt: [5, 7], phaseAt: [2] }, near, 10);
+    // Sample 0 has no interval before it and sample 9 (the last) none after it.
+    expect(c.gainAt).toEqual([0, 2, 3, 4, 5, 7, 8]);
+    expect(c.phaseAt).toEqual([2, 5, 6]);
+  });
+});
+
+describe('loopPass', () => {
+  it('adds two traces, notes the sign changes, the first sample below −180° above 0 dB, and the samples near 0 dB and −180°', () => {
+    const f = [1, 2, 3, 4, 5, 6];
+    const base = { magDb: [10, 5, 1, 0, -3, -10], phaseDeg: [-100, -150, -178, -181, -185, -170] };
+    const comp = { magDb: [0, 0, 0, 0.05, 0, 0], phaseDeg: [0, 0, 0, 0, 0, 0] };
+    const near = nearWatch(0.5, 2.5);
+    const pass = loopPass(base, comp, f, near);
+    expect(pass.magDb).toEqual([10, 5, 1, 0.05, -3, -10]);
+    expect(pass.crossings.gainAt).toEqual([3]);
+    expect(pass.crossings.phaseAt).toEqual([2, 4]);
+    expect(pass.belowMinus180Hz).toBe(4);
+    expect(near.gainAt).toEqual([3]);
+    expect(near.phaseAt).toEqual([2, 3]);
   });
 });
