@@ -12,7 +12,7 @@ import { compensatorTransfer, dividerRb, gbwEnough, opAmpShapeError, shapeFromPa
 import { amplifierChecks, loopChecks, modulatorChecks, partChecks, stageChecks } from './checks';
 import { buildControlPlant } from './control';
 import { snapToSeries } from './eseries';
-import { marginsFromCrossings, marginsFromScan, type LoopPointEvaluator, type TraceCrossings } from './margins';
+import { marginsFromCrossings, marginsFromScan, type LoopPointEvaluator } from './margins';
 import { esrZeroHint, type PlantModel } from './plant';
 import {
   defaultSweep,
@@ -21,7 +21,6 @@ import {
   planEvaluator,
   planTransfer,
   productPlan,
-  scanCandidates,
   scanPlan,
   scanTransfer,
   sweepGrid,
@@ -251,13 +250,11 @@ export const analyzeLoop = (prepared: PreparedPlant, comp: CompensatorInput): Lo
 
 /**
  * analyzeLoop for a validated compensator; `gc` when the caller has built the loop's transfer
- * already, `near` to note what a nearby loop's scan needs (NearWatch; its crossings are this
- * loop's, set here).
+ * already, `near` to note what a nearby loop's scan needs (NearWatch).
  */
-const analyzeValidLoop = (prepared: PreparedPlant, comp: CompensatorInput, gc?: SectionedTransfer, near?: LoopNear): LoopResult => {
+const analyzeValidLoop = (prepared: PreparedPlant, comp: CompensatorInput, gc?: SectionedTransfer, near?: NearWatch): LoopResult => {
   const rbLoop = loopRb(prepared, comp);
-  const { compTrace, loop, crossings, belowMinus180Hz, evaluate } = sweepLoop(prepared, gc ?? compensatorTransfer(comp, rbLoop), near?.watch);
-  if (near) near.crossings = crossings;
+  const { compTrace, loop, crossings, belowMinus180Hz, evaluate } = sweepLoop(prepared, gc ?? compensatorTransfer(comp, rbLoop), near);
   const margins = marginsFromCrossings(loop, crossings, evaluate);
   const rb = divider(prepared, comp);
   const fsw = prepared.converter.fsw;
@@ -364,12 +361,6 @@ export const analyzeParts = (prepared: PreparedPlant, comp: CompensatorInput, op
   return partsResult(prepared, comp, snappedComp, series, marginsOnPlant(prepared, loopCompensatorTransfer(prepared, snappedComp)));
 };
 
-/** A NearWatch for the ideal loop's pass and, once it has run, that loop's own crossings. */
-interface LoopNear {
-  watch: NearWatch;
-  crossings?: TraceCrossings;
-}
-
 /**
  * Full analysis of a design (POST /api/analyze).
  * @throws EngineInputError (→ 422) for physically impossible input, naming each field.
@@ -387,15 +378,9 @@ export const analyze = (request: AnalyzeRequest): AnalyzeResult => {
   const gcSnapped = same ? gc : compensatorTransfer(snappedComp, loopRb(prepared, snappedComp));
   const bound = same ? null : ratioBound(gc, gcSnapped);
   // Slack for the rounding of the two loops' arithmetic.
-  const near: LoopNear | undefined = bound ? { watch: nearWatch(bound.db + 1e-9, bound.deg + 1e-9) } : undefined;
+  const near = bound ? nearWatch(bound.db + 1e-9, bound.deg + 1e-9) : undefined;
   const loop = analyzeValidLoop(prepared, comp, gc, near);
-  let snappedMargins = loop.margins;
-  if (!same) {
-    // Both loops start at their principal values: the same branch unless the ideal one starts within the bound of ±180°.
-    const sameBranch = near !== undefined && near.crossings !== undefined && Math.abs(loop.bode.loop.phaseDeg[0]) + near.watch.deg < 180;
-    const only = sameBranch ? scanCandidates(near.crossings!, near.watch, prepared.grid.f.length) : undefined;
-    snappedMargins = marginsOnPlant(prepared, gcSnapped, only);
-  }
+  const snappedMargins = same ? loop.margins : marginsOnPlant(prepared, gcSnapped, near?.only);
   return {
     operatingPoint: prepared.operatingPoint,
     plant: prepared.plant,

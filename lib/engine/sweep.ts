@@ -209,7 +209,7 @@ const angleOf = (y: number, x: number): number => {
  * moved by one multiple of 360° to start at its principal value, with what the margins and
  * checks look for noted in the same pass: the intervals where the magnitude passes 0 dB and
  * the phase −180° (TraceCrossings) and the first sample where the phase is below −180° while
- * |T| > 0 dB; with `near`, the samples it asks for (NearWatch).
+ * |T| > 0 dB; with `near`, the samples it asks for and the intervals they give (NearWatch).
  */
 export interface LoopPass {
   magDb: number[];
@@ -255,7 +255,9 @@ export const loopPass = (base: BodeTrace, comp: BodeTrace, f: readonly number[],
     prevM = m;
     prevQ = q;
   }
-  return { magDb, phaseDeg, crossings: { gainAt, phaseAt }, belowMinus180Hz };
+  const crossings = { gainAt, phaseAt };
+  if (near !== undefined && n > 0 && Math.abs(phaseDeg[0]) + deg < 180) near.only = scanCandidates(crossings, near, n);
+  return { magDb, phaseDeg, crossings, belowMinus180Hz };
 };
 
 /**
@@ -325,16 +327,19 @@ export const scanTransfer = (h: SectionedTransfer, grid: Grid): { scan: LoopScan
 
 /**
  * What a loop's pass notes for a second loop known to lie within `db` dB and `deg` degrees of
- * it at every frequency, on the same branch (the loop with the compensator's parts snapped:
- * ratioBound): the samples where this loop is within db of 0 dB (gainAt) and within deg of
- * −180° (phaseAt). The second loop can cross 0 dB or −180° only in an interval that touches
- * one of them or where this loop crosses too (scanCandidates).
+ * it at every frequency (the loop with the compensator's parts snapped: ratioBound): the
+ * samples where this loop is within db of 0 dB (gainAt) and within deg of −180° (phaseAt).
+ * The second loop can cross 0 dB or −180° only in an interval that touches one of them or
+ * where this loop crosses too; the pass leaves those intervals in `only` (scanCandidates) when
+ * both loops start on the same branch, i.e. this one starts farther than deg from ±180°
+ * (both start at their principal values).
  */
 export interface NearWatch {
   db: number;
   deg: number;
   gainAt: number[];
   phaseAt: number[];
+  only?: ScanCandidates;
 }
 
 export const nearWatch = (db: number, deg: number): NearWatch => ({ db, deg, gainAt: [], phaseAt: [] });

@@ -116,5 +116,12 @@ describe('loopPass', () => {
     expect(pass.belowMinus180Hz).toBe(4);
     expect(near.gainAt).toEqual([3]);
     expect(near.phaseAt).toEqual([2, 3]);
+    expect(near.only).toEqual({ gainAt: [2, 3], phaseAt: [1, 2, 3, 4] });
+  });
+
+  it('leaves no intervals when the loop starts within the bound of ±180° (the nearby loop may start a turn away)', () => {
+    const near = nearWatch(0.5, 5);
+    loopPass({ magDb: [10, -10], phaseDeg: [-177, -200] }, { magDb: [0, 0], phaseDeg: [0, 0] }, [1, 2], near);
+    expect(near.only).toBeUndefined();
   });
 });
