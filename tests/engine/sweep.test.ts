@@ -1,9 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import Complex from 'complex.js';
 import { compensatorTransfer } from '@/lib/engine/compensator';
-import { defaultSweep, logSweep, loopPass, makeGrid, nearWatch, scanCandidates, sweepComplex, sweepGrid, sweepTransfer, transferEvaluator } from '@/lib/engine/sweep';
+import { atanStep, defaultSweep, lnStep, logSweep, loopPass, makeGrid, nearWatch, scanCandidates, sweepComplex, sweepGrid, sweepTransfer, transferEvaluator } from '@/lib/engine/sweep';
 import { evaluateTransfer, multiplyTransfers, transferFromPolys, wrapDeg, type SectionedTransfer } from '@/lib/engine/transfer';
 import { expectAbs, expectRel } from './helpers';
+import { planTransfer } from '@/lib/engine/sweep';
+import { MODE_SAMPLES, SAMPLE_DESIGNS } from '@/lib/engine/samples';
+import { loopCompensatorTransfer, preparePlant } from '@/lib/engine/analyze';
 
 const TWO_PI = 2 * Math.PI;
 
@@ -87,6 +90,53 @@ describe('sweepTransfer', () => {
         expectAbs(s.magDb[i], exact(hz).magDb, 1e-9);
         expectAbs(s.phaseDeg[i], exact(hz).phaseDeg, 1e-9);
       });
+    }
+  });
+});
+
+// The sweeps' step series against the built-ins (Math.atan, Math.log: fdlibm's, correctly
+// rounded to within an ulp), over the whole range where the series are used and past it.
+describe('atanStep and lnStep', () => {
+  it('atanStep is Math.atan to within 2 ulp for |x| < 1/16 and Math.atan itself beyond', () => {
+    for (let k = -2000; k <= 2000; k++) {
+      const x = (k / 2000) * (1 / 16) * 0.999999;
+      const ref = Math.atan(x);
+      expect(Math.abs(atanStep(x) - ref)).toBeLessThanOrEqual(2 * Number.EPSILON * Math.abs(ref) + Number.MIN_VALUE);
+    }
+    for (const x of [1 / 16, -0.07, 0.5, -3, 1e6]) expect(atanStep(x)).toBe(Math.atan(x));
+  });
+
+  it('lnStep adds ln(q/qp) for q/qp in 0.88…1.13, and takes Math.log(q) beyond', () => {
+    for (const qp of [1e-12, 0.37, 1, 4.2e9]) {
+      for (let k = -1000; k <= 1000; k++) {
+        const r = Math.exp((k / 1000) * 0.1249);
+        const q = qp * r;
+        const step = lnStep(0, q, qp);
+        const ref = Math.log(q / qp);
+        // 4 ulp of the step, plus the rounding of q/qp (half an ulp of 1) in the reference itself.
+        expect(Math.abs(step - ref)).toBeLessThanOrEqual(4 * Number.EPSILON * Math.abs(ref) + Number.EPSILON / 2);
+      }
+      expect(lnStep(123, 1.2 * qp, qp)).toBe(Math.log(1.2 * qp));
+      expect(lnStep(123, 0.8 * qp, qp)).toBe(Math.log(0.8 * qp));
+    }
+    expect(lnStep(5, 0, 0)).toBe(-Infinity);
+  });
+
+  it('sample designs: every plant and compensator trace is its analytic transfer to 1e-12 dB and degrees', () => {
+    for (const s of [...SAMPLE_DESIGNS, ...MODE_SAMPLES]) {
+      const prepared = preparePlant(s.request);
+      const gc = loopCompensatorTransfer(prepared, s.request.compensator);
+      for (const h of [prepared.plantTransfer, gc]) {
+        // The step path is the one taken (slope bound times the grid's step under a radian).
+        expect(planTransfer(h).slope * prepared.grid.lnStep).toBeLessThan(1);
+        const f = prepared.grid.f;
+        const trace = sweepTransfer(h, prepared.grid);
+        const exact = transferEvaluator(h, f[0], trace.phaseDeg[0]);
+        f.forEach((hz, i) => {
+          expectAbs(trace.magDb[i], exact(hz).magDb, 1e-12);
+          expectAbs(trace.phaseDeg[i], exact(hz).phaseDeg, 1e-12);
+        });
+      }
     }
   });
 });
