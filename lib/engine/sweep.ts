@@ -508,6 +508,23 @@ export const lnStep = (lnPrev: number, q: number, qp: number): number => {
 };
 
 /**
+ * ph0 + Σ ∠(N_k·conj(D_k)) over a plan's terms at ω (w2 = ω²), rad, one arctangent per term:
+ * the continuous phase wherever each term stays inside (−180°, 180°) (see TransferPlan). The
+ * anchors of sweepByIncrements and the evaluator's phase, so the two agree to the last bit.
+ */
+const termsAngle = (t: readonly number[], ph0: number, w: number, w2: number): number => {
+  let ph = ph0;
+  for (let k = 0; k < t.length; k += 4) {
+    const nre = 1 - t[k + 1] * w2;
+    const nim = t[k] * w;
+    const dre = 1 - t[k + 3] * w2;
+    const dim = t[k + 2] * w;
+    ph += angleOf(nim * dre - nre * dim, nre * dre + nim * dim);
+  }
+  return ph;
+};
+
+/**
  * sweepTransfer when no grid step can turn the phase by a radian (the plan's slope bound times
  * the grid's largest log step is under 1): then the angle of C_i·conj(C_{i−1}),
  * C = Π N_k·conj(D_k), is the phase step itself (its real part is positive, so atan(Im/Re)
@@ -538,8 +555,6 @@ const sweepByIncrements = (plan: TransferPlan, grid: Grid): BodeTrace => {
     const wi2 = wi * wi;
     let num = order > 0 ? g2 * Math.pow(wi2, order) : g2;
     let den = order >= 0 ? 1 : order === -1 ? wi2 : Math.pow(wi2, -order);
-    const anchor = i % ANCHOR === 0;
-    if (anchor) ph = plan.ph0;
     let cr = 1;
     let ci = 0;
     for (let k = 0; k < t.length; k += 4) {
@@ -551,14 +566,17 @@ const sweepByIncrements = (plan: TransferPlan, grid: Grid): BodeTrace => {
       den *= dre * dre + dim * dim;
       const xr = nre * dre + nim * dim;
       const xi = nim * dre - nre * dim;
-      if (anchor) ph += angleOf(xi, xr);
       const c = cr * xr - ci * xi;
       ci = cr * xi + ci * xr;
       cr = c;
     }
     const q = num / den;
-    if (anchor) lnq = Math.log(q);
-    else {
+    // The anchors' angles in a call of their own: with the arctangents inside the loop above,
+    // every sample ran about a tenth slower (measured).
+    if (i % ANCHOR === 0) {
+      ph = termsAngle(t, plan.ph0, wi, wi2);
+      lnq = Math.log(q);
+    } else {
       ph += atanStep((ci * pr - cr * pi) / (cr * pr + ci * pi));
       lnq = lnStep(lnq, q, qp);
     }
@@ -611,16 +629,7 @@ export const planEvaluator = (plan: TransferPlan, startHz: number, startDeg?: nu
   };
   const rawPhaseDeg = (hz: number): number => {
     const w = TWO_PI * hz;
-    const w2 = w * w;
-    let ph = plan.ph0;
-    for (let k = 0; k < t.length; k += 4) {
-      const nre = 1 - t[k + 1] * w2;
-      const nim = t[k] * w;
-      const dre = 1 - t[k + 3] * w2;
-      const dim = t[k + 2] * w;
-      ph += angleOf(nim * dre - nre * dim, nre * dre + nim * dim);
-    }
-    return ph * RAD2DEG;
+    return termsAngle(t, plan.ph0, w, w * w) * RAD2DEG;
   };
   const phaseDegAt = (hz: number): number => rawPhaseDeg(hz) + offsetDeg;
   const evaluate: LoopPointEvaluator = (hz) => ({ magDb: magDbAt(hz), phaseDeg: phaseDegAt(hz) });
