@@ -36,6 +36,8 @@ export interface BenchCase {
 
 let sink: unknown;
 
+const median = (sorted: readonly number[]) => sorted[sorted.length >> 1];
+
 /**
  * Median of batch-mean times in µs after a warm-up; also the best batch, which is the better
  * estimate when other processes share the machine (the median then includes their time slices).
@@ -52,8 +54,6 @@ const measure = (c: BenchCase, batches = 400, warmup = 3000): { medianUs: number
   times.sort((a, b) => a - b);
   return { medianUs: median(times), p90Us: times[Math.floor(times.length * 0.9)], bestUs: times[0] };
 };
-
-const median = (sorted: readonly number[]) => sorted[sorted.length >> 1];
 
 /** Per-call time of three reference calls (referenceLoop), µs. */
 const timeReference = (): number => {
